@@ -1,0 +1,50 @@
+/**
+ * A partition of n in multiplicity form: the distinct part sizes, largest first, and how many
+ * times each occurs. Sum of sizes[i] * multiplicities[i] is n. This form stays small at huge n
+ * (a partition of 10^9 has ~2.5e4 distinct sizes but ~2.6e5 parts), so samplers return it and
+ * encoders expand it only when asked.
+ */
+export interface Partition {
+  readonly sizes: number[];
+  readonly multiplicities: number[];
+}
+
+/** Builds the multiplicity form from a multiplicity-by-size map (any order). */
+export function partitionFromCounts(counts: Map<number, number>): Partition {
+  const sizes = [...counts.keys()].filter((s) => counts.get(s)! > 0).sort((a, b) => b - a);
+  return { sizes, multiplicities: sizes.map((s) => counts.get(s)!) };
+}
+
+/** Builds the multiplicity form from a list of parts (any order). */
+export function partitionFromParts(parts: readonly number[]): Partition {
+  const counts = new Map<number, number>();
+  for (const p of parts) counts.set(p, (counts.get(p) ?? 0) + 1);
+  return partitionFromCounts(counts);
+}
+
+/** The parts, largest first. */
+export function partsOf(partition: Partition): number[] {
+  const out: number[] = [];
+  const { sizes, multiplicities } = partition;
+  for (let i = 0; i < sizes.length; i++) for (let j = 0; j < multiplicities[i]; j++) out.push(sizes[i]);
+  return out;
+}
+
+/** n, the sum of the parts. */
+export function sizeOf(partition: Partition): number {
+  let total = 0;
+  for (let i = 0; i < partition.sizes.length; i++) total += partition.sizes[i] * partition.multiplicities[i];
+  return total;
+}
+
+/** The number of parts (the length of the partition). */
+export function lengthOf(partition: Partition): number {
+  let total = 0;
+  for (const m of partition.multiplicities) total += m;
+  return total;
+}
+
+/** Every part multiplied by factor (used when a partition of m is doubled into one of 2m). */
+export function scalePartition(partition: Partition, factor: number): Partition {
+  return { sizes: partition.sizes.map((s) => s * factor), multiplicities: partition.multiplicities.slice() };
+}
