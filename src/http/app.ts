@@ -1,0 +1,61 @@
+import { Hono } from 'hono';
+import { PartitionNumbers } from '../core/counting/partition-numbers.js';
+import type { AppContext, Endpoint } from './endpoint.js';
+import { DEFAULT_LIMITS, type Limits } from './limits.js';
+import { ProblemError, problemResponse } from './problem.js';
+import { parseQuery } from './query.js';
+import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
+import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
+
+export interface AppOptions {
+  readonly limits?: Partial<Limits>;
+  /** Seed for requests that give none; defaults to 16 random characters from Web Crypto. */
+  readonly drawSeed?: () => string;
+}
+
+const SEED_ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
+
+/** 16 characters from a 62-letter alphabet (~95 bits); the modulo bias of 256 % 62 is irrelevant here. */
+export function drawRandomSeed(): string {
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  return [...bytes].map((b) => SEED_ALPHABET[b % SEED_ALPHABET.length]).join('');
+}
+
+/**
+ * The partsmith HTTP app: Request -> Response, nothing runtime-specific, no state between
+ * requests (only per-isolate memo tables). Node, the Workers runtime and tests all run this.
+ */
+export function createApp(options: AppOptions = {}): Hono {
+  const context: AppContext = {
+    limits: { ...DEFAULT_LIMITS, ...options.limits },
+    drawSeed: options.drawSeed ?? drawRandomSeed,
+    partitionNumbers: new PartitionNumbers(),
+  };
+  const endpoints: Endpoint[] = [];
+  endpoints.push(
+    partitionsEndpoint as unknown as Endpoint,
+    partitionsCountEndpoint as unknown as Endpoint,
+    healthEndpoint as unknown as Endpoint,
+    openApiEndpoint(() => endpoints) as unknown as Endpoint,
+  );
+
+  const app = new Hono();
+  for (const endpoint of endpoints) {
+    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), context));
+    app.all(endpoint.path, (c) => {
+      throw new ProblemError(405, `${c.req.method} is not supported on ${endpoint.path}; use GET or HEAD.`, undefined, { allow: 'GET, HEAD' });
+    });
+  }
+  app.notFound((c) => problemResponse(new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
+  app.onError((error) => problemResponse(toProblem(error)));
+  return app;
+}
+
+/** Maps anything thrown while handling a request to a problem; internals never leak into the body. */
+export function toProblem(error: unknown): ProblemError {
+  if (error instanceof ProblemError) return error;
+  // The core raises RangeErrors (EmptyFamilyError and LimitExceededError among them) for
+  // requests that are well-formed but cannot be served; their messages are written for users.
+  if (error instanceof RangeError) return new ProblemError(422, error.message);
+  return new ProblemError(500, 'The service failed to answer this request. It has been logged; please report the URL.');
+}

@@ -1,0 +1,35 @@
+import type { z } from 'zod';
+import type { PartitionNumbers } from '../core/counting/partition-numbers.js';
+import type { Limits } from './limits.js';
+
+/** Per-isolate state and settings shared by every request (no request-to-request state). */
+export interface AppContext {
+  readonly limits: Limits;
+  /** Draws a seed for requests that give none. */
+  readonly drawSeed: () => string;
+  /** Exact partition numbers, tabulated lazily and kept for the isolate's lifetime. */
+  readonly partitionNumbers: PartitionNumbers;
+}
+
+export interface ResponseDoc {
+  readonly description: string;
+  readonly contentTypes: readonly string[];
+}
+
+/**
+ * One GET endpoint: its path, its query schema (the single source of truth for validation,
+ * types and the OpenAPI document) and its handler.
+ */
+export interface Endpoint<S extends z.ZodObject = z.ZodObject> {
+  readonly path: string;
+  readonly summary: string;
+  readonly description: string;
+  readonly query: S;
+  readonly responses: Readonly<Record<string, ResponseDoc>>;
+  handle(request: Request, query: z.output<S>, context: AppContext): Promise<Response> | Response;
+}
+
+/** Keeps the schema's type attached to the handler's query argument. */
+export function defineEndpoint<S extends z.ZodObject>(endpoint: Endpoint<S>): Endpoint<S> {
+  return endpoint;
+}

@@ -1,0 +1,48 @@
+import { z } from 'zod';
+
+/**
+ * Builders for query parameters. Query values arrive as strings; each builder checks the raw
+ * string strictly (digits only, no sign, exponent, blank or fraction: `z.coerce` would turn
+ * `n=` into 0) and only then converts it, so the typed schema stays the single source of truth
+ * for validation, TypeScript types and the OpenAPI document.
+ */
+
+const DIGITS = /^[0-9]{1,16}$/;
+
+function digitsToNumber(raw: unknown): unknown {
+  return typeof raw === 'string' && DIGITS.test(raw) ? Number(raw) : raw;
+}
+
+/** A whole number in [min, max], written as plain decimal digits. */
+export function integerParam(min: number, max: number, description: string) {
+  const message = `must be a whole number from ${min} to ${max}, written with digits only`;
+  return z
+    .preprocess(digitsToNumber, z.number({ error: message }).int({ error: message }).min(min, { error: message }).max(max, { error: message }))
+    .describe(description);
+}
+
+/** `true` or `false`. */
+export function booleanParam(description: string) {
+  return z
+    .preprocess((raw) => (raw === 'true' ? true : raw === 'false' ? false : raw), z.boolean({ error: 'must be true or false' }))
+    .describe(description);
+}
+
+/** A comma-separated list of distinct-or-repeated whole numbers, returned sorted and de-duplicated. */
+export function sizeListParam(min: number, max: number, maxItems: number, description: string) {
+  const message = `must be a comma-separated list of whole numbers from ${min} to ${max} (at most ${maxItems} distinct values)`;
+  return z
+    .preprocess(
+      (raw) => {
+        if (typeof raw !== 'string' || !/^[0-9]{1,16}(,[0-9]{1,16})*$/.test(raw)) return raw;
+        return [...new Set(raw.split(',').map(Number))].sort((a, b) => a - b);
+      },
+      z.array(z.number().int().min(min, { error: message }).max(max, { error: message }), { error: message }).min(1, { error: message }).max(maxItems, { error: message }),
+    )
+    .describe(description);
+}
+
+/** One of a fixed set of words. */
+export function choiceParam<const T extends readonly [string, ...string[]]>(values: T, description: string) {
+  return z.enum(values, { error: `must be one of: ${values.join(', ')}` }).describe(description);
+}

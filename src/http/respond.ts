@@ -1,0 +1,48 @@
+import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from './caching.js';
+import type { Limits } from './limits.js';
+import { bodyPieces, bodyStream, checkJobLimits, contentTypeOf, type SamplingJob } from './sampling.js';
+
+/**
+ * Answers a sampling request: limits first, then caching headers, then the streamed body.
+ * `query` is the parsed query with the seed filled in (drawn or given).
+ */
+export async function respondWithSamples<S>(
+  request: Request,
+  path: string,
+  query: Record<string, unknown>,
+  job: SamplingJob<S>,
+  seeded: boolean,
+  limits: Limits,
+): Promise<Response> {
+  checkJobLimits(job as SamplingJob<unknown>, limits);
+  const headers: Record<string, string> = {
+    'content-type': contentTypeOf(job.format),
+    'partsmith-seed': job.seed,
+    'partsmith-method': job.sampler.method,
+  };
+  if (seeded) {
+    const etag = await strongEtag(path, sortedQuery(query));
+    headers.etag = etag;
+    headers['cache-control'] = IMMUTABLE;
+    if (matchesIfNoneMatch(request, etag)) {
+      return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+    }
+  } else {
+    headers['cache-control'] = NO_STORE;
+  }
+  return new Response(bodyStream(bodyPieces(job)), { status: 200, headers });
+}
+
+/** A small JSON document (counts, health): cacheable when it is a pure function of the request. */
+export async function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Promise<Response> {
+  const headers: Record<string, string> = { 'content-type': 'application/json; charset=utf-8' };
+  if (query) {
+    const etag = await strongEtag(path, sortedQuery(query));
+    headers.etag = etag;
+    headers['cache-control'] = IMMUTABLE;
+    if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+  } else {
+    headers['cache-control'] = NO_STORE;
+  }
+  return new Response(JSON.stringify(body), { status: 200, headers });
+}

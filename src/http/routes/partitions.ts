@@ -1,0 +1,78 @@
+import { canonicalFamily, type PartitionFamily } from '../../core/family.js';
+import { planPartitionSampler } from '../../core/partitions/plan.js';
+import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
+import { defineEndpoint } from '../endpoint.js';
+import { respondWithJson, respondWithSamples } from '../respond.js';
+import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
+import { countPartitionFamily } from './partition-count.js';
+import { PROBLEM_RESPONSES, SAMPLE_CONTENT_TYPES } from './docs.js';
+
+/** The family a query describes, normalised (the default minPart = 1 is dropped). */
+export function partitionFamilyOf(query: PartitionsCountQuery): PartitionFamily {
+  return canonicalFamily<PartitionFamily>({
+    kind: 'partition',
+    n: query.n,
+    distinct: query.distinct,
+    minPart: query.minPart === 1 ? undefined : query.minPart,
+    maxPart: query.maxPart,
+    length: query.length,
+    maxLength: query.maxLength,
+    allowed: query.allowed,
+  });
+}
+
+const PARTITIONS_PATH = '/v1/partitions';
+const PARTITIONS_COUNT_PATH = '/v1/partitions/count';
+
+export const partitionsEndpoint = defineEndpoint({
+  path: PARTITIONS_PATH,
+  summary: 'Uniformly random partitions of n',
+  description:
+    'Each sample is drawn exactly uniformly from the partitions of n that satisfy the constraints. Sample i of a seed is the same whatever start and count are, on every runtime.',
+  query: partitionsQuery,
+  responses: {
+    '200': { description: 'The samples.', contentTypes: SAMPLE_CONTENT_TYPES },
+    '304': { description: 'Not modified (If-None-Match matched the ETag of a seeded request).', contentTypes: [] },
+    ...PROBLEM_RESPONSES,
+  },
+  handle(request, query, context) {
+    const seeded = query.seed !== undefined;
+    const seed = query.seed ?? context.drawSeed();
+    const family = partitionFamilyOf(query);
+    const sampler = planPartitionSampler(family);
+    const multiplicities = query.as === 'multiplicities';
+    return respondWithSamples(
+      request,
+      PARTITIONS_PATH,
+      { ...query, seed },
+      {
+        family,
+        sampler,
+        encoder: multiplicities ? partitionAsMultiplicities : partitionAsParts,
+        numbersPerSample: multiplicities ? 2 * sampler.expectedDistinct : sampler.expectedLength,
+        seed,
+        start: query.start,
+        count: query.count,
+        format: query.format,
+      },
+      seeded,
+      context.limits,
+    );
+  },
+});
+
+export const partitionsCountEndpoint = defineEndpoint({
+  path: PARTITIONS_COUNT_PATH,
+  summary: 'The exact number of partitions of n in a family',
+  description: 'The count is exact (a decimal string, since it may exceed 2^53).',
+  query: partitionsCountQuery,
+  responses: {
+    '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
+    ...PROBLEM_RESPONSES,
+  },
+  handle(request, query, context) {
+    const family = partitionFamilyOf(query);
+    const count = countPartitionFamily(family, context.partitionNumbers);
+    return respondWithJson(request, PARTITIONS_COUNT_PATH, query, { family, count: count.toString() });
+  },
+});

@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { SEED_PATTERN } from '../../core/seeding.js';
+import { DEFAULT_LIMITS, MAX_N } from '../limits.js';
+import { choiceParam, integerParam } from '../params.js';
+
+/** Fields shared by every endpoint that returns samples. Spread into each endpoint's own schema. */
+export const samplingFields = {
+  n: integerParam(0, MAX_N, 'The size: every sample sums to exactly n.'),
+  count: integerParam(1, DEFAULT_LIMITS.maxCount, 'How many samples to return.').default(1),
+  seed: z
+    .string()
+    .regex(SEED_PATTERN, { error: 'must be 1 to 64 characters from A-Z a-z 0-9 . _ ~ : -' })
+    .optional()
+    .describe('Replays a previous answer. When absent the server draws a seed and returns it (body field `seed`, header `Partsmith-Seed`).'),
+  start: integerParam(0, DEFAULT_LIMITS.maxIndex, 'Index of the first sample. Sample i of a seed is the same whatever start and count are.').default(0),
+  format: choiceParam(['json', 'ndjson', 'text'], 'json: one document; ndjson: one line per sample, streamed; text: one sample per line, parts separated by spaces.').default('json'),
+};
+
+export const countFields = {
+  n: integerParam(0, MAX_N, 'The size.'),
+};
+
+export type SampleFormat = z.output<typeof samplingFields.format>;
