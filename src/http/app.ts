@@ -4,6 +4,7 @@ import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
 import { parseQuery } from './query.js';
+import { LruCache } from './sampler-cache.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
 
@@ -30,6 +31,7 @@ export function createApp(options: AppOptions = {}): Hono {
     limits: { ...DEFAULT_LIMITS, ...options.limits },
     drawSeed: options.drawSeed ?? drawRandomSeed,
     partitionNumbers: new PartitionNumbers(),
+    partitionSamplers: new LruCache(64),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(

@@ -1,6 +1,8 @@
 import type { z } from 'zod';
 import type { PartitionNumbers } from '../core/counting/partition-numbers.js';
+import type { PartitionSampler } from '../core/sampler.js';
 import type { Limits } from './limits.js';
+import type { LruCache } from './sampler-cache.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
@@ -9,6 +11,8 @@ export interface AppContext {
   readonly drawSeed: () => string;
   /** Exact partition numbers, tabulated lazily and kept for the isolate's lifetime. */
   readonly partitionNumbers: PartitionNumbers;
+  /** Planned partition samplers by family key. */
+  readonly partitionSamplers: LruCache<PartitionSampler>;
 }
 
 export interface ResponseDoc {

@@ -1,4 +1,4 @@
-import { canonicalFamily, type PartitionFamily } from '../../core/family.js';
+import { canonicalFamily, familyKey, type PartitionFamily } from '../../core/family.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
@@ -39,7 +39,7 @@ export const partitionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const family = partitionFamilyOf(query);
-    const sampler = planPartitionSampler(family);
+    const sampler = context.partitionSamplers.getOrCreate(familyKey(family), () => planPartitionSampler(family));
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
       request,

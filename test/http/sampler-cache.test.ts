@@ -1,0 +1,21 @@
+import { describe, expect, it } from 'vitest';
+import { LruCache } from '../../src/http/sampler-cache.js';
+
+describe('LruCache', () => {
+  it('creates once per key and evicts the least recently used', () => {
+    const cache = new LruCache<number>(2);
+    let made = 0;
+    const make = () => ++made;
+    expect(cache.getOrCreate('a', make)).toBe(1);
+    expect(cache.getOrCreate('a', make)).toBe(1);
+    cache.getOrCreate('b', make);
+    cache.getOrCreate('a', make); // a is now the most recent
+    cache.getOrCreate('c', make); // evicts b
+    expect(cache.size).toBe(2);
+    expect(cache.getOrCreate('a', make)).toBe(1);
+    expect(cache.getOrCreate('b', make)).toBe(4);
+  });
+  it('rejects a non-positive capacity', () => {
+    expect(() => new LruCache(0)).toThrow(RangeError);
+  });
+});
