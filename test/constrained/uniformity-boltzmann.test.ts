@@ -52,10 +52,12 @@ describe('distinct-boltzmann is exact', () => {
 describe('bounded-boltzmann and allowed-boltzmann are exact', () => {
   const cases: Array<[string, PartitionFamily, string]> = [
     ['parts <= 5', { kind: 'partition', n: 25, maxPart: 5 }, 'bounded-boltzmann/1'],
-    ['parts >= 3 (residual divisible by 3)', { kind: 'partition', n: 33, minPart: 3 }, 'bounded-boltzmann/1'],
+    ['parts >= 3 (sizes 3 and 4 determined by the residual)', { kind: 'partition', n: 33, minPart: 3 }, 'bounded-boltzmann/1'],
     ['parts in [2, 7]', { kind: 'partition', n: 28, minPart: 2, maxPart: 7 }, 'bounded-boltzmann/1'],
     ['parts in {3, 5, 7, 8}', { kind: 'partition', n: 40, allowed: [3, 5, 7, 8] }, 'allowed-boltzmann/1'],
     ['parts in {1, 2, 5, 10}', { kind: 'partition', n: 35, allowed: [1, 2, 5, 10] }, 'allowed-boltzmann/1'],
+    ['parts in {4, 6, 9, 15} (gcd of the two smallest is 2)', { kind: 'partition', n: 40, allowed: [4, 6, 9, 15] }, 'allowed-boltzmann/1'],
+    ['parts in {2, 3} (both sizes determined)', { kind: 'partition', n: 33, allowed: [2, 3] }, 'allowed-boltzmann/1'],
     ['at most 4 parts (conjugate of parts <= 4)', { kind: 'partition', n: 22, maxLength: 4 }, 'bounded-boltzmann/1+conjugate'],
     ['exactly 4 parts >= 2 (conjugate)', { kind: 'partition', n: 30, length: 4, minPart: 2 }, 'bounded-boltzmann/1+conjugate'],
     ['exactly 4 distinct parts (staircase, conjugate)', { kind: 'partition', n: 30, distinct: true, length: 4 }, 'bounded-boltzmann/1+conjugate'],

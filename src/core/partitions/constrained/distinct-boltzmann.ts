@@ -51,10 +51,11 @@ export class DistinctBoltzmann implements PartitionSampler {
     readonly sizes: SizeSet,
     readonly n: number,
     blockCellLimit: number = DISTINCT_BLOCK_CELL_LIMIT,
+    tilt?: number,
   ) {
     const count = sizeCount(sizes);
     if (count < 1) throw new RangeError('distinct Boltzmann sampler needs at least one size');
-    this.t = solveTilt(sizes, n, true);
+    this.t = tilt ?? solveTilt(sizes, n, true);
     const t = this.t;
     // Choose the block: the smallest sizes while the table fits.
     const block: number[] = [];

@@ -154,8 +154,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     });
   };
   if (!hasLength && feasible === true) {
-    if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n));
-    else boltzmann(() => new MultisetBoltzmann(sizes, n));
+    if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
+    else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
   }
   if (!distinct && open && lo === 1 && spec.length === undefined && hasLength) {
     // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
@@ -209,15 +209,17 @@ function conjugated(
  * Mean length and number of distinct sizes, from the Boltzmann tilt of the family without its
  * length constraint (exact as n grows; an estimate at small n), then the length constraint.
  */
-function estimateShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number } {
+function estimateShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
   let length = 1;
   let distinctSizes = 1;
-  if (sizeCount(spec.sizes) > 0 && spec.n > 0) {
-    const moments = tiltMoments(spec.sizes, solveTilt(spec.sizes, spec.n, spec.distinct), spec.distinct);
+  let tilt: number | undefined;
+  if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
+    tilt = solveTilt(spec.sizes, spec.n, spec.distinct);
+    const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
     length = moments.parts;
     distinctSizes = moments.distinctSizes;
   }
   if (spec.length !== undefined) length = spec.length;
   if (spec.maxLength !== undefined) length = Math.min(length, spec.maxLength);
-  return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes) };
+  return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes), tilt };
 }

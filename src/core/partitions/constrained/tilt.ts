@@ -10,8 +10,8 @@ import type { SizeSet } from './spec.js';
  */
 
 /** Sizes summed term by term before switching to Simpson's rule for long intervals. */
-const DIRECT_TERMS = 20_000;
-const SIMPSON_PANELS = 20_000;
+const DIRECT_TERMS = 4_000;
+const SIMPSON_PANELS = 4_000;
 
 /**
  * sum over allowed sizes k of f(k), for f that decays like e^(t k) when t < 0. Long intervals are
