@@ -30,16 +30,19 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4, exactly k parts with k = 100 up to n ~ 5e4;
  *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
  * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
- * - SAMPLE_WORK_LIMIT = 5e7 expected steps per sample: Boltzmann methods whose expected
- *   proposals x cost exceed it are refused. Distinct parts run to n ~ 1e8 (about 1e7 steps per
- *   sample at n = 1e8), parts <= m and "at most K parts" to n = 1e9 while K^1.5 stays small, minPart
- *   and allowed lists until the smallest allowed size times sd(N) / n^(1/2) grows past the budget.
+ * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
+ *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
+ *   are refused. Measured consequences (planner estimates): distinct parts up to n ~ 4e7
+ *   (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
+ *   ~10-30 ms); minPart = 7 up to n ~ 5e8 (2.2e6 steps, 0.6 s per sample at n = 1e8); allowed
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
  * A family no method fits throws LimitExceededError naming the limit. Empty families throw
  * EmptyFamilyError; contradictory bounds (minPart > maxPart, length > n) throw RangeError.
  */
 export const TABLE_CELL_LIMIT = 5_000_000;
-export const SAMPLE_WORK_LIMIT = 5e7;
+export const SAMPLE_WORK_LIMIT = 1e7;
 /** Samples a plan is costed for (setup is paid once per request). */
 export const NOMINAL_SAMPLES = 100;
 /** Boltzmann methods are considered (and built) only when the best table costs more than this. */
