@@ -1,0 +1,53 @@
+import type { PartitionFamily } from '../../src/core/family.js';
+import { constrainedPartitionSampler } from '../../src/core/partitions/constrained/plan.js';
+import { sampleSource } from '../../src/core/seeding.js';
+
+/**
+ * Milliseconds per sample of the constrained partition planner's choice, for each constraint
+ * kind at n = 1e3, 1e5, 1e6, plus the one-off setup (tilt solving, tables). Each cell samples for
+ * about 250 ms (at least 3 samples), so the whole table takes well under 40 s.
+ */
+const KINDS: Array<[string, (n: number) => Omit<PartitionFamily, 'kind' | 'n'>]> = [
+  ['distinct', () => ({ distinct: true })],
+  ['maxPart=100', () => ({ maxPart: 100 })],
+  ['minPart=7', () => ({ minPart: 7 })],
+  ['length=50', () => ({ length: 50 })],
+  ['maxLength=50', () => ({ maxLength: 50 })],
+  ['allowed=1,2,5,10,20,50', () => ({ allowed: [1, 2, 5, 10, 20, 50] })],
+  ['distinct,maxPart=n/10', (n) => ({ distinct: true, maxPart: Math.max(50, n / 10) })],
+  ['distinct,length=20,minPart=3', () => ({ distinct: true, length: 20, minPart: 3 })],
+];
+const SIZES = [1_000, 100_000, 1_000_000];
+const CELL_MS = 250;
+
+export async function benchConstrained(): Promise<void> {
+  const rows: string[] = [];
+  rows.push(['family', ...SIZES.map((n) => `n=${n.toExponential(0)}`)].join(' | '));
+  for (const [name, make] of KINDS) {
+    const cells: string[] = [name];
+    for (const n of SIZES) {
+      const family = { kind: 'partition', n, ...make(n) } as PartitionFamily;
+      try {
+        const t0 = performance.now();
+        const sampler = constrainedPartitionSampler(family);
+        const t1 = performance.now();
+        let count = 0;
+        while (count < 3 || performance.now() - t1 < CELL_MS) {
+          sampler.sample(sampleSource('bench', count, 'bench'));
+          count++;
+        }
+        const perSample = (performance.now() - t1) / count;
+        cells.push(`${perSample.toFixed(3)} ms (${sampler.method}, setup ${(t1 - t0).toFixed(0)} ms)`);
+      } catch (error) {
+        cells.push(`refused: ${(error as Error).name}`);
+      }
+    }
+    rows.push(cells.join(' | '));
+  }
+  console.log('constrained partitions: ms per sample (planner choice)');
+  for (const row of rows) console.log(row);
+}
+
+if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop()!)) {
+  await benchConstrained();
+}

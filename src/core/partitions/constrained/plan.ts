@@ -1,0 +1,228 @@
+import { EmptyFamilyError, LimitExceededError } from '../../errors.js';
+import type { PartitionFamily } from '../../family.js';
+import type { Partition } from '../../partition.js';
+import type { PartitionSampler } from '../../sampler.js';
+import { DistinctBoltzmann } from './distinct-boltzmann.js';
+import { isFeasible } from './feasibility.js';
+import { MultisetBoltzmann } from './multiset-boltzmann.js';
+import {
+  contradiction,
+  emptyFamilyMessage,
+  sizeCount,
+  sizeList,
+  toSpec,
+  type ConstrainedSpec,
+} from './spec.js';
+import { lengthTableSampler, sizeLengthTableSampler, sizeTableSampler, type TableSampler } from './table-sampler.js';
+import { solveTilt, tiltMoments } from './tilt.js';
+import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
+
+/**
+ * Planner for constrained partition families: lists the exact methods that apply, estimates
+ * each one's cost as setup + NOMINAL_SAMPLES x expected work per sample, and builds the cheapest
+ * that fits the budgets. The choice depends on the family only, so sample i stays a function of
+ * (seed, i, family, ALGORITHM_VERSION).
+ *
+ * Limits (for the README):
+ * - TABLE_CELL_LIMIT = 5e6 cells (8 bytes each, 40 MB) for any counting table. Hence, roughly:
+ *   table-sizes (no length constraint) needs (#sizes + 1)(n + 1) <= 5e6, e.g. distinct or
+ *   minPart-only families up to n ~ 2200 this way; table-lengths needs (K + 1)(n + 1), e.g.
+ *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4, exactly k parts with k = 100 up to n ~ 5e4;
+ *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
+ * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
+ * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
+ *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
+ *   are refused. Measured consequences (planner estimates): distinct parts up to n ~ 4e7
+ *   (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
+ *   ~10-30 ms); minPart = 7 up to n ~ 5e8 (2.2e6 steps, 0.6 s per sample at n = 1e8); allowed
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms).
+ * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
+ * A family no method fits throws LimitExceededError naming the limit. Empty families throw
+ * EmptyFamilyError; contradictory bounds (minPart > maxPart, length > n) throw RangeError.
+ */
+export const TABLE_CELL_LIMIT = 5_000_000;
+export const SAMPLE_WORK_LIMIT = 1e7;
+/** Samples a plan is costed for (setup is paid once per request). */
+export const NOMINAL_SAMPLES = 100;
+/** Boltzmann methods are considered (and built) only when the best table costs more than this. */
+const BOLTZMANN_CONSIDERED_ABOVE = 2e5;
+
+export interface PlanOptions {
+  /** Force a method by id without version, e.g. "distinct-boltzmann" (tests and benchmarks). */
+  readonly method?: string;
+}
+
+export interface PlanCandidate {
+  readonly method: string;
+  readonly setupWork: number;
+  readonly sampleWork: number;
+  readonly fits: boolean;
+  readonly build: () => PartitionSampler;
+}
+
+/** An exact uniform sampler for a constrained partition family (see the limits above). */
+export function constrainedPartitionSampler(family: PartitionFamily, options: PlanOptions = {}): PartitionSampler {
+  const candidates = planCandidates(family, options.method !== undefined);
+  const spec = toSpec(family);
+  let chosen: PlanCandidate | undefined;
+  if (options.method !== undefined) {
+    chosen = candidates.find((c) => c.method.split('/')[0] === options.method);
+    if (chosen === undefined) {
+      throw new RangeError(`method ${options.method} does not apply to this family (applicable: ${candidates.map((c) => c.method).join(', ')})`);
+    }
+  } else {
+    const fitting = candidates.filter((c) => c.fits);
+    if (fitting.length === 0) {
+      const least = candidates.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+      throw new LimitExceededError(
+        `no exact method samples this family within the limits (table <= ${TABLE_CELL_LIMIT.toExponential(0)} cells, ` +
+          `<= ${SAMPLE_WORK_LIMIT.toExponential(0)} steps per sample); the cheapest, ${least.method}, needs ` +
+          `${least.setupWork.toExponential(1)} cells and ${least.sampleWork.toExponential(1)} steps per sample`,
+        `table cells <= ${TABLE_CELL_LIMIT.toExponential(0)}, work per sample <= ${SAMPLE_WORK_LIMIT.toExponential(0)}`,
+      );
+    }
+    chosen = fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+  }
+  const sampler = chosen.build();
+  if ((sampler as Partial<TableSampler>).total === 0) throw new EmptyFamilyError(emptyFamilyMessage(spec.family));
+  return sampler;
+}
+
+function cost(c: PlanCandidate): number {
+  return c.setupWork + NOMINAL_SAMPLES * c.sampleWork;
+}
+
+/**
+ * The applicable methods with their estimated costs. Throws RangeError for malformed or
+ * contradictory families and EmptyFamilyError when a closed form shows the family is empty.
+ */
+export function planCandidates(family: PartitionFamily, includeAll = false): PlanCandidate[] {
+  const spec = toSpec(family);
+  const reason = contradiction(family);
+  if (reason !== null) throw new RangeError(reason);
+  const feasible = isFeasible(spec);
+  if (feasible === false) throw new EmptyFamilyError(emptyFamilyMessage(family));
+  const { n, distinct, sizes } = spec;
+  if (n === 0) {
+    const empty: PartitionSampler = {
+      method: 'trivial/1',
+      expectedLength: 0,
+      expectedDistinct: 0,
+      expectedWork: 1,
+      sample: () => ({ sizes: [], multiplicities: [] }),
+    };
+    return [{ method: 'trivial/1', setupWork: 0, sampleWork: 1, fits: true, build: () => empty }];
+  }
+  const hasLength = spec.length !== undefined || (spec.maxLength !== undefined && spec.maxLength < n);
+  const kMin = spec.length ?? 0;
+  const kMax = Math.min(spec.length ?? spec.maxLength ?? n, n);
+  const open = sizes.kind === 'interval' && sizes.hi >= n;
+  const lo = sizes.kind === 'interval' ? sizes.lo : 0;
+  const r = sizeCount(sizes);
+  const shape = estimateShape(spec);
+  const out: PlanCandidate[] = [];
+  const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler) =>
+    out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build });
+
+  if (!hasLength) {
+    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () =>
+      sizeTableSampler(sizeList(sizes), n, distinct, shape),
+    );
+  }
+  if (open && (hasLength || distinct || lo > 1)) {
+    const top = distinct ? Math.min(kMax, Math.ceil(Math.sqrt(2 * n)) + 1) : Math.min(kMax, Math.floor(n / lo));
+    const k = Math.max(1, shape.expectedLength);
+    table('table-lengths/1', (top + 1) * (n + 1), top - kMin + 1 + k + n / k, () =>
+      lengthTableSampler(n, lo, distinct, kMin, top, shape),
+    );
+  }
+  if (hasLength) {
+    table('table-sizes-lengths/1', (r + 1) * (kMax + 1) * (n + 1), kMax + r + shape.expectedLength, () =>
+      sizeLengthTableSampler(sizeList(sizes), n, distinct, kMin, kMax, shape),
+    );
+  }
+
+  const bestTable = Math.min(...out.filter((c) => c.fits).map(cost), Infinity);
+  if (!includeAll && bestTable <= BOLTZMANN_CONSIDERED_ABOVE) return out;
+  const boltzmann = (make: () => PartitionSampler & { setupWork?: number }) => {
+    const sampler = make();
+    const setup = sampler.setupWork ?? 0;
+    out.push({
+      method: sampler.method,
+      setupWork: setup,
+      sampleWork: sampler.expectedWork,
+      fits: setup <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+      build: () => sampler,
+    });
+  };
+  if (!hasLength && feasible === true) {
+    if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
+    else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
+  }
+  if (!distinct && open && lo === 1 && spec.length === undefined && hasLength) {
+    // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
+    boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: kMax }, n), conjugate, kMax, shape));
+  }
+  if (open && spec.length !== undefined && spec.length >= 1) {
+    // Exactly k parts >= lo (distinct: subtract the staircase) <-> parts of N into exactly k
+    // parts <-> (conjugate) N - k into parts <= k, plus one part k.
+    const k = spec.length;
+    const N = n - k * (lo - 1) - (distinct ? (k * (k - 1)) / 2 : 0);
+    const back = (p: Partition) => {
+      const q = shiftParts(conjugate(addPart(p, k)), lo - 1);
+      return distinct ? addStaircase(q) : q;
+    };
+    if (N - k >= 1) {
+      boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape));
+    } else if (N === k) {
+      // A single member: k equal parts before the maps.
+      const only = back({ sizes: [], multiplicities: [] });
+      const single: PartitionSampler = {
+        method: 'single-member/1',
+        expectedLength: k,
+        expectedDistinct: only.sizes.length,
+        expectedWork: only.sizes.length,
+        sample: () => ({ sizes: only.sizes.slice(), multiplicities: only.multiplicities.slice() }),
+      };
+      out.push({ method: single.method, setupWork: 0, sampleWork: single.expectedWork, fits: true, build: () => single });
+    }
+  }
+  return out;
+}
+
+/** Wraps a sampler of the conjugate family. */
+function conjugated(
+  inner: MultisetBoltzmann,
+  map: (p: Partition) => Partition,
+  length: number,
+  shape: { expectedDistinct: number },
+): PartitionSampler {
+  return {
+    method: `${inner.method}+conjugate`,
+    expectedLength: length,
+    // Conjugation keeps the number of distinct sizes (corners of the Ferrers diagram).
+    expectedDistinct: Math.min(length, Math.max(inner.expectedDistinct, shape.expectedDistinct)),
+    expectedWork: inner.expectedWork + inner.expectedDistinct + length,
+    sample: (source) => map(inner.sample(source)),
+  };
+}
+
+/**
+ * Mean length and number of distinct sizes, from the Boltzmann tilt of the family without its
+ * length constraint (exact as n grows; an estimate at small n), then the length constraint.
+ */
+function estimateShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
+  let length = 1;
+  let distinctSizes = 1;
+  let tilt: number | undefined;
+  if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
+    tilt = solveTilt(spec.sizes, spec.n, spec.distinct);
+    const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
+    length = moments.parts;
+    distinctSizes = moments.distinctSizes;
+  }
+  if (spec.length !== undefined) length = spec.length;
+  if (spec.maxLength !== undefined) length = Math.min(length, spec.maxLength);
+  return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes), tilt };
+}
