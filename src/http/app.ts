@@ -1,5 +1,4 @@
 import { Hono } from 'hono';
-import { PartitionNumbers } from '../core/counting/partition-numbers.js';
 import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
@@ -30,7 +29,6 @@ export function createApp(options: AppOptions = {}): Hono {
   const context: AppContext = {
     limits: { ...DEFAULT_LIMITS, ...options.limits },
     drawSeed: options.drawSeed ?? drawRandomSeed,
-    partitionNumbers: new PartitionNumbers(),
     partitionSamplers: new LruCache(64),
   };
   const endpoints: Endpoint[] = [];

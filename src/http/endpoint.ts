@@ -1,5 +1,4 @@
 import type { z } from 'zod';
-import type { PartitionNumbers } from '../core/counting/partition-numbers.js';
 import type { PartitionSampler } from '../core/sampler.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './sampler-cache.js';
@@ -9,8 +8,6 @@ export interface AppContext {
   readonly limits: Limits;
   /** Draws a seed for requests that give none. */
   readonly drawSeed: () => string;
-  /** Exact partition numbers, tabulated lazily and kept for the isolate's lifetime. */
-  readonly partitionNumbers: PartitionNumbers;
   /** Planned partition samplers by family key. */
   readonly partitionSamplers: LruCache<PartitionSampler>;
 }

@@ -1,10 +1,10 @@
 import { canonicalFamily, familyKey, type PartitionFamily } from '../../core/family.js';
+import { countPartitions } from '../../core/counting/partition-counts.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
 import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
-import { countPartitionFamily } from './partition-count.js';
 import { PROBLEM_RESPONSES, SAMPLE_CONTENT_TYPES } from './docs.js';
 
 /** The family a query describes, normalised (the default minPart = 1 is dropped). */
@@ -70,9 +70,9 @@ export const partitionsCountEndpoint = defineEndpoint({
     '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
     ...PROBLEM_RESPONSES,
   },
-  handle(request, query, context) {
+  handle(request, query) {
     const family = partitionFamilyOf(query);
-    const count = countPartitionFamily(family, context.partitionNumbers);
+    const count = countPartitions(family);
     return respondWithJson(request, PARTITIONS_COUNT_PATH, query, { family, count: count.toString() });
   },
 });
