@@ -76,7 +76,8 @@ function describeParts(family: CompositionFamily): string {
   const bits: string[] = [];
   if (family.allowed !== undefined) bits.push(`all parts in {${family.allowed.join(', ')}}`);
   const min = family.minPart ?? 1;
-  if (family.maxPart !== undefined) bits.push(`all parts between ${min} and ${family.maxPart}`);
+  if (family.maxPart !== undefined && family.allowed !== undefined && family.minPart === undefined) bits.push(`all parts <= ${family.maxPart}`);
+  else if (family.maxPart !== undefined) bits.push(`all parts between ${min} and ${family.maxPart}`);
   else if (family.minPart !== undefined || bits.length === 0) bits.push(`all parts >= ${min}`);
   return bits.join(' and ');
 }
@@ -101,10 +102,10 @@ export function emptyFamily(resolved: ResolvedCompositions, reason?: string): Em
 export function resolveCompositions(family: CompositionFamily): ResolvedCompositions {
   const n = checkInteger('n', family.n, 0, MAX_COMPOSITION_N);
   const length = family.length === undefined ? undefined : checkInteger('length', family.length, 0, MAX_COMPOSITION_N);
-  const minPart = family.minPart === undefined ? 1 : checkInteger('minPart', family.minPart, 0, MAX_COMPOSITION_N);
+  const minPartGiven = family.minPart === undefined ? 1 : checkInteger('minPart', family.minPart, 0, MAX_COMPOSITION_N);
   const maxPart = family.maxPart === undefined ? undefined : checkInteger('maxPart', family.maxPart, 0, MAX_COMPOSITION_N);
-  if (maxPart !== undefined && maxPart < minPart) {
-    throw new RangeError(`minPart (${minPart}) is greater than maxPart (${maxPart})`);
+  if (maxPart !== undefined && maxPart < minPartGiven) {
+    throw new RangeError(`minPart (${minPartGiven}) is greater than maxPart (${maxPart})`);
   }
   let allowed: number[] | undefined;
   if (family.allowed !== undefined) {
@@ -114,11 +115,13 @@ export function resolveCompositions(family: CompositionFamily): ResolvedComposit
     for (const v of family.allowed) checkInteger('every allowed part size', v, 0, MAX_COMPOSITION_N);
     allowed = [...new Set(family.allowed)].sort((a, b) => a - b);
   }
-  if (length === undefined && (minPart === 0 || allowed?.[0] === 0)) {
+  if (length === undefined && (minPartGiven === 0 || allowed?.[0] === 0)) {
     throw new RangeError(
       'parts of size 0 (minPart = 0 or 0 in allowed) need length: without a fixed number of parts a composition could hold any number of empty parts',
     );
   }
+  // An explicit list is not filtered by the default minPart (a 0 in it means empty parts are wanted).
+  const minPart = family.minPart === undefined && allowed !== undefined ? 0 : minPartGiven;
   const text = describe({ ...family, allowed });
   const base = { n, length, describe: text };
 

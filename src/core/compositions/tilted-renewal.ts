@@ -100,14 +100,15 @@ function partDrawer(core: FreeCore, tilt: Tilt): (source: RandomSource) => numbe
 export const MAX_RENEWAL_TABLE = 2 ** 21;
 export const MAX_RENEWAL_TABLE_WORK = 2 ** 25;
 
-export function tiltedRenewalSampler(core: FreeCore): CompositionSampler {
+/** `tableSize` overrides T (tests use a small T so that all three steps run at small n). */
+export function tiltedRenewalSampler(core: FreeCore, tableSize?: number): CompositionSampler {
   const tilt = solveTilt(core.parts);
   const { n, parts, scale } = core;
   const { min, max } = partBounds(parts);
   const width = parts.kind === 'list' ? parts.values.length : 2;
   // T covers one largest part plus a margin over which u(r) settles near 1/mu.
   const cap = Math.max(64, Math.min(MAX_RENEWAL_TABLE, Math.floor(MAX_RENEWAL_TABLE_WORK / width)));
-  const size = Math.min(n, cap, Math.max(4096, max + 1024));
+  const size = Math.min(n, tableSize ?? Math.min(cap, Math.max(4096, max + 1024)));
   const u = renewalTable(core, tilt, size);
   if (n <= size && u[n] === 0) throw new Error('unreachable n passed feasibility checks (bug)');
   let bound = 0;
