@@ -106,7 +106,13 @@ function planFixed(resolved: ResolvedCompositions, core: FixedCore): Composition
   const tilted = fixedTiltedSampler(core);
   if (parts.kind === 'range') {
     let rejection: CompositionSampler | undefined;
-    try {
+    // Parts of a uniform weak composition with mean mu = m/k are near geometric, so all k stay
+    // <= L with probability about exp(-k (mu/(mu+1))^(L+1)); skip the exact count (which can take
+    // a large share of a second) when even this rough figure is far below the threshold.
+    const m0 = Math.min(n, k * top - n);
+    const mu = m0 / k;
+    const rough = Math.exp(-k * Math.exp((top + 1) * Math.log(mu / (mu + 1))));
+    if (rough >= MIN_BARS_ACCEPTANCE / 100) try {
       const count = countFixed(core);
       const m = Math.min(n, k * top - n);
       const acceptance = ratio(count, binomial(m + k - 1, k - 1));
