@@ -4,6 +4,7 @@ import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
 import { parseQuery } from './query.js';
 import { LruCache } from './sampler-cache.js';
+import { compositionsCountEndpoint, compositionsEndpoint } from './routes/compositions.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
 
@@ -30,11 +31,14 @@ export function createApp(options: AppOptions = {}): Hono {
     limits: { ...DEFAULT_LIMITS, ...options.limits },
     drawSeed: options.drawSeed ?? drawRandomSeed,
     partitionSamplers: new LruCache(64),
+    compositionSamplers: new LruCache(64),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(
     partitionsEndpoint as unknown as Endpoint,
     partitionsCountEndpoint as unknown as Endpoint,
+    compositionsEndpoint as unknown as Endpoint,
+    compositionsCountEndpoint as unknown as Endpoint,
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { PartitionSampler } from '../core/sampler.js';
+import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './sampler-cache.js';
 
@@ -10,6 +10,8 @@ export interface AppContext {
   readonly drawSeed: () => string;
   /** Planned partition samplers by family key. */
   readonly partitionSamplers: LruCache<PartitionSampler>;
+  /** Planned composition samplers by family key. */
+  readonly compositionSamplers: LruCache<CompositionSampler>;
 }
 
 export interface ResponseDoc {

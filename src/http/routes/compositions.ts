@@ -1,0 +1,64 @@
+import { planCompositionSampler, countCompositions } from '../../core/compositions/plan.js';
+import { canonicalFamily, familyKey, type CompositionFamily } from '../../core/family.js';
+import { compositionAsParts } from '../encode.js';
+import { defineEndpoint } from '../endpoint.js';
+import { respondWithJson, respondWithSamples } from '../respond.js';
+import { compositionsCountQuery, compositionsQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
+import { PROBLEM_RESPONSES, SAMPLE_CONTENT_TYPES } from './docs.js';
+
+const COMPOSITIONS_PATH = '/v1/compositions';
+const COMPOSITIONS_COUNT_PATH = '/v1/compositions/count';
+
+/** The family a query describes, normalised (the default minPart = 1 is dropped). */
+export function compositionFamilyOf(query: CompositionsCountQuery): CompositionFamily {
+  return canonicalFamily<CompositionFamily>({
+    kind: 'composition',
+    n: query.n,
+    length: query.length,
+    minPart: query.minPart === 1 ? undefined : query.minPart,
+    maxPart: query.maxPart,
+    allowed: query.allowed,
+  });
+}
+
+export const compositionsEndpoint = defineEndpoint({
+  path: COMPOSITIONS_PATH,
+  summary: 'Uniformly random compositions of n',
+  description:
+    'Compositions are ordered: 1+2 and 2+1 are different. Each sample is drawn exactly uniformly from the compositions of n that satisfy the constraints; sample i of a seed is the same whatever start and count are.',
+  query: compositionsQuery,
+  responses: {
+    '200': { description: 'The samples.', contentTypes: SAMPLE_CONTENT_TYPES },
+    '304': { description: 'Not modified (If-None-Match matched the ETag of a seeded request).', contentTypes: [] },
+    ...PROBLEM_RESPONSES,
+  },
+  handle(request, query, context) {
+    const seeded = query.seed !== undefined;
+    const seed = query.seed ?? context.drawSeed();
+    const family = compositionFamilyOf(query);
+    const sampler = context.compositionSamplers.getOrCreate(familyKey(family), () => planCompositionSampler(family));
+    return respondWithSamples(
+      request,
+      COMPOSITIONS_PATH,
+      { ...query, seed },
+      { family, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
+      seeded,
+      context.limits,
+    );
+  },
+});
+
+export const compositionsCountEndpoint = defineEndpoint({
+  path: COMPOSITIONS_COUNT_PATH,
+  summary: 'The exact number of compositions of n in a family',
+  description: 'The count is exact (a decimal string); 0 for an empty family.',
+  query: compositionsCountQuery,
+  responses: {
+    '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
+    ...PROBLEM_RESPONSES,
+  },
+  handle(request, query) {
+    const family = compositionFamilyOf(query);
+    return respondWithJson(request, COMPOSITIONS_COUNT_PATH, query, { family, count: countCompositions(family).toString() });
+  },
+});
