@@ -6,6 +6,8 @@ import { ProblemError, problemResponse } from './problem.js';
 import { parseQuery } from './query.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
+import { checkEndpoint } from './routes/check.js';
+import { diagramEndpoint } from './routes/diagram.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -35,6 +37,8 @@ export function createApp(options: AppOptions = {}): Hono {
   endpoints.push(
     partitionsEndpoint as unknown as Endpoint,
     partitionsCountEndpoint as unknown as Endpoint,
+    diagramEndpoint as unknown as Endpoint,
+    checkEndpoint as unknown as Endpoint,
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
