@@ -108,15 +108,17 @@ export function boundarySvg(report: BoundaryReport, samples: number): string {
   const xOf = (x: number): number => M.left + (x / xMax) * plotW;
   const yOf = (y: number): number => M.top + plotH - (Math.min(y, yMax) / yMax) * plotH;
   const parts: string[] = [frame(plotW, plotH, yMax, (v) => num(v))];
+  // The partitions curve is symmetric in x and y, so it enters the plot at x = y(yMax).
+  const xStart = report.curve === 'partitions' ? limitY(report, yMax) : 0;
   const curve: string[] = [];
   for (let i = 0; i <= 120; i++) {
-    const x = Math.max(1e-6, (xMax * i) / 120);
-    const y = report.c > 0 ? limitY(report, x) : 0;
-    curve.push(`${i === 0 ? 'M' : 'L'}${num(xOf(x))} ${num(yOf(y))}`);
+    const x = xStart + ((xMax - xStart) * i) / 120;
+    curve.push(`${i === 0 ? 'M' : 'L'}${num(xOf(x))} ${num(yOf(limitY(report, x)))}`);
   }
   parts.push(el('path', { d: curve.join(' '), fill: 'none', stroke: PALETTE.expected, 'stroke-width': 2, class: 'law' }));
   for (const p of report.points) parts.push(el('circle', { cx: xOf(p.x), cy: yOf(p.mean), r: 3.2, fill: PALETTE.observed, class: 'mean-dot' }));
-  for (let i = 0; i <= 4; i++) parts.push(text(xOf((xMax * i) / 4), M.top + plotH + 16, num((xMax * i) / 4), 'middle', 11));
+  const xStep = xMax > 6 ? 2 : xMax > 2.5 ? 1 : 0.5;
+  for (let x = 0; x <= xMax + 1e-9; x += xStep) parts.push(text(xOf(x), M.top + plotH + 16, num(x), 'middle', 11));
   parts.push(text(M.left + plotW / 2, H - 12, 'column / √n', 'middle', 12));
   parts.push(text(M.left, 18, `Mean diagram boundary of ${samples.toLocaleString('en-US')} samples vs the limit shape`, 'start', 14, PALETTE.ink, 'bold'));
   parts.push(text(M.left, 36, `${report.equation}; largest gap ${report.maxDeviation.toFixed(3)}`, 'start', 12));
