@@ -55,17 +55,24 @@ export function formatP(p: number): string {
  */
 export function histogramSvg(input: HistogramInput): string {
   const total = input.observed.reduce((a, b) => a + b, 0) || 1;
-  const values = input.observed.length;
+  // Plot only where something is visible: values observed or with probability >= 1/1000 of the mode.
+  const peak = Math.max(...input.probabilities);
+  const visible = (v: number): boolean => input.observed[v] > 0 || input.probabilities[v] >= peak * 1e-3;
+  let first = 0;
+  let last = input.observed.length - 1;
+  while (first < last && !visible(first)) first++;
+  while (last > first && !visible(last)) last--;
+  const values = last - first + 1;
   const group = Math.max(1, Math.ceil(values / 80));
   const bins: { from: number; to: number; share: number; probability: number }[] = [];
-  for (let i = 0; i < values; i += group) {
+  for (let i = first; i <= last; i += group) {
     let count = 0;
     let probability = 0;
-    for (let j = i; j < Math.min(values, i + group); j++) {
+    for (let j = i; j < Math.min(last + 1, i + group); j++) {
       count += input.observed[j];
       probability += input.probabilities[j];
     }
-    bins.push({ from: input.offset + i, to: input.offset + Math.min(values, i + group) - 1, share: count / total, probability });
+    bins.push({ from: input.offset + i, to: input.offset + Math.min(last + 1, i + group) - 1, share: count / total, probability });
   }
   const top = niceCeiling(Math.max(1e-9, ...bins.map((b) => Math.max(b.share, b.probability))));
   const plotW = W - M.left - M.right;

@@ -22,7 +22,7 @@ export function ferrersSvg(parts: readonly number[], options: FerrersSvgOptions 
   const unit = Math.max(4, Math.min(26, Math.floor((options.fit ?? 320) / longest)));
   const gap = Math.max(1, Math.round(unit * 0.14));
   const radius = Math.max(0, Math.round(unit * 0.2 * 10) / 10);
-  const labels = unit >= 11 && rows > 0;
+  const labels = unit >= 14 && rows > 0;
   const fontSize = Math.round(unit * 0.55);
   const gutter = labels ? Math.ceil(String(columns).length * fontSize * 0.62) + Math.round(unit * 0.5) : 0;
   const pad = Math.max(2, Math.round(unit * 0.25));
