@@ -95,7 +95,8 @@ describe.skipIf(!available)('the page in headless chromium', () => {
 
     await page.locator('button[data-copy="snippet-curl"]').focus();
     await page.keyboard.press('Enter');
-    await expect(page.locator('#copy-status').textContent()).resolves.toContain('copied');
+    // The clipboard write resolves asynchronously; wait for the status line to say so.
+    await page.locator('#copy-status', { hasText: 'copied to the clipboard' }).waitFor({ timeout: 10_000 });
 
     await page.screenshot({ path: join(ARTIFACTS, 'page.png'), fullPage: true });
     expect(problems).toEqual([]);
