@@ -7,6 +7,9 @@ import { LruCache } from './sampler-cache.js';
 import { compositionsCountEndpoint, compositionsEndpoint } from './routes/compositions.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
+import { checkEndpoint } from './routes/check.js';
+import { diagramEndpoint } from './routes/diagram.js';
+import { registerPage } from './routes/page.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -37,6 +40,8 @@ export function createApp(options: AppOptions = {}): Hono {
   endpoints.push(
     partitionsEndpoint as unknown as Endpoint,
     partitionsCountEndpoint as unknown as Endpoint,
+    diagramEndpoint as unknown as Endpoint,
+    checkEndpoint as unknown as Endpoint,
     compositionsEndpoint as unknown as Endpoint,
     compositionsCountEndpoint as unknown as Endpoint,
     healthEndpoint as unknown as Endpoint,
@@ -50,6 +55,7 @@ export function createApp(options: AppOptions = {}): Hono {
       throw new ProblemError(405, `${c.req.method} is not supported on ${endpoint.path}; use GET or HEAD.`, undefined, { allow: 'GET, HEAD' });
     });
   }
+  registerPage(app, context);
   app.notFound((c) => problemResponse(new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
   app.onError((error) => problemResponse(toProblem(error)));
   return app;

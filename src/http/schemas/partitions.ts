@@ -4,7 +4,7 @@ import { booleanParam, choiceParam, integerParam, sizeListParam } from '../param
 import { countFields, samplingFields } from './common.js';
 
 /** Constraints on a partition; all optional and combinable (except length with maxLength). */
-const partitionConstraints = {
+export const partitionConstraints = {
   distinct: booleanParam('All parts different.').optional(),
   minPart: integerParam(1, MAX_N, 'Every part is at least this.').optional(),
   maxPart: integerParam(1, MAX_N, 'Every part is at most this.').optional(),
@@ -13,7 +13,7 @@ const partitionConstraints = {
   allowed: sizeListParam(1, MAX_N, 1000, 'Comma-separated allowed part sizes, e.g. 1,2,5,10.').optional(),
 };
 
-function noLengthWithMaxLength(query: { length?: number; maxLength?: number }, ctx: z.RefinementCtx): void {
+export function noLengthWithMaxLength(query: { length?: number; maxLength?: number }, ctx: z.RefinementCtx): void {
   if (query.length !== undefined && query.maxLength !== undefined) {
     ctx.addIssue({ code: 'custom', path: ['maxLength'], message: 'cannot be combined with length: give one of them' });
   }

@@ -1,0 +1,98 @@
+import { z } from 'zod';
+import { checkQuery } from '../schemas/check.js';
+import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js';
+
+/**
+ * The page's form: what the user typed (kept verbatim to show it back), the errors per field,
+ * and, when valid, the API query it stands for. The page is forgiving where the API is strict:
+ * blank fields are simply absent and unknown parameters are ignored.
+ */
+
+/** A family the page offers. Adding compositions is one more entry here (and its sampler in render). */
+export interface PageFamily {
+  readonly value: string;
+  readonly label: string;
+  /** Path of the sampling endpoint, e.g. /v1/partitions. */
+  readonly apiPath: string;
+  /** CLI sub-command and client method for the snippets. */
+  readonly command: string;
+  /** Constraint fields the family accepts (the form shows only these). */
+  readonly constraints: readonly ConstraintName[];
+}
+
+export type ConstraintName = 'distinct' | 'minPart' | 'maxPart' | 'length' | 'maxLength' | 'allowed';
+
+export const PAGE_FAMILIES: readonly PageFamily[] = [
+  { value: 'partitions', label: 'Partitions', apiPath: '/v1/partitions', command: 'partitions', constraints: ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] },
+  // TODO(compositions): { value: 'compositions', label: 'Compositions', apiPath: '/v1/compositions', command: 'compositions', constraints: ['minPart', 'maxPart', 'length', 'allowed'] },
+];
+
+/** Every field of the form, in the order they appear in URLs and snippets. */
+export const FIELD_NAMES = ['family', 'n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'check', 'samples'] as const;
+export type FieldName = (typeof FIELD_NAMES)[number];
+
+/** The API parameters among the fields (the rest belong to the page). */
+const API_FIELDS = ['n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+
+export const PAGE_DEFAULTS: Partial<Record<FieldName, string>> = { family: 'partitions', n: '24', count: '6', check: 'true', samples: '2000' };
+
+/** Diagrams drawn and samples shown as JSON on the page (the API serves the rest). */
+export const PAGE_MAX_SHOWN = 24;
+
+export interface FormState {
+  readonly values: Partial<Record<FieldName, string>>;
+  readonly errors: Partial<Record<FieldName, string>>;
+  readonly family: PageFamily;
+  /** The API query (seed may still be absent) when the form is valid. */
+  readonly query: PartitionsQuery | null;
+  /** The API parameters as typed, for URLs and snippets, in a fixed order. */
+  readonly apiParams: [string, string][];
+  readonly check: boolean;
+  readonly samples: number;
+}
+
+export function readForm(url: URL): FormState {
+  const fresh = url.search === '';
+  const values: Partial<Record<FieldName, string>> = {};
+  for (const name of FIELD_NAMES) {
+    const raw = fresh ? PAGE_DEFAULTS[name] : url.searchParams.get(name)?.trim();
+    if (raw !== undefined && raw !== '') values[name] = raw;
+  }
+  // The first visit shows a worked example with a fixed seed.
+  if (fresh) values.seed = 'demo';
+  const errors: Partial<Record<FieldName, string>> = {};
+  const family = PAGE_FAMILIES.find((f) => f.value === (values.family ?? 'partitions')) ?? PAGE_FAMILIES[0];
+  if (values.family !== undefined && !PAGE_FAMILIES.some((f) => f.value === values.family)) errors.family = `must be one of: ${PAGE_FAMILIES.map((f) => f.value).join(', ')}`;
+  if (values.n === undefined) errors.n = 'is required';
+  const apiParams: [string, string][] = [];
+  for (const name of API_FIELDS) {
+    const value = values[name];
+    if (value === undefined) continue;
+    if (name === 'distinct') {
+      if (value === 'true') apiParams.push([name, 'true']);
+      continue;
+    }
+    apiParams.push([name, value]);
+  }
+  const parsed = partitionsQuery.safeParse(Object.fromEntries(apiParams));
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const field = String(issue.path[0] ?? 'n') as FieldName;
+      if (!errors[field]) errors[field] = issue.message;
+    }
+  }
+  const check = values.check === 'true';
+  let samples = 0;
+  if (check) {
+    const s = checkQuery.shape.samples.safeParse(values.samples ?? '1000');
+    if (s.success) samples = s.data;
+    else errors.samples = z.prettifyError(s.error).replace(/^✖ /, '').split('\n')[0];
+  }
+  const valid = Object.keys(errors).length === 0;
+  return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check, samples };
+}
+
+/** A query string from ordered pairs (URL-encoded, ready to paste). */
+export function queryString(params: readonly [string, string][]): string {
+  return params.map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(v).replace(/%2C/g, ',')}`).join('&');
+}

@@ -1,0 +1,95 @@
+import { familyKey, type PartitionFamily } from '../../core/family.js';
+import { LimitExceededError } from '../../core/errors.js';
+import type { Partition } from '../../core/partition.js';
+import { planPartitionSampler } from '../../core/partitions/plan.js';
+import { CHECK_ALPHA, checkPartitionSamples, type PartitionCheckReport } from '../../core/pictures/check.js';
+import { boundarySvg, histogramSvg, largestPartHistogram, stackedSvg } from '../../core/pictures/check-svg.js';
+import { sampleSource } from '../../core/seeding.js';
+import { defineEndpoint } from '../endpoint.js';
+import type { Limits } from '../limits.js';
+import { respondWithJson } from '../respond.js';
+import { checkQuery } from '../schemas/check.js';
+import { PROBLEM_RESPONSES } from './docs.js';
+import { respondWithBody, SVG_CONTENT_TYPE } from './diagram.js';
+import { partitionFamilyOf } from './partitions.js';
+
+const CHECK_PATH = '/v1/partitions/check';
+
+export interface PartitionCheck {
+  readonly family: PartitionFamily;
+  readonly seed: string;
+  readonly method: string;
+  readonly report: PartitionCheckReport;
+}
+
+/**
+ * Draws samples 0..samples−1 of the seed (the very samples GET /v1/partitions hands out) and
+ * checks them. Refused up front when the expected work is over the limit.
+ */
+export function runPartitionCheck(query: Parameters<typeof partitionFamilyOf>[0], samples: number, seed: string, limits: Limits): PartitionCheck {
+  const family = partitionFamilyOf(query);
+  const sampler = planPartitionSampler(family);
+  const work = samples * sampler.expectedWork;
+  if (work > limits.maxWork) {
+    const fits = Math.max(1, Math.floor(limits.maxWork / sampler.expectedWork));
+    throw new LimitExceededError(
+      `checking ${samples} samples of this family needs about ${work.toExponential(2)} steps; the limit is ${limits.maxWork.toExponential(2)}: ask for at most ${fits} samples`,
+      `work <= ${limits.maxWork}`,
+    );
+  }
+  const key = familyKey(family);
+  function* draws(): Generator<Partition> {
+    for (let i = 0; i < samples; i++) yield sampler.sample(sampleSource(seed, i, key));
+  }
+  return { family, seed, method: sampler.method, report: checkPartitionSamples(family, draws()) };
+}
+
+/** Both plots of a check, stacked (format=svg). */
+export function checkSvg(check: PartitionCheck): string {
+  const drawings = [histogramSvg(largestPartHistogram(check.report.largestPart))];
+  if (check.report.boundary) drawings.push(boundarySvg(check.report.boundary, check.report.samples));
+  return stackedSvg(`Distribution check of ${check.report.samples} samples of partitions of ${check.family.n}`, drawings);
+}
+
+/** The JSON body: the headline test first, then the details. */
+export function checkJson(check: PartitionCheck): Record<string, unknown> {
+  const { largestPart, boundary, samples } = check.report;
+  return {
+    family: check.family,
+    seed: check.seed,
+    method: check.method,
+    samples,
+    quantity: 'largest part',
+    law: largestPart.law,
+    test: largestPart.test,
+    statistic: largestPart.statistic,
+    pValue: largestPart.pValue,
+    alpha: CHECK_ALPHA,
+    passed: largestPart.pValue === null ? null : largestPart.pValue >= CHECK_ALPHA,
+    largestPart,
+    boundary,
+  };
+}
+
+export const checkEndpoint = defineEndpoint({
+  path: CHECK_PATH,
+  summary: 'Check the samples against exact and limit laws',
+  description:
+    'Draws samples 0..samples−1 of a seed (the same ones GET /v1/partitions returns) and compares the law of their largest part with the exact law from counting tables (n <= 5000; Pearson chi-square, cells pooled to expect >= 5) or with the Erdős–Lehner Gumbel law (larger n; Kolmogorov–Smirnov), and their mean scaled diagram boundary with the limit shape (Vershik: e^(-cx) + e^(-cy) = 1, c = π/√6; distinct parts e^(cy) = 1 + e^(-cx), c = π/√12). `passed` uses alpha = 1e-4.',
+  query: checkQuery,
+  responses: {
+    '200': { description: 'The check (application/json) or its plots (image/svg+xml).', contentTypes: ['application/json', 'image/svg+xml'] },
+    '304': { description: 'Not modified.', contentTypes: [] },
+    ...PROBLEM_RESPONSES,
+  },
+  handle(request, query, context) {
+    const seeded = query.seed !== undefined;
+    const seed = query.seed ?? context.drawSeed();
+    const check = runPartitionCheck(query, query.samples, seed, context.limits);
+    const cacheKey = seeded ? { ...query, seed } : null;
+    if (query.format === 'svg') {
+      return respondWithBody(request, CHECK_PATH, cacheKey, checkSvg(check), SVG_CONTENT_TYPE, { 'partsmith-seed': seed, 'partsmith-method': check.method });
+    }
+    return respondWithJson(request, CHECK_PATH, cacheKey, checkJson(check));
+  },
+});
