@@ -1,0 +1,167 @@
+import { PartsmithError } from '../client/errors.js';
+import { APP_VERSION } from '../version.js';
+import { createPartsmith } from '../index.js';
+import { flagOf, parseArgs, UsageError, type ParsedFlag } from './flags.js';
+import { Progress, Sink } from './output.js';
+import { runSamples } from './samples.js';
+import { startServer } from './serve.js';
+import { localSource, remoteSource, type Source } from './source.js';
+import { endpointSpecs, isSwitchParam, paramHelp, type EndpointSpec } from './spec.js';
+
+/** Flags of the CLI itself, never sent to the API. */
+const CLI_FLAGS: Record<string, string> = {
+  url: '--url URL     ask the service running at URL instead of computing in this process',
+  out: '--out FILE    write to FILE instead of standard output',
+  quiet: '--quiet       no progress bar',
+};
+const CLI_SWITCHES = new Set(['quiet']);
+
+const COMMANDS: Record<string, { path: string; usage: string }> = {
+  partitions: { path: '/v1/partitions', usage: 'partsmith partitions --n 100 --count 5 --seed demo [--distinct --max-part 10 ...] [--format text|json|ndjson] [--out FILE]' },
+  compositions: { path: '/v1/compositions', usage: 'partsmith compositions --n 10 --count 5 --seed demo [--length 3 ...] [--format text|json|ndjson] [--out FILE]' },
+  'count partitions': { path: '/v1/partitions/count', usage: 'partsmith count [partitions] --n 100 [--distinct ...]' },
+  'count compositions': { path: '/v1/compositions/count', usage: 'partsmith count compositions --n 10 [--length 3 ...]' },
+};
+
+const OVERVIEW = `partsmith ${APP_VERSION}: exactly uniform random integer partitions and compositions of n, reproducible from a seed.
+
+Commands:
+  partsmith partitions ...      uniformly random partitions of n
+  partsmith compositions ...    uniformly random compositions of n
+  partsmith count [partitions|compositions] ...   the exact number of members of a family
+  partsmith serve [--port 8787] [--host 127.0.0.1]   run the HTTP service
+
+Every command takes --help. Flags are the API's query parameters in kebab case (maxPart is
+--max-part), and --format json prints exactly the document the API returns for the same request.
+
+Examples:
+  partsmith partitions --n 100 --count 5 --seed demo --format text
+  partsmith partitions --n 1000 --count 1000000 --seed load --format ndjson --out samples.ndjson
+  partsmith count --n 100
+  partsmith partitions --n 100 --count 5 --seed demo --url http://127.0.0.1:8787
+`;
+
+/** Where the CLI writes; the process's own streams unless a caller (a test) passes others. */
+export interface CliIo {
+  readonly stdout: NodeJS.WritableStream & { isTTY?: boolean };
+  readonly stderr: NodeJS.WritableStream & { isTTY?: boolean };
+}
+
+/** Runs the CLI; returns the exit code (0 ok, 1 the request failed, 2 the command line is wrong). */
+export async function runCli(argv: readonly string[], io: CliIo = { stdout: process.stdout, stderr: process.stderr }): Promise<number> {
+  const words = argv.filter((a) => !a.startsWith('-'));
+  let label = 'partsmith';
+  let sink: Sink | undefined;
+  try {
+    if (argv.includes('--version')) {
+      io.stdout.write(`${APP_VERSION}\n`);
+      return 0;
+    }
+    const command = words[0];
+    if (command === undefined) {
+      io.stdout.write(OVERVIEW);
+      return argv.includes('--help') || argv.includes('-h') ? 0 : 2;
+    }
+    if (command === 'serve') {
+      label = 'partsmith serve';
+      const args = parseArgs(argv.slice(argv.indexOf('serve') + 1), () => false);
+      if (args.help) {
+        io.stdout.write('Usage: partsmith serve [--port 8787] [--host 127.0.0.1]\n\nRuns the HTTP service (PORT and HOST are read when the flags are absent). --port 0 picks a free port.\n');
+        return 0;
+      }
+      const unknown = args.flags.find((f) => f.name !== 'port' && f.name !== 'host');
+      if (unknown || args.positionals.length > 0) throw new UsageError(`unknown ${unknown ? `flag ${flagOf(unknown.name)}` : `argument ${args.positionals[0]}`}; see partsmith serve --help`);
+      await startServer(args.flags.find((f) => f.name === 'port')?.value, args.flags.find((f) => f.name === 'host')?.value);
+      return 0;
+    }
+
+    let key = command;
+    let rest = argv.slice(argv.indexOf(command) + 1);
+    if (command === 'count') {
+      const kind = rest[0] === 'partitions' || rest[0] === 'compositions' ? rest[0] : 'partitions';
+      if (rest[0] === kind) rest = rest.slice(1);
+      key = `count ${kind}`;
+    }
+    label = `partsmith ${key === 'count partitions' && command === 'count' && !argv.includes('partitions') ? 'count' : key}`;
+    const entry = COMMANDS[key];
+    if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, count, serve (see partsmith --help)`);
+
+    const specs = endpointSpecs((await (await createPartsmith().fetch('/openapi.json')).json()) as Record<string, unknown>);
+    const spec = specs.get(entry.path);
+    if (!spec) throw new UsageError(`${key} is not served by this version (${APP_VERSION}) yet`);
+
+    const args = parseArgs(rest, (name) => CLI_SWITCHES.has(name) || isSwitchParam(spec, name));
+    if (args.help) {
+      io.stdout.write(commandHelp(entry.usage, spec));
+      return 0;
+    }
+    if (args.positionals.length > 0) throw new UsageError(`unexpected argument ${JSON.stringify(args.positionals[0])}; values follow their flag, e.g. --n 100`);
+    const cli = new Map<string, string>();
+    const params: ParsedFlag[] = [];
+    for (const flag of args.flags) {
+      if (flag.name in CLI_FLAGS) {
+        if (cli.has(flag.name)) throw new UsageError(`${flagOf(flag.name)} is given more than once`);
+        cli.set(flag.name, flag.value);
+      } else {
+        params.push(flag);
+      }
+    }
+
+    const source: Source = cli.has('url') ? await remoteSource(cli.get('url')!) : localSource();
+    sink = new Sink(cli.get('out'), io.stdout);
+    const quiet = cli.get('quiet') === 'true';
+    try {
+      if (key.startsWith('count ')) {
+        const query = new URLSearchParams(params.map((p) => [p.name, p.value])).toString();
+        const answer = await source.get(spec.path + (query ? `?${query}` : ''));
+        const decoder = new TextDecoder();
+        for await (const chunk of answer.body) await sink.write(decoder.decode(chunk, { stream: true }));
+      } else {
+        await runSamples({ spec, params, source, sink, makeProgress: (total) => new Progress(total, io.stderr, !quiet && io.stderr.isTTY === true) });
+      }
+      // JSON documents end without a newline (as the API sends them); add one for a person reading a terminal.
+      if (sink.isTerminal && (key.startsWith('count ') || (params.find((p) => p.name === 'format')?.value ?? 'json') === 'json')) await sink.write('\n');
+      await sink.finish();
+    } finally {
+      await source.close();
+    }
+    return 0;
+  } catch (error) {
+    sink?.abandon();
+    io.stderr.write(`${label}: ${describe(error)}\n`);
+    return error instanceof UsageError || (error instanceof PartsmithError && error.status === 400) ? 2 : 1;
+  }
+}
+
+function commandHelp(usage: string, spec: EndpointSpec): string {
+  return [
+    `Usage: ${usage}`,
+    '',
+    `${spec.summary}. Same parameters as GET ${spec.path}; see /openapi.json.`,
+    '',
+    'Parameters:',
+    ...paramHelp(spec),
+    '',
+    'Options:',
+    ...Object.values(CLI_FLAGS).map((line) => `  ${line}`),
+    '  --help        this text',
+    '',
+  ].join('\n');
+}
+
+/** One line for stderr: the problem with its parameters named as flags. */
+function describe(error: unknown): string {
+  if (error instanceof PartsmithError) {
+    if (error.errors.length > 0) {
+      return error.errors
+        .map((e) => `${/^[A-Za-z][A-Za-z0-9]*$/.test(e.param) ? flagOf(e.param) : e.param} ${e.message.replace('is not a parameter of this endpoint', 'is not a flag of this command (see --help)')}`)
+        .join('; ');
+    }
+    return error.detail;
+  }
+  if (error instanceof UsageError || error instanceof RangeError) return error.message;
+  const code = (error as { code?: unknown })?.code;
+  const message = error instanceof Error ? error.message : String(error);
+  if (typeof code === 'string' && (code.startsWith('E') || code.startsWith('UND_ERR'))) return `could not reach the service: ${message} (${code})`;
+  return message.split('\n')[0];
+}

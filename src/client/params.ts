@@ -1,0 +1,77 @@
+import type { z } from 'zod';
+import type { partitionsCountQuery, partitionsQuery } from '../http/schemas/partitions.js';
+
+/**
+ * Request parameters as typed values, derived from the endpoints' zod query schemas (the single
+ * source of truth): a key is optional exactly when the schema accepts it absent (optional or
+ * defaulted), and its value has the schema's output type (number, boolean, number[], a choice).
+ * Query values are strings on the wire and the schemas preprocess them, so z.input alone would
+ * type every number as `unknown`; the output types are what a caller means.
+ */
+export type ParamsOf<S extends z.ZodType> = { [K in keyof z.input<S>]: K extends keyof z.output<S> ? z.output<S>[K] : never };
+
+export type PartitionsParams = ParamsOf<typeof partitionsQuery>;
+export type PartitionsCountParams = ParamsOf<typeof partitionsCountQuery>;
+
+/**
+ * TODO(compositions): replace with `ParamsOf<typeof compositionsQuery>` and
+ * `ParamsOf<typeof compositionsCountQuery>` from `src/http/schemas/compositions.ts` once the
+ * compositions endpoints are merged. Until then these restate the announced contract
+ * (same sampling fields as partitions, as=parts only; constraints length, minPart, maxPart, allowed).
+ */
+export interface CompositionsParams {
+  n: number;
+  count?: number;
+  seed?: string;
+  start?: number;
+  format?: 'json' | 'ndjson' | 'text';
+  length?: number;
+  minPart?: number;
+  maxPart?: number;
+  allowed?: number[];
+}
+export type CompositionsCountParams = Omit<CompositionsParams, 'count' | 'seed' | 'start' | 'format'>;
+
+/** The JSON document of a sampling endpoint (format=json). */
+export interface SamplesDocument<Sample> {
+  readonly family: Readonly<Record<string, unknown>> & { readonly kind: string; readonly n: number };
+  readonly seed: string;
+  readonly start: number;
+  readonly method: string;
+  readonly samples: Sample[];
+}
+
+/** A partition as parts (largest first) or as [part, multiplicity] pairs (largest part first). */
+export type PartitionSample = number[] | [number, number][];
+export type PartitionsDocument = SamplesDocument<PartitionSample>;
+export type CompositionsDocument = SamplesDocument<number[]>;
+
+/** One NDJSON line of a sampling endpoint. */
+export interface SampleLine<Sample> {
+  readonly index: number;
+  /** Present for as=parts (partitions) and for compositions. */
+  readonly parts?: Sample;
+  /** Present for as=multiplicities. */
+  readonly multiplicities?: [number, number][];
+}
+
+/** The document of a count endpoint; the count is a decimal string since it may exceed 2^53. */
+export interface CountDocument {
+  readonly family: Readonly<Record<string, unknown>> & { readonly kind: string; readonly n: number };
+  readonly count: string;
+}
+
+/**
+ * Writes typed parameters as a query string in the order given: lists comma-separated,
+ * booleans as true/false, absent values left out. Validation is the server's (or, in-process,
+ * the same schema's): nothing is checked or defaulted here, so there is one set of rules.
+ */
+export function toQueryString(params: object): string {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value === undefined || value === null) continue;
+    search.append(key, Array.isArray(value) ? value.join(',') : String(value));
+  }
+  const text = search.toString();
+  return text ? `?${text}` : '';
+}

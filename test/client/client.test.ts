@@ -1,0 +1,193 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '../../src/http/app.js';
+import { createClient, PartsmithError, type PartsmithClient } from '../../src/client/index.js';
+import { ok, problem, startApp, startScripted, type Running } from './servers.js';
+
+/** The client against the real app on an ephemeral port: answers equal the app's own. */
+describe('client against the real app', () => {
+  let server: Running;
+  let client: PartsmithClient;
+  const app = createApp();
+  const direct = async (path: string) => (await app.fetch(new Request(`http://x${path}`))).text();
+
+  beforeAll(async () => {
+    server = await startApp();
+    client = createClient({ baseUrl: server.url, retries: 0 });
+  });
+  afterAll(async () => {
+    await client.close();
+    await server.close();
+  });
+
+  it('partitions() returns the JSON document the service returns', async () => {
+    const doc = await client.partitions({ n: 30, count: 5, seed: 'client', start: 3 });
+    expect(JSON.stringify(doc)).toBe(await direct('/v1/partitions?n=30&count=5&seed=client&start=3&format=json'));
+    expect(doc.samples).toHaveLength(5);
+    for (const parts of doc.samples as number[][]) expect(parts.reduce((a, b) => a + b, 0)).toBe(30);
+  });
+
+  it('streamPartitions() yields the NDJSON records, in order, equal to the JSON samples', async () => {
+    const doc = await client.partitions({ n: 25, count: 300, seed: 'stream', as: 'multiplicities' });
+    const lines = [];
+    for await (const line of client.streamPartitions({ n: 25, count: 300, seed: 'stream', as: 'multiplicities' })) lines.push(line);
+    expect(lines.map((l) => l.index)).toEqual([...Array(300).keys()]);
+    expect(lines.map((l) => l.multiplicities)).toEqual(doc.samples);
+  });
+
+  it('countPartitions(), health() and openapi() return the service documents', async () => {
+    // p(100) = 190569292, OEIS A000041.
+    expect(await client.countPartitions({ n: 100 })).toEqual({ family: { kind: 'partition', n: 100 }, count: '190569292' });
+    expect((await client.health()).status).toBe('ok');
+    const spec = await client.openapi();
+    expect(Object.keys(spec.paths as object)).toContain('/v1/partitions');
+  });
+
+  it('surfaces problem documents as PartsmithError with the problem fields', async () => {
+    const error = await client.partitions({ n: 10, seed: 'x', length: 2, maxLength: 3 }).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(PartsmithError);
+    const problem = error as PartsmithError;
+    expect(problem.status).toBe(400);
+    expect(problem.type).toBe('/problems/invalid-parameters');
+    expect(problem.errors.map((e) => e.param)).toEqual(['maxLength']);
+    expect(problem.url).toContain('/v1/partitions?');
+    const missing = (await client.get('/v1/nothing').catch((e: unknown) => e)) as PartsmithError;
+    expect(missing.status).toBe(404);
+  });
+
+  it('validates the way the service does: a bad value is a 400 from the service, not a client-side guess', async () => {
+    const error = (await client.partitions({ n: 2.5, seed: 'x' }).catch((e: unknown) => e)) as PartsmithError;
+    expect(error.status).toBe(400);
+    expect(error.errors[0].param).toBe('n');
+  });
+});
+
+describe('client retries, timeouts and aborts against scripted servers', () => {
+  const servers: Running[] = [];
+  const clients: PartsmithClient[] = [];
+  async function scripted(script: Parameters<typeof startScripted>[0]): Promise<Running> {
+    const s = await startScripted(script);
+    servers.push(s);
+    return s;
+  }
+  function clientOf(server: Running, extra: Partial<Parameters<typeof createClient>[0]> = {}): PartsmithClient {
+    const c = createClient({ baseUrl: server.url, retries: 3, retryBaseMs: 1, retryMaxMs: 5, ...extra });
+    clients.push(c);
+    return c;
+  }
+  afterAll(async () => {
+    await Promise.all(clients.map((c) => c.close()));
+    await Promise.all(servers.map((s) => s.close()));
+  });
+
+  it('retries once after the connection is dropped, then succeeds', async () => {
+    const server = await scripted((k, req, res) => (k === 0 ? req.socket.destroy() : ok(res, { status: 'ok' })));
+    expect(await clientOf(server).health()).toEqual({ status: 'ok' });
+    expect(server.hits()).toBe(2);
+  });
+
+  it('retries a 503 with Retry-After: 0, then succeeds', async () => {
+    const server = await scripted((k, _req, res) => (k === 0 ? problem(res, 503, 'busy', { 'retry-after': '0' }) : ok(res, { status: 'ok' })));
+    expect(await clientOf(server).health()).toEqual({ status: 'ok' });
+    expect(server.hits()).toBe(2);
+  });
+
+  it('retries a 429 and honours Retry-After (1 s)', async () => {
+    const server = await scripted((k, _req, res) => (k === 0 ? problem(res, 429, 'slow down', { 'retry-after': '1' }) : ok(res, { status: 'ok' })));
+    const started = Date.now();
+    expect(await clientOf(server).health()).toEqual({ status: 'ok' });
+    expect(Date.now() - started).toBeGreaterThanOrEqual(950);
+    expect(server.hits()).toBe(2);
+  });
+
+  it('never retries other 4xx, nor 500', async () => {
+    for (const status of [400, 404, 405, 422, 500]) {
+      const server = await scripted((_k, _req, res) => problem(res, status, `scripted ${status}`));
+      const error = (await clientOf(server).health().catch((e: unknown) => e)) as PartsmithError;
+      expect(error).toBeInstanceOf(PartsmithError);
+      expect(error.status).toBe(status);
+      expect(error.detail).toBe(`scripted ${status}`);
+      expect(server.hits(), `status ${status}`).toBe(1);
+    }
+  });
+
+  it('gives up after `retries` further attempts and throws the last problem', async () => {
+    const server = await scripted((_k, _req, res) => problem(res, 503, 'down', { 'retry-after': '0' }));
+    const error = (await clientOf(server, { retries: 2 }).health().catch((e: unknown) => e)) as PartsmithError;
+    expect(error.status).toBe(503);
+    expect(server.hits()).toBe(3);
+  });
+
+  it('does not wait for a Retry-After longer than maxRetryAfterMs', async () => {
+    const server = await scripted((_k, _req, res) => problem(res, 503, 'maintenance', { 'retry-after': '3600' }));
+    const error = (await clientOf(server).health().catch((e: unknown) => e)) as PartsmithError;
+    expect(error.status).toBe(503);
+    expect(server.hits()).toBe(1);
+  });
+
+  it('reuses keep-alive connections for sequential requests', async () => {
+    const server = await scripted((_k, _req, res) => ok(res, { status: 'ok' }));
+    const client = clientOf(server);
+    for (let i = 0; i < 20; i++) await client.health();
+    expect(server.hits()).toBe(20);
+    // undici's pool may open a second socket while the first is being released; never one per request.
+    expect(server.connections()).toBeLessThanOrEqual(2);
+  });
+
+  it('times out a silent server after timeoutMs, without retrying', async () => {
+    const server = await scripted(() => {
+      /* never answers */
+    });
+    const error = (await clientOf(server, { timeoutMs: 200 }).health().catch((e: unknown) => e)) as { code?: string };
+    expect(error.code).toBe('UND_ERR_HEADERS_TIMEOUT');
+    expect(server.hits()).toBe(1);
+  });
+
+  it('aborts a pending request and a pending retry wait with the AbortSignal', async () => {
+    const silent = await scripted(() => {});
+    const controller = new AbortController();
+    setTimeout(() => controller.abort(new Error('stop')), 50);
+    await expect(clientOf(silent).health({ signal: controller.signal })).rejects.toThrow('stop');
+
+    const waiting = await scripted((_k, _req, res) => problem(res, 503, 'later', { 'retry-after': '30' }));
+    const second = new AbortController();
+    const started = Date.now();
+    setTimeout(() => second.abort(new Error('enough')), 100);
+    await expect(clientOf(waiting).health({ signal: second.signal })).rejects.toThrow('enough');
+    expect(Date.now() - started).toBeLessThan(5_000);
+  });
+
+  it('reads NDJSON incrementally: the first record arrives while the server still holds the rest', async () => {
+    let release!: () => void;
+    const released = new Promise<void>((done) => (release = done));
+    const server = await scripted((_k, _req, res) => {
+      res.writeHead(200, { 'content-type': 'application/x-ndjson' });
+      res.write('{"index":0,"parts":[3,1]}\n{"index":1,"pa');
+      void released.then(() => res.end('rts":[2,2]}\n'));
+    });
+    const records = clientOf(server).streamPartitions({ n: 4, count: 2, seed: 's' });
+    const first = await records.next();
+    expect(first.value).toEqual({ index: 0, parts: [3, 1] });
+    release();
+    expect((await records.next()).value).toEqual({ index: 1, parts: [2, 2] });
+    expect((await records.next()).done).toBe(true);
+  });
+
+  it('closes the response when the caller stops reading a stream early', async () => {
+    let closed!: () => void;
+    const wasClosed = new Promise<void>((done) => (closed = done));
+    const server = await scripted((_k, req, res) => {
+      res.writeHead(200, { 'content-type': 'application/x-ndjson' });
+      let i = 0;
+      const timer = setInterval(() => res.write(`{"index":${i++},"parts":[1]}\n`), 5);
+      res.on('close', () => {
+        clearInterval(timer);
+        closed();
+      });
+      req.on('error', () => {});
+    });
+    for await (const line of clientOf(server).streamPartitions({ n: 1, count: 10_000, seed: 's' })) {
+      if (line.index === 3) break;
+    }
+    await wasClosed;
+  });
+});
