@@ -1,5 +1,8 @@
 import { Hono } from 'hono';
 import { PartitionNumbers } from '../core/counting/partition-numbers.js';
+import { LimitExceededError } from '../core/errors.js';
+import { requestContext, type Clock } from './deadline.js';
+import { hardening, otherMethods } from './middleware/index.js';
 import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
@@ -11,6 +14,8 @@ export interface AppOptions {
   readonly limits?: Partial<Limits>;
   /** Seed for requests that give none; defaults to 16 random characters from Web Crypto. */
   readonly drawSeed?: () => string;
+  /** Monotonic milliseconds for request deadlines; defaults to performance.now. */
+  readonly clock?: Clock;
 }
 
 const SEED_ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
@@ -39,12 +44,13 @@ export function createApp(options: AppOptions = {}): Hono {
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
 
+  const clock = options.clock ?? (() => performance.now());
+
   const app = new Hono();
+  app.use('*', ...hardening());
   for (const endpoint of endpoints) {
-    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), context));
-    app.all(endpoint.path, (c) => {
-      throw new ProblemError(405, `${c.req.method} is not supported on ${endpoint.path}; use GET or HEAD.`, undefined, { allow: 'GET, HEAD' });
-    });
+    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), requestContext(context, c.req.raw, clock)));
+    app.all(endpoint.path, otherMethods(endpoint.path));
   }
   app.notFound((c) => problemResponse(new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
   app.onError((error) => problemResponse(toProblem(error)));
@@ -54,6 +60,9 @@ export function createApp(options: AppOptions = {}): Hono {
 /** Maps anything thrown while handling a request to a problem; internals never leak into the body. */
 export function toProblem(error: unknown): ProblemError {
   if (error instanceof ProblemError) return error;
+  if (error instanceof LimitExceededError && !error.message.includes(error.limit)) {
+    return new ProblemError(422, `${error.message} (limit: ${error.limit})`);
+  }
   // The core raises RangeErrors (EmptyFamilyError and LimitExceededError among them) for
   // requests that are well-formed but cannot be served; their messages are written for users.
   if (error instanceof RangeError) return new ProblemError(422, error.message);

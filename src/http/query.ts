@@ -39,7 +39,8 @@ export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.outpu
         for (const key of issue.keys) errors.push({ param: printable(key), message: 'is not a parameter of this endpoint' });
       } else {
         const param = issue.path.length > 0 ? String(issue.path[0]) : '(query)';
-        const message = issue.code === 'invalid_type' && issue.input === undefined ? 'is required' : issue.message;
+        // zod 4 leaves issue.input unset by default, so "absent" is judged from the query itself.
+        const message = issue.code === 'invalid_type' && !(param in raw) ? 'is required' : issue.message;
         if (!repeated.has(param)) errors.push({ param, message });
       }
     }
