@@ -54,6 +54,7 @@ export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.outpu
 
 /** Parameter names are echoed back; keep them short and free of control characters. */
 function printable(key: string): string {
+  if (key === '') return '(empty name)'; // from "=5": say so rather than print nothing
   const clean = key.replace(/[\u0000-\u001f\u007f]/g, '?');
   return clean.length > 64 ? `${clean.slice(0, 61)}...` : clean;
 }
