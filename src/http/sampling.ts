@@ -175,13 +175,19 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
   // Erroring a stream discards what is still queued, so the stream errors one pull after the
   // last good chunk (and the NDJSON error line) went out.
   let failure: StreamEndedEarly | undefined;
+  let cancelled = false;
   return new ReadableStream<Uint8Array>(
     {
-      pull(controller) {
+      async pull(controller) {
         if (failure) {
           controller.error(failure);
           return;
         }
+        // Node's writer asks for the next chunk from a promise callback as long as the socket
+        // takes data, which on loopback is megabytes: without a turn of the event loop between
+        // chunks, other requests would wait and a disconnect would go unnoticed that long.
+        if (!pending) await nextTurn();
+        if (cancelled) return;
         const chunk = pending ?? takeChunk(pieces);
         pending = undefined;
         let text = chunk.text;
@@ -202,11 +208,17 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
         if (chunk.done && !failure) controller.close();
       },
       cancel() {
+        cancelled = true;
         pieces.return?.(undefined);
       },
     },
     { highWaterMark: 0 },
   );
+}
+
+/** Resolves after pending I/O events (new requests, closed sockets, timers) had their turn. */
+function nextTurn(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, 0));
 }
 
 export function contentTypeOf(format: SampleFormat): string {
