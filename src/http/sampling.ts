@@ -116,10 +116,13 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * Once streaming has begun the status is sent, so a later stop ends the stream with an error
  * (see `bodyStream`).
  */
-export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> {
+export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
   const pieces = bodyPieces(job, deadline);
   const first = takeChunk(pieces);
   if (first.stopped !== undefined) throw stoppedProblem(first.stopped, job.start);
+  // A body that fits in one chunk goes out as a string: it gets a Content-Length, and Node's
+  // adapter writes it directly instead of pumping a stream (most requests are this small).
+  if (first.done) return first.text;
   return bodyStream(pieces, { format: job.format, start: job.start, first });
 }
 
