@@ -1,4 +1,7 @@
 import { Hono } from 'hono';
+import { LimitExceededError } from '../core/errors.js';
+import { requestContext, type Clock } from './deadline.js';
+import { hardening, otherMethods } from './middleware/index.js';
 import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
@@ -15,6 +18,10 @@ export interface AppOptions {
   readonly limits?: Partial<Limits>;
   /** Seed for requests that give none; defaults to 16 random characters from Web Crypto. */
   readonly drawSeed?: () => string;
+  /** Monotonic milliseconds for request deadlines; defaults to performance.now. */
+  readonly clock?: Clock;
+  /** Where unexpected errors (answered with 500) are reported; defaults to console.error. */
+  readonly logError?: (error: unknown, request: Request) => void;
 }
 
 const SEED_ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
@@ -48,24 +55,33 @@ export function createApp(options: AppOptions = {}): Hono {
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
 
+  const clock = options.clock ?? (() => performance.now());
+
   const app = new Hono();
+  app.use('*', ...hardening());
   for (const endpoint of endpoints) {
-    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), context));
-    app.all(endpoint.path, (c) => {
-      throw new ProblemError(405, `${c.req.method} is not supported on ${endpoint.path}; use GET or HEAD.`, undefined, { allow: 'GET, HEAD' });
-    });
+    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), requestContext(context, c.req.raw, clock)));
+    app.all(endpoint.path, otherMethods(endpoint.path));
   }
   registerPage(app, context);
   app.notFound((c) => problemResponse(new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
-  app.onError((error) => problemResponse(toProblem(error)));
+  const logError = options.logError ?? ((error: unknown, request: Request) => console.error(`500 for ${request.url}:`, error));
+  app.onError((error, c) => {
+    const problem = toProblem(error);
+    if (problem.status >= 500 && !(error instanceof ProblemError)) logError(error, c.req.raw);
+    return problemResponse(problem);
+  });
   return app;
 }
 
 /** Maps anything thrown while handling a request to a problem; internals never leak into the body. */
 export function toProblem(error: unknown): ProblemError {
   if (error instanceof ProblemError) return error;
+  if (error instanceof LimitExceededError && !error.message.includes(error.limit)) {
+    return new ProblemError(422, `${error.message} (limit: ${error.limit})`);
+  }
   // The core raises RangeErrors (EmptyFamilyError and LimitExceededError among them) for
   // requests that are well-formed but cannot be served; their messages are written for users.
   if (error instanceof RangeError) return new ProblemError(422, error.message);
-  return new ProblemError(500, 'The service failed to answer this request. It has been logged; please report the URL.');
+  return new ProblemError(500, 'The service failed to answer this request. Please report the URL.');
 }

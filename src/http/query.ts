@@ -39,7 +39,7 @@ export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.outpu
         for (const key of issue.keys) errors.push({ param: printable(key), message: 'is not a parameter of this endpoint' });
       } else {
         const param = issue.path.length > 0 ? String(issue.path[0]) : '(query)';
-        // zod 4 leaves issue.input unset unless asked to report it, so absence is read from the query itself.
+        // zod 4 leaves issue.input unset by default, so "absent" is judged from the query itself.
         const message = issue.code === 'invalid_type' && !(param in raw) ? 'is required' : issue.message;
         if (!repeated.has(param)) errors.push({ param, message });
       }
@@ -54,6 +54,7 @@ export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.outpu
 
 /** Parameter names are echoed back; keep them short and free of control characters. */
 function printable(key: string): string {
+  if (key === '') return '(empty name)'; // from "=5": say so rather than print nothing
   const clean = key.replace(/[\u0000-\u001f\u007f]/g, '?');
   return clean.length > 64 ? `${clean.slice(0, 61)}...` : clean;
 }

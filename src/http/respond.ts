@@ -1,6 +1,7 @@
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
-import { bodyPieces, bodyStream, checkJobLimits, contentTypeOf, type SamplingJob } from './sampling.js';
+import { deadlineOf } from './deadline.js';
+import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sampling.js';
 
 /**
  * Answers a sampling request: limits first, then caching headers, then the streamed body.
@@ -30,7 +31,9 @@ export async function respondWithSamples<S>(
   } else {
     headers['cache-control'] = NO_STORE;
   }
-  return new Response(bodyStream(bodyPieces(job)), { status: 200, headers });
+  // HEAD gets the headers only: no samples are drawn for a body nobody reads.
+  const body = request.method === 'HEAD' ? null : startBody(job, deadlineOf(limits));
+  return new Response(body, { status: 200, headers });
 }
 
 /** A small JSON document (counts, health): cacheable when it is a pure function of the request. */

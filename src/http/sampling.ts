@@ -4,6 +4,7 @@ import { sampleSource } from '../core/seeding.js';
 import type { SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
+import { RequestStopped, type Deadline } from './deadline.js';
 import type { SampleFormat } from './schemas/common.js';
 
 /** What a sampling endpoint hands to the shared response writer. */
@@ -30,6 +31,11 @@ const CHUNK_CHARS = 64 * 1024;
 
 /** Refuses, before any work is done, a job whose expected size or work is over the limits. */
 export function checkJobLimits(job: SamplingJob<unknown>, limits: Limits): void {
+  if (job.count > limits.maxCount) {
+    // The schema admits up to MAX_COUNT so an operator can raise the limit; the configured one is checked here.
+    const message = `must be a whole number from 1 to ${limits.maxCount}, written with digits only`;
+    throw new ProblemError(400, `Invalid query: count ${message}.`, [{ param: 'count', message }]);
+  }
   if (job.start + job.count - 1 > limits.maxIndex) {
     throw new ProblemError(422, `start + count - 1 must be at most ${limits.maxIndex}.`, [{ param: 'start', message: `start + count - 1 must be at most ${limits.maxIndex}` }]);
   }
@@ -58,13 +64,14 @@ export function checkJobLimits(job: SamplingJob<unknown>, limits: Limits): void 
  * The body of a sampling response as a sequence of text pieces. Sample i uses its own stream
  * (seed, i, family), so the pieces are the same whatever start and count frame them.
  */
-export function* bodyPieces<S>(job: SamplingJob<S>): Generator<string> {
+export function* bodyPieces<S>(job: SamplingJob<S>, deadline?: Deadline): Generator<string> {
   const key = familyKey(job.family);
   const end = job.start + job.count;
   if (job.format === 'json') {
     const head = { family: canonicalFamily(job.family), seed: job.seed, start: job.start, method: job.sampler.method };
     yield `${JSON.stringify(head).slice(0, -1)},"samples":[`;
     for (let i = job.start; i < end; i++) {
+      deadline?.check(i - job.start);
       const sample = job.sampler.sample(sampleSource(job.seed, i, key));
       yield (i > job.start ? ',' : '') + JSON.stringify(job.encoder.json(sample));
     }
@@ -72,6 +79,7 @@ export function* bodyPieces<S>(job: SamplingJob<S>): Generator<string> {
     return;
   }
   for (let i = job.start; i < end; i++) {
+    deadline?.check(i - job.start);
     const sample = job.sampler.sample(sampleSource(job.seed, i, key));
     yield job.format === 'ndjson'
       ? `{"index":${i},"${job.encoder.field}":${JSON.stringify(job.encoder.json(sample))}}\n`
@@ -79,33 +87,141 @@ export function* bodyPieces<S>(job: SamplingJob<S>): Generator<string> {
   }
 }
 
+/** Text gathered for one network chunk; `stopped` is what ended the body early, if anything. */
+export interface Chunk {
+  readonly text: string;
+  readonly done: boolean;
+  readonly stopped?: unknown;
+}
+
+function takeChunk(pieces: Iterator<string>): Chunk {
+  let buffer = '';
+  try {
+    while (buffer.length < CHUNK_CHARS) {
+      const next = pieces.next();
+      if (next.done) return { text: buffer, done: true };
+      buffer += next.value;
+    }
+    return { text: buffer, done: false };
+  } catch (error) {
+    // A generator that threw is finished; the samples already in the buffer are still good.
+    return { text: buffer, done: true, stopped: error };
+  }
+}
+
+/**
+ * The body of a sampling response, with its first chunk produced before the response is
+ * committed: a request that runs out of time before its first byte (or whose sampler refuses)
+ * still gets a proper status — 503 problem+json with Retry-After for the deadline.
+ * Once streaming has begun the status is sent, so a later stop ends the stream with an error
+ * (see `bodyStream`).
+ */
+export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
+  const pieces = bodyPieces(job, deadline);
+  const first = takeChunk(pieces);
+  if (first.stopped !== undefined) throw stoppedProblem(first.stopped, job.start);
+  // A body that fits in one chunk goes out as a string: it gets a Content-Length, and Node's
+  // adapter writes it directly instead of pumping a stream (most requests are this small).
+  if (first.done) return first.text;
+  return bodyStream(pieces, { format: job.format, start: job.start, first });
+}
+
+/** What a stop means for the client: a problem for the deadline, the original error otherwise. */
+function stoppedProblem(stopped: unknown, start: number): unknown {
+  if (!(stopped instanceof RequestStopped)) return stopped;
+  const retryAfter = String(Math.max(1, Math.ceil(stopped.budgetMs / 1000)));
+  const resume = stopped.produced > 0 ? ` ${stopped.produced} samples were done in time; continue with start=${start + stopped.produced}.` : '';
+  return new ProblemError(
+    503,
+    `This request ran past the deadline of ${stopped.budgetMs} ms per request (the server's time limit). Ask for fewer samples (count) or a smaller n, or page with start.${resume}`,
+    undefined,
+    { 'retry-after': retryAfter },
+  );
+}
+
+/** The problem written into an NDJSON stream that stops early; internals never leak into it. */
+function streamProblem(stopped: unknown, start: number): ProblemError {
+  const problem = stoppedProblem(stopped, start);
+  if (problem instanceof ProblemError) return problem;
+  if (problem instanceof RangeError) return new ProblemError(422, problem.message);
+  return new ProblemError(500, 'The service failed while streaming this response; the samples before this line are valid.');
+}
+
+/** The error a stream ends with once streaming has begun; its message may reach the client. */
+export class StreamEndedEarly extends Error {
+  override readonly name = 'StreamEndedEarly';
+}
+
+export interface StreamOptions {
+  readonly format?: SampleFormat;
+  /** Index of the first sample, to tell the client where to continue after an early stop. */
+  readonly start?: number;
+  /** A chunk already produced (by `startBody`), sent first. */
+  readonly first?: Chunk;
+}
+
 /**
  * Streams the body, producing text only when the reader asks for more: a client that
- * disconnects cancels the stream, and no further samples are drawn.
+ * disconnects cancels the stream (and aborts the request's signal, which the deadline watches
+ * between samples), and no further samples are drawn.
+ *
+ * When sampling stops after the first chunk was sent (deadline, or a failing sampler), the
+ * samples finished so far are sent, an NDJSON stream gets one last line
+ * `{"error": <problem details>}`, and the stream is then errored, so the response ends without
+ * its proper end (no closing chunk, or "]}" missing from JSON): clients see a truncated body,
+ * never a short one that looks complete.
  */
-export function bodyStream(pieces: Iterator<string>): ReadableStream<Uint8Array> {
+export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}): ReadableStream<Uint8Array> {
+  const { format = 'text', start = 0 } = options;
   const encoder = new TextEncoder();
+  let pending = options.first;
+  // Erroring a stream discards what is still queued, so the stream errors one pull after the
+  // last good chunk (and the NDJSON error line) went out.
+  let failure: StreamEndedEarly | undefined;
+  let cancelled = false;
   return new ReadableStream<Uint8Array>(
     {
-      pull(controller) {
-        let buffer = '';
-        while (buffer.length < CHUNK_CHARS) {
-          const next = pieces.next();
-          if (next.done) {
-            if (buffer) controller.enqueue(encoder.encode(buffer));
-            controller.close();
+      async pull(controller) {
+        if (failure) {
+          controller.error(failure);
+          return;
+        }
+        // Node's writer asks for the next chunk from a promise callback as long as the socket
+        // takes data, which on loopback is megabytes: without a turn of the event loop between
+        // chunks, other requests would wait and a disconnect would go unnoticed that long.
+        if (!pending) await nextTurn();
+        if (cancelled) return;
+        const chunk = pending ?? takeChunk(pieces);
+        pending = undefined;
+        let text = chunk.text;
+        if (chunk.stopped !== undefined) {
+          if (chunk.stopped instanceof RequestStopped && chunk.stopped.reason === 'disconnected') {
+            controller.close(); // nobody is reading any more
             return;
           }
-          buffer += next.value;
+          const problem = streamProblem(chunk.stopped, start);
+          if (format === 'ndjson') text += `${JSON.stringify({ error: problem.toProblem() })}\n`;
+          failure = new StreamEndedEarly(problem.status === 503 ? 'deadline passed while streaming' : 'sampling failed while streaming');
+          if (!text) {
+            controller.error(failure);
+            return;
+          }
         }
-        controller.enqueue(encoder.encode(buffer));
+        if (text) controller.enqueue(encoder.encode(text));
+        if (chunk.done && !failure) controller.close();
       },
       cancel() {
+        cancelled = true;
         pieces.return?.(undefined);
       },
     },
     { highWaterMark: 0 },
   );
+}
+
+/** Resolves after pending I/O events (new requests, closed sockets, timers) had their turn. */
+function nextTurn(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, 0));
 }
 
 export function contentTypeOf(format: SampleFormat): string {

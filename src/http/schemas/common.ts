@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { SEED_PATTERN } from '../../core/seeding.js';
-import { DEFAULT_LIMITS, MAX_N } from '../limits.js';
+import { DEFAULT_LIMITS, MAX_COUNT, MAX_N } from '../limits.js';
 import { choiceParam, integerParam } from '../params.js';
 
 /** Fields shared by every endpoint that returns samples. Spread into each endpoint's own schema. */
 export const samplingFields = {
   n: integerParam(0, MAX_N, 'The size: every sample sums to exactly n.'),
-  count: integerParam(1, DEFAULT_LIMITS.maxCount, 'How many samples to return.').default(1),
+  // The schema admits any count a server may be configured for; the configured limit
+  // (default 10,000) is checked with the other limits before sampling.
+  count: integerParam(1, MAX_COUNT, `How many samples to return: at most ${DEFAULT_LIMITS.maxCount.toLocaleString('en-US')} unless the server is configured otherwise.`).default(1),
   seed: z
     .string()
     .regex(SEED_PATTERN, { error: 'must be 1 to 64 characters from A-Z a-z 0-9 . _ ~ : -' })

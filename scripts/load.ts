@@ -1,0 +1,154 @@
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { request } from 'undici';
+import { mergeResults, runLoad, type LoadPhase, type LoadResult } from './load/generator.js';
+import { bareRequest, mixedRequest, sampleRequest } from './load/requests.js';
+import { rssMb, startServer, type RunningServer } from './load/servers.js';
+
+/**
+ * `npm run load`: load tests of the Node server on loopback, each phase bounded in time and in
+ * request count, against a bare node:http baseline measured by the same generator in the same
+ * run. Client and server share the machine's cores, so the ratio to the baseline is the figure
+ * to quote, not the absolute req/s; baseline and partsmith run in interleaved slices. Row (a0)
+ * (n = 10, cheap to sample) isolates the cost of the HTTP stack from the sampler's. Prints a
+ * markdown table; exits 1 when any request failed.
+ *
+ *   npm run load -- --duration 8 --soak 60 --connections 64,256 --n 1000 --big-n 1000000 --batch 10
+ */
+const { values: flags } = parseArgs({
+  options: {
+    duration: { type: 'string', default: '8' }, // seconds per phase
+    soak: { type: 'string', default: '60' }, // seconds of the RSS soak (0 skips it)
+    connections: { type: 'string', default: '64,256' },
+    n: { type: 'string', default: '1000' },
+    'big-n': { type: 'string', default: '1000000' },
+    batch: { type: 'string', default: '10' },
+    'max-requests': { type: 'string', default: '2000000' },
+  },
+});
+
+const phaseMs = Number(flags.duration) * 1000;
+const soakMs = Number(flags.soak) * 1000;
+const connectionCounts = flags.connections!.split(',').map(Number);
+const n = Number(flags.n);
+const bigN = Number(flags['big-n']);
+const batch = Number(flags.batch);
+const maxRequests = Number(flags['max-requests']);
+for (const [name, value] of Object.entries({ phaseMs, soakMs, n, bigN, batch, maxRequests })) {
+  if (!Number.isFinite(value) || value < 0) throw new Error(`bad flag value for ${name}: ${value}`);
+}
+if (connectionCounts.some((c) => !Number.isInteger(c) || c < 1 || c > 1024)) throw new Error('--connections must be whole numbers from 1 to 1024');
+
+interface Row {
+  readonly scenario: string;
+  readonly server: string;
+  readonly connections: number;
+  readonly result: LoadResult;
+  readonly rssBefore: number;
+  readonly rssAfter: number;
+  readonly note?: string;
+}
+
+const rows: Row[] = [];
+const notes: string[] = [];
+
+/**
+ * Runs two phases in alternating slices (A B A B ...) and merges each side: background load on
+ * a shared machine drifts, and interleaving spreads the drift over both sides of a ratio.
+ * Each server first gets an unmeasured warm-up slice (JIT, connection setup).
+ */
+async function interleaved(rounds: number, sides: readonly { scenario: string; server: RunningServer; request: LoadPhase['request'] }[], connections: number): Promise<Row[]> {
+  const slices: LoadResult[][] = sides.map(() => []);
+  const rss = sides.map((side) => ({ before: rssMb(side.server.pid), after: NaN }));
+  for (const side of sides) await runLoad({ origin: side.server.origin, connections, durationMs: Math.min(1000, phaseMs / 4), maxRequests, request: side.request });
+  for (let round = 0; round < rounds; round++) {
+    for (const [k, side] of sides.entries()) {
+      slices[k].push(await runLoad({ origin: side.server.origin, connections, durationMs: phaseMs / rounds, maxRequests, request: side.request }));
+    }
+  }
+  return sides.map((side, k) => {
+    const result = mergeResults(slices[k]);
+    const row = { scenario: side.scenario, server: side.server.name, connections, result, rssBefore: rss[k].before, rssAfter: rssMb(side.server.pid) };
+    rows.push(row);
+    console.error(`  ${side.scenario} (${side.server.name}, ${connections} conns): ${result.requestsPerSecond.toFixed(0)} req/s, p50 ${result.p50Ms.toFixed(1)} ms, p99 ${result.p99Ms.toFixed(1)} ms, ${result.errors} errors`);
+    for (const sample of result.errorSamples) console.error(`    error: ${sample}`);
+    return row;
+  });
+}
+
+async function phase(scenario: string, server: RunningServer, connections: number, request: LoadPhase['request'], durationMs = phaseMs, note?: string): Promise<Row> {
+  const rssBefore = rssMb(server.pid);
+  const result = await runLoad({ origin: server.origin, connections, durationMs, maxRequests, request });
+  const row = { scenario, server: server.name, connections, result, rssBefore, rssAfter: rssMb(server.pid), note };
+  rows.push(row);
+  console.error(`  ${scenario} (${server.name}, ${connections} conns): ${result.requestsPerSecond.toFixed(0)} req/s, p50 ${result.p50Ms.toFixed(1)} ms, p99 ${result.p99Ms.toFixed(1)} ms, ${result.errors} errors`);
+  for (const sample of result.errorSamples) console.error(`    error: ${sample}`);
+  return row;
+}
+
+/** The largest n the server samples now, tried from `wanted` down (the interim oracle stops at 5000). */
+async function servedN(server: RunningServer, wanted: number): Promise<number> {
+  for (const candidate of [wanted, 100_000, 5000]) {
+    if (candidate > wanted) continue;
+    const response = await request(`${server.origin}/v1/partitions?n=${candidate}&seed=probe`);
+    const text = await response.body.text();
+    if (response.statusCode === 200) return candidate;
+    notes.push(`n = ${candidate} is not served yet (${response.statusCode}: ${JSON.parse(text).detail}); phase (b) falls back to a smaller n.`);
+  }
+  throw new Error('the server samples none of the n tried for phase (b)');
+}
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+const fmt = (x: number, digits = 0) => (Number.isFinite(x) ? x.toFixed(digits) : 'n/a');
+
+async function main(): Promise<void> {
+  console.error(`load: ${phaseMs / 1000} s per phase, soak ${soakMs / 1000} s, connections ${connectionCounts.join('/')}, loopback only`);
+  const bare = await startServer('bare node:http', `${root}scripts/load/bare-server.ts`);
+  const partsmith = await startServer('partsmith', `${root}src/node.ts`);
+  try {
+    const baseline: Record<number, number> = {};
+    const single: Record<number, number> = {};
+    const stack: Record<number, number> = {};
+    for (const connections of connectionCounts) {
+      const [bareRow, singleRow, stackRow] = await interleaved(
+        4,
+        [
+          { scenario: 'baseline: fixed 200-byte JSON', server: bare, request: bareRequest },
+          { scenario: `(a) n = ${n}, 1 sample`, server: partsmith, request: sampleRequest(n, 1, `a${connections}`) },
+          { scenario: '(a0) n = 10, 1 sample (HTTP stack)', server: partsmith, request: sampleRequest(10, 1, `z${connections}`) },
+        ],
+        connections,
+      );
+      baseline[connections] = bareRow.result.requestsPerSecond;
+      single[connections] = singleRow.result.requestsPerSecond;
+      stack[connections] = stackRow.result.requestsPerSecond;
+    }
+    const big = await servedN(partsmith, bigN);
+    const bigBatch = big === bigN ? batch : 1;
+    if (big !== bigN) notes.push(`(b) ran at n = ${big} with count = ${bigBatch} instead of n = ${bigN} with count = ${batch}.`);
+    await phase(`(b) n = ${big}, ${bigBatch} per request`, partsmith, 8, sampleRequest(big, bigBatch, 'b'));
+    await phase(`(c) n = ${n}, 10% bad requests`, partsmith, connectionCounts[0], mixedRequest(n, 'c'));
+    if (soakMs > 0) await phase(`soak: (c) for ${soakMs / 1000} s`, partsmith, connectionCounts[0], mixedRequest(n, 's'), soakMs);
+
+    console.log('\n| scenario | server | conns | requests | req/s | p50 ms | p99 ms | errors | RSS before MB | RSS after MB |');
+    console.log('|---|---|---:|---:|---:|---:|---:|---:|---:|---:|');
+    for (const row of rows) {
+      const r = row.result;
+      console.log(`| ${row.scenario} | ${row.server} | ${row.connections} | ${r.requests} | ${fmt(r.requestsPerSecond)} | ${fmt(r.p50Ms, 1)} | ${fmt(r.p99Ms, 1)} | ${r.errors} | ${fmt(row.rssBefore, 1)} | ${fmt(row.rssAfter, 1)} |`);
+    }
+    console.log('\n| ratio to bare node:http | ' + connectionCounts.map((c) => `${c} conns`).join(' | ') + ' |');
+    console.log('|---|' + connectionCounts.map(() => '---:').join('|') + '|');
+    console.log(`| (a) n = ${n}, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * single[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
+    console.log(`| (a0) n = 10, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * stack[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
+    const soak = rows.find((row) => row.scenario.startsWith('soak'));
+    if (soak) console.log(`\nRSS growth over the ${soakMs / 1000} s soak: ${fmt(soak.rssAfter - soak.rssBefore, 1)} MB (${fmt(soak.rssBefore, 1)} -> ${fmt(soak.rssAfter, 1)} MB).`);
+    const totalErrors = rows.reduce((sum, row) => sum + row.result.errors, 0);
+    console.log(`Errors in all phases: ${totalErrors}.`);
+    for (const note of notes) console.log(`Note: ${note}`);
+    if (totalErrors > 0) process.exitCode = 1;
+  } finally {
+    await Promise.all([bare.stop(), partsmith.stop()]);
+  }
+}
+
+await main();

@@ -1,0 +1,85 @@
+import type { Limits } from './limits.js';
+
+/**
+ * A monotonic clock in milliseconds, injected by the entry point (`performance.now` in Node) so
+ * the app never reads the time itself and tests can drive it. Only differences are used.
+ */
+export type Clock = () => number;
+
+/** Why a running request stopped before it was done. */
+export type StopReason = 'deadline' | 'disconnected';
+
+/**
+ * Thrown between two samples when a request must stop: its deadline passed, or the client went
+ * away. Sampling is cooperative — the loop asks `Deadline.check()` before every sample — so a
+ * request stops at most one sample's work after the event, whatever the runtime.
+ */
+export class RequestStopped extends Error {
+  constructor(
+    readonly reason: StopReason,
+    /** Samples finished before the stop. */
+    readonly produced: number,
+    readonly budgetMs: number,
+  ) {
+    super(reason === 'deadline' ? `deadline of ${budgetMs} ms passed after ${produced} samples` : `client disconnected after ${produced} samples`);
+    this.name = 'RequestStopped';
+  }
+}
+
+/**
+ * The time budget of one request, started when the request arrives. It also watches the
+ * request's AbortSignal (aborted by the server when the client disconnects), so one check
+ * covers both reasons to stop.
+ */
+export class Deadline {
+  readonly startedAt: number;
+  readonly at: number;
+
+  constructor(
+    private readonly clock: Clock,
+    readonly budgetMs: number,
+    private readonly signal?: AbortSignal,
+  ) {
+    this.startedAt = clock();
+    this.at = this.startedAt + budgetMs;
+  }
+
+  /** The reason to stop now, if there is one. Costs one clock read. */
+  stopReason(): StopReason | undefined {
+    if (this.signal?.aborted) return 'disconnected';
+    if (this.clock() >= this.at) return 'deadline';
+    return undefined;
+  }
+
+  /** Throws RequestStopped when the request must stop; `produced` is reported in the error. */
+  check(produced: number): void {
+    const reason = this.stopReason();
+    if (reason) throw new RequestStopped(reason, produced, this.budgetMs);
+  }
+
+  /** Seconds a client should wait before retrying a request that ran out of time. */
+  retryAfterSeconds(): number {
+    return Math.max(1, Math.ceil(this.budgetMs / 1000));
+  }
+}
+
+/**
+ * The limits of one running request: the configured limits plus that request's deadline. The
+ * app builds one per request, so the sampling code reaches the deadline through the `limits`
+ * it already receives.
+ */
+export interface RequestLimits extends Limits {
+  readonly deadline: Deadline;
+}
+
+/** The running request's deadline, when the limits carry one (they do inside the app). */
+export function deadlineOf(limits: Limits): Deadline | undefined {
+  const deadline = (limits as Partial<RequestLimits>).deadline;
+  return deadline instanceof Deadline ? deadline : undefined;
+}
+
+/** The context of one request: the app's context with limits that carry a fresh deadline. */
+export function requestContext<C extends { readonly limits: Limits }>(context: C, request: Request, clock: Clock): C {
+  const deadline = new Deadline(clock, context.limits.deadlineMs, request.signal);
+  return { ...context, limits: { ...context.limits, deadline } };
+}
