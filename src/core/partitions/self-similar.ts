@@ -49,7 +49,10 @@ const DIRECT_SEARCH_BELOW = 64;
 const LOG_CONCAVE_FROM = 26;
 
 export class SelfSimilarEngine {
-  private readonly proposal = new BoltzmannProposal();
+  /** One proposal buffer per recursion level (kept until the merge). */
+  private readonly proposals: BoltzmannProposal[] = [];
+  /** X_1 of each level's accepted proposal. */
+  private readonly onesAt: number[] = [];
   /** X_1 of the last accepted proposal. */
   private ones = 0;
 
@@ -61,53 +64,91 @@ export class SelfSimilarEngine {
 
   /** A uniform partition of n in multiplicity form (sizes descending). */
   sample(source: RandomSource, n: number, stats?: SelfSimilarStats): Partition {
-    // Collect levels top-down: each level's odd parts, scaled by 2^level.
-    const ascSizes: number[][] = [];
-    const ascMults: number[][] = [];
-    let scale = 1;
+    // Level l draws the odd parts of the current sub-problem; scaled by 2^l they are the parts
+    // of the final partition that are odd multiples of 2^l. Each level keeps its own proposal
+    // buffer until the final merge, so nothing is copied per level.
     let level = 0;
     let current = n;
     while (current > this.options.baseThreshold) {
-      const m = this.reduce(source, current, level === 0 ? stats : undefined, stats);
-      const count = this.proposal.count;
-      const s: number[] = [];
-      const mu: number[] = [];
-      if (this.ones > 0) {
-        s.push(scale);
-        mu.push(this.ones);
-      }
-      for (let i = 0; i < count; i++) {
-        s.push(this.proposal.sizes[i] * scale);
-        mu.push(this.proposal.multiplicities[i]);
-      }
-      ascSizes.push(s);
-      ascMults.push(mu);
-      current = m;
-      scale *= 2;
+      if (level === this.proposals.length) this.proposals.push(new BoltzmannProposal());
+      current = this.reduce(source, current, this.proposals[level], level === 0 ? stats : undefined, stats);
+      this.onesAt[level] = this.ones;
       level++;
     }
-    // Base: table method, sizes descending, all multiples of `scale` once scaled.
-    const baseSizes: number[] = [];
-    const baseMults: number[] = [];
-    sampleRestricted(this.options.table, source, current, current, baseSizes, baseMults);
-    return mergeLevels(ascSizes, ascMults, baseSizes, baseMults, scale);
+    // Base: the table method on the last sub-problem; its parts are multiples of 2^level.
+    const sizes: number[] = [];
+    const multiplicities: number[] = [];
+    sampleRestricted(this.options.table, source, current, current, sizes, multiplicities);
+    return this.mergeLevels(level, sizes, multiplicities, 2 ** level);
   }
 
   /**
-   * Runs steps 1–3 at size n until acceptance; leaves the accepted odd parts in this.proposal and
+   * Merges the levels into one partition, sizes descending. Sizes of different levels never
+   * coincide (odd multiples of different powers of 2; the base holds multiples of 2^levels).
+   * The output arrays are allocated once; the merged tail (base, then deeper levels) sits at
+   * their end, and each shallower level is merged in front of it in place: the write position
+   * never passes the read position of the tail, so no element is overwritten before it is read.
+   * Total moves ≈ twice the output, since the levels shrink geometrically.
+   */
+  private mergeLevels(levels: number, baseSizes: number[], baseMults: number[], baseScale: number): Partition {
+    let total = baseSizes.length;
+    for (let l = 0; l < levels; l++) total += this.proposals[l].count + (this.onesAt[l] > 0 ? 1 : 0);
+    const sizes: number[] = new Array(total);
+    const mults: number[] = new Array(total);
+    let tail = total - baseSizes.length;
+    for (let i = 0; i < baseSizes.length; i++) {
+      sizes[tail + i] = baseSizes[i] * baseScale;
+      mults[tail + i] = baseMults[i];
+    }
+    for (let l = levels - 1; l >= 0; l--) {
+      const p = this.proposals[l];
+      const scale = 2 ** l;
+      const ones = this.onesAt[l];
+      const offset = ones > 0 ? 1 : 0;
+      // Level list ascending: size 1 (if any ones), then p.sizes[0..count); read from its end.
+      let j = p.count - 1 + offset;
+      let write = tail - (p.count + offset);
+      let read = tail;
+      tail = write;
+      while (j >= 0) {
+        const levelSize = j >= offset ? p.sizes[j - offset] * scale : scale;
+        if (read < total && sizes[read] > levelSize) {
+          sizes[write] = sizes[read];
+          mults[write] = mults[read];
+          read++;
+        } else {
+          sizes[write] = levelSize;
+          mults[write] = j >= offset ? p.multiplicities[j - offset] : ones;
+          j--;
+        }
+        write++;
+      }
+      // The rest of the tail is already in place (write === read from here on).
+    }
+    return { sizes, multiplicities: mults };
+  }
+
+  /**
+   * Runs steps 1–3 at size n until acceptance; leaves the accepted odd parts in `proposal`, X_1 in this.ones, and
    * returns m = (n − T)/2.
    */
-  private reduce(source: RandomSource, n: number, top?: SelfSimilarStats, all?: SelfSimilarStats): number {
+  private reduce(
+    source: RandomSource,
+    n: number,
+    proposal: BoltzmannProposal,
+    top?: SelfSimilarStats,
+    all?: SelfSimilarStats,
+  ): number {
     const logX = boltzmannLogX(n);
     const best = this.maximiser(n, logX);
     const logP = this.options.logP;
     for (;;) {
       // Odd sizes >= 3 at x (step 1 of the class comment, without size 1).
-      const rest = this.proposal.draw(source, logX, 3, 2, n);
+      const rest = proposal.draw(source, logX, 3, 2, n);
       if (top) top.topProposals++;
       if (all) {
         all.proposals++;
-        all.visited += this.proposal.visited;
+        all.visited += proposal.visited;
       }
       if (rest === BoltzmannProposal.OVER) continue;
       // X_1 drawn with the parity that makes n − T even: X_1 = j0 + 2G, G ~ Geometric(x²),
@@ -158,46 +199,6 @@ export class SelfSimilarEngine {
     }
     return m;
   }
-}
-
-/**
- * Merges the levels into one partition, sizes descending. Level i holds odd multiples of 2^i, so
- * sizes from different levels never coincide, and the base holds multiples of 2^levels.
- */
-function mergeLevels(
-  ascSizes: number[][],
-  ascMults: number[][],
-  baseSizes: number[],
-  baseMults: number[],
-  scale: number,
-): Partition {
-  let total = baseSizes.length;
-  for (const s of ascSizes) total += s.length;
-  const sizes: number[] = new Array(total);
-  const multiplicities: number[] = new Array(total);
-  // k-way merge by repeated largest-head selection (few levels: ~log4(n / threshold)).
-  const heads = ascSizes.map((s) => s.length - 1);
-  let baseHead = 0;
-  for (let out = 0; out < total; out++) {
-    let bestLevel = -1;
-    let bestSize = baseHead < baseSizes.length ? baseSizes[baseHead] * scale : -1;
-    for (let l = 0; l < heads.length; l++) {
-      const h = heads[l];
-      if (h >= 0 && ascSizes[l][h] > bestSize) {
-        bestSize = ascSizes[l][h];
-        bestLevel = l;
-      }
-    }
-    sizes[out] = bestSize;
-    if (bestLevel < 0) {
-      multiplicities[out] = baseMults[baseHead];
-      baseHead++;
-    } else {
-      multiplicities[out] = ascMults[bestLevel][heads[bestLevel]];
-      heads[bestLevel]--;
-    }
-  }
-  return { sizes, multiplicities };
 }
 
 /** The self-similar method as a sampler for one n (the planner wraps it with its estimates). */
