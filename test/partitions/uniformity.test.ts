@@ -1,7 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { LogPartitionNumbers } from '../../src/core/counting/log-partition-number.js';
-import { DivideAndConquerSampler } from '../../src/core/partitions/divide-and-conquer.js';
-import { SelfSimilarSampler } from '../../src/core/partitions/self-similar.js';
 import { RestrictedPartitionTable, TableRecursiveSampler } from '../../src/core/partitions/table-recursive.js';
 import { unrestrictedPartitionSampler } from '../../src/core/partitions/unrestricted.js';
 import { sampleSource } from '../../src/core/seeding.js';
@@ -22,16 +19,10 @@ const P = new Map([
 ]);
 
 const table = new RestrictedPartitionTable();
-const logP = new LogPartitionNumbers();
 
 const methods: Array<[string, (n: number) => { sample: (s: ReturnType<typeof sampleSource>) => ReturnType<TableRecursiveSampler['sample']> }]> = [
   ['planner', (n) => unrestrictedPartitionSampler(n)],
   ['table-recursive', (n) => new TableRecursiveSampler(n, table)],
-  ['divide-and-conquer', (n) => new DivideAndConquerSampler(n)],
-  // Base threshold 0: every level down to m = 0 goes through the odd-size proposal and the
-  // p(m)x^{2m} acceptance, so the recursion itself is what is tested at these small n.
-  ['self-similar (no table base)', (n) => new SelfSimilarSampler(n, { baseThreshold: 0, table, logP })],
-  ['self-similar (base 4)', (n) => new SelfSimilarSampler(n, { baseThreshold: 4, table, logP })],
 ];
 
 describe('enumeration helper', () => {
