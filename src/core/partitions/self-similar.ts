@@ -150,9 +150,8 @@ export class SelfSimilarEngine {
   ): number {
     const logX = boltzmannLogX(n);
     const best = this.maximiser(n, logX);
-    const logP = this.options.logP;
     for (;;) {
-      // Odd sizes >= 3 at x (step 1 of the class comment, without size 1).
+      // Step 1: odd sizes >= 3 at x.
       const rest = proposal.draw(source, logX, 3, 2, n);
       if (top) top.topProposals++;
       if (all) {
@@ -173,7 +172,7 @@ export class SelfSimilarEngine {
       if (t > n) continue;
       const m = (n - t) / 2;
       // log of p(m)x^{2m}x^{j0} / p(best)x^{2·best}; the ratio form keeps it accurate at large n.
-      const logAccept = logP.logRatio(m, best) + 2 * (m - best) * logX + j0 * logX;
+      const logAccept = this.weightRatio(m, best, logX) + j0 * logX;
       if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
         this.ones = ones;
         return m;
@@ -181,14 +180,18 @@ export class SelfSimilarEngine {
     }
   }
 
+  /** log of p(a)x^{2a} / p(b)x^{2b}, by the stable log-ratio of partition numbers. */
+  private weightRatio(a: number, b: number, logX: number): number {
+    return this.options.logP.logRatio(a, b) + 2 * (a - b) * logX;
+  }
+
   /** argmax over integers 0 <= m <= n/2 of log p(m) + 2m·logX. */
   maximiser(n: number, logX: number): number {
     const logP = this.options.logP;
     const half = Math.floor(n / 2);
-    const f = (m: number): number => logP.log(m) + 2 * m * logX;
     if (half < DIRECT_SEARCH_BELOW) {
       let best = 0;
-      for (let m = 1; m <= half; m++) if (f(m) > f(best)) best = m;
+      for (let m = 1; m <= half; m++) if (this.weightRatio(m, best, logX) > 0) best = m;
       return best;
     }
     // Continuous maximiser of the Rademacher term: d/dm log p = (C + C/(Cλ − 1) − 3/λ)/(2λ)
@@ -198,13 +201,12 @@ export class SelfSimilarEngine {
     for (let i = 0; i < 4; i++) lambda = Math.max(1, (C + C / (C * lambda - 1) - 3 / lambda) / (-4 * logX));
     let m = Math.min(half, Math.max(LOG_CONCAVE_FROM, Math.round(lambda * lambda + 1 / 24)));
     // Hill-climb on the concave range [26, half]: compare neighbours by stable log-ratios.
-    const step = (a: number, b: number): number => logP.logRatio(a, b) + 2 * (a - b) * logX;
-    while (m < half && step(m + 1, m) > 0) m++;
-    while (m > LOG_CONCAVE_FROM && step(m - 1, m) > 0) m--;
+    while (m < half && this.weightRatio(m + 1, m, logX) > 0) m++;
+    while (m > LOG_CONCAVE_FROM && this.weightRatio(m - 1, m, logX) > 0) m--;
     // Below 26 log-concavity may fail: compare directly. Skipped when the peak is above
     // log p(25), since there f(s) <= log p(s) <= log p(25) (x < 1, p increasing).
-    if (f(m) < logP.log(LOG_CONCAVE_FROM - 1)) {
-      for (let s = 0; s < LOG_CONCAVE_FROM && s <= half; s++) if (step(s, m) > 0) m = s;
+    if (logP.log(m) + 2 * m * logX < logP.log(LOG_CONCAVE_FROM - 1)) {
+      for (let s = 0; s < LOG_CONCAVE_FROM && s <= half; s++) if (this.weightRatio(s, m, logX) > 0) m = s;
     }
     return m;
   }
