@@ -15,6 +15,8 @@ import { sampleSource } from '../../src/core/seeding.js';
 
 /** Wall-clock per method and size (the whole bench must stay under ~3 minutes). */
 const BUDGET_MS = 1500;
+/** Alternating timing rounds per size for the proposal and the planner's method. */
+const ROUNDS = 5;
 /** A baseline whose single sample is predicted to take longer than this is skipped. */
 const SKIP_OVER_MS = 20_000;
 
@@ -29,9 +31,9 @@ function median(values: number[]): number {
   return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
 }
 
-/** Runs `once` repeatedly within the budget (at least minReps times); returns median ms. */
-function timeIt(once: () => void, budgetMs: number, minReps = 3, maxReps = 20_000): { ms: number; reps: number } {
-  for (let i = 0; i < Math.min(5, minReps); i++) once(); // warm-up
+/** Runs `once` `warmUp` times, then repeatedly within the budget (at least minReps times); returns median ms. */
+function timeIt(once: () => void, budgetMs: number, minReps = 3, maxReps = 20_000, warmUp = 5): { ms: number; reps: number } {
+  for (let i = 0; i < warmUp; i++) once();
   const times: number[] = [];
   const start = performance.now();
   while (times.length < maxReps && (times.length < minReps || performance.now() - start < budgetMs)) {
@@ -65,20 +67,32 @@ export async function benchUnrestricted(): Promise<void> {
   logP.log(1);
   const setupMs = performance.now() - t0;
 
-  console.log('\n## Unrestricted partitions of n: median ms per exact sample (set-up included where per call)');
+  console.log('\n## Unrestricted partitions of n: median ms per exact sample (planner set-up included in every call)');
   console.log(`shared tables built once per process: ${fmt(setupMs)} ms (p(m, <=k) for m <= ${TABLE_METHOD_UP_TO}; exact p(m) for m <= ${LogPartitionNumbers.EXACT_UP_TO})`);
   const head = ['n', 'proposal ms', 'method', 'exact ms', 'proposals', 'ratio', 'plain ms', 'plain props', 'plain ratio', 'D&C-1s ms', 'D&C props', 'D&C ratio', 'rss MB'];
   const widths = [6, 11, 17, 9, 9, 6, 9, 11, 11, 9, 9, 9, 6];
   console.log(pad(head, widths));
 
   for (const n of sizes) {
-    // One free-size proposal: all sizes k >= 1 at x = exp(−π/√(6n)), no budget.
+    // One free-size proposal (all sizes k >= 1 at x = exp(−π/√(6n)), no budget) and the
+    // planner's method, set-up included (a sampler is planned for every call), timed in
+    // alternating rounds so that load from other processes hits both alike; the ratio is the
+    // median over rounds of (exact ms / proposal ms) within a round.
     const logX = boltzmannLogX(n);
-    const unit = timeIt(() => proposal.draw(source, logX, 1, 1, Infinity), BUDGET_MS / 2, 5).ms;
-
-    // The planner's method; proposals counted with a separately built sampler of the same method.
-    const planned = unrestrictedPartitionSampler(n, {});
-    const fast = timeIt(() => planned.sample(source), BUDGET_MS, 5).ms;
+    const unitRounds: number[] = [];
+    const fastRounds: number[] = [];
+    const ratios: number[] = [];
+    for (let round = 0; round < ROUNDS; round++) {
+      const u = timeIt(() => proposal.draw(source, logX, 1, 1, Infinity), BUDGET_MS / (2 * ROUNDS), 5).ms;
+      const f = timeIt(() => unrestrictedPartitionSampler(n).sample(source), BUDGET_MS / ROUNDS, 5).ms;
+      unitRounds.push(u);
+      fastRounds.push(f);
+      ratios.push(f / u);
+    }
+    const unit = median(unitRounds);
+    const fast = median(fastRounds);
+    const ratio = median(ratios);
+    const planned = unrestrictedPartitionSampler(n);
     let proposals = '-';
     if (planned.method.startsWith('self-similar')) {
       const stats: SelfSimilarStats = { topProposals: 0, proposals: 0, visited: 0 };
@@ -92,17 +106,19 @@ export async function benchUnrestricted(): Promise<void> {
       const predictedMs = predictedProposals * unit;
       if (predictedMs > SKIP_OVER_MS) return [`skipped`, `(~${predictedProposals.toExponential(1)})`, `~${(predictedProposals).toExponential(1)}x`];
       const sampler = make();
+      const expensive = predictedMs > 200;
       const reps = predictedMs > BUDGET_MS ? 1 : 3;
-      const timed = timeIt(() => sampler.sample(source), BUDGET_MS * 2, reps, 20_000);
+      const warmUp = expensive ? 0 : 3;
+      const timed = timeIt(() => sampler.sample(source), BUDGET_MS * 2, reps, 20_000, warmUp);
       // The counter includes the warm-up samples: divide by all samples drawn.
-      const drawn = timed.reps + Math.min(5, reps);
+      const drawn = timed.reps + warmUp;
       return [fmt(timed.ms), (sampler.proposals / drawn).toFixed(1), `${(timed.ms / unit).toFixed(1)}x`];
     };
     const plain = baseline(() => new PlainRejectionSampler(n), 3.13 * n ** 0.75);
     const dc = baseline(() => new DivideAndConquerSampler(n), 4.0 * n ** 0.25);
     notePeak();
-    console.log(pad([n.toExponential(0), fmt(unit), planned.method, fmt(fast), proposals, `${(fast / unit).toFixed(2)}x`, ...plain, ...dc, (process.memoryUsage().rss / 2 ** 20).toFixed(0)], widths));
+    console.log(pad([n.toExponential(0), fmt(unit), planned.method, fmt(fast), proposals, `${ratio.toFixed(2)}x`, ...plain, ...dc, (process.memoryUsage().rss / 2 ** 20).toFixed(0)], widths));
   }
-  console.log(`proposals = odd-size proposals per sample at the top level / at all levels of the recursion; ratio = exact ms / one free-size proposal ms; skipped baselines show the predicted proposals (plain ~3.13·n^{3/4}, D&C ~4.0·n^{1/4}).`);
+  console.log(`proposals = odd-size proposals per sample at the top level / at all levels of the recursion; ratio = median over rounds of exact ms / one free-size proposal ms, timed alternately; skipped baselines show the predicted proposals (plain ~3.13·n^{3/4}, D&C ~4.0·n^{1/4}).`);
   console.log(`peak rss ${(peakRss / 2 ** 20).toFixed(0)} MB; bench section took ${((performance.now() - t0) / 1000).toFixed(1)} s`);
 }

@@ -106,9 +106,7 @@ export function sampleRestricted(
 /** Exact uniform sampler of partitions of n <= RestrictedPartitionTable.MAX_N by the table above. */
 export class TableRecursiveSampler implements PartitionSampler {
   readonly method = 'table-recursive/1';
-  readonly expectedLength: number;
-  readonly expectedDistinct: number;
-  readonly expectedWork: number;
+  private estimates: { length: number; distinct: number } | null = null;
 
   constructor(
     readonly n: number,
@@ -118,19 +116,38 @@ export class TableRecursiveSampler implements PartitionSampler {
       throw new RangeError(`n must be an integer in [0, ${RestrictedPartitionTable.MAX_N}] for the table method, got ${n}`);
     }
     table.ensure(n);
-    // Exact means: E[X_k] = Σ_{j>=1} p(n − jk)/p(n) and P(X_k >= 1) = p(n − k)/p(n)
-    // (remove one part k / j parts k; Andrews 1976, ch. 1).
-    const p = (m: number): number => table.get(m, m);
-    let length = 0;
-    let distinct = 0;
-    for (let size = 1; size <= n; size++) {
-      distinct += p(n - size);
-      for (let rest = n - size; rest >= 0; rest -= size) length += p(rest);
+  }
+
+  get expectedLength(): number {
+    return this.exactMeans().length;
+  }
+
+  get expectedDistinct(): number {
+    return this.exactMeans().distinct;
+  }
+
+  /** One uniform and a binary search of ~log2(n) steps per part. */
+  get expectedWork(): number {
+    return 1 + this.expectedLength * (1 + Math.log2(this.n + 1));
+  }
+
+  /**
+   * Exact means, computed on first use (O(n log n)): E[X_k] = Σ_{j>=1} p(n − jk)/p(n) and
+   * P(X_k >= 1) = p(n − k)/p(n) (remove j parts k / one part k; Andrews 1976, ch. 1).
+   */
+  private exactMeans(): { length: number; distinct: number } {
+    if (this.estimates === null) {
+      const n = this.n;
+      const p = (m: number): number => this.table.get(m, m);
+      let length = 0;
+      let distinct = 0;
+      for (let size = 1; size <= n; size++) {
+        distinct += p(n - size);
+        for (let rest = n - size; rest >= 0; rest -= size) length += p(rest);
+      }
+      this.estimates = n === 0 ? { length: 0, distinct: 0 } : { length: length / p(n), distinct: distinct / p(n) };
     }
-    this.expectedLength = n === 0 ? 0 : length / p(n);
-    this.expectedDistinct = n === 0 ? 0 : distinct / p(n);
-    // One uniform and a binary search of ~log2(n) steps per part.
-    this.expectedWork = 1 + this.expectedLength * (1 + Math.log2(n + 1));
+    return this.estimates;
   }
 
   sample(source: RandomSource): Partition {
