@@ -69,8 +69,8 @@ export async function benchUnrestricted(): Promise<void> {
 
   console.log('\n## Unrestricted partitions of n: median ms per exact sample (planner set-up included in every call)');
   console.log(`shared tables built once per process: ${fmt(setupMs)} ms (p(m, <=k) for m <= ${TABLE_METHOD_UP_TO}; exact p(m) for m <= ${LogPartitionNumbers.EXACT_UP_TO})`);
-  const head = ['n', 'proposal ms', 'method', 'exact ms', 'proposals', 'ratio', 'plain ms', 'plain props', 'plain ratio', 'D&C-1s ms', 'D&C props', 'D&C ratio', 'rss MB'];
-  const widths = [6, 11, 17, 9, 9, 6, 9, 11, 11, 9, 9, 9, 6];
+  const head = ['n', 'proposal ms', 'method', 'exact ms', 'proposals', 'ratio', 'visits', 'plain ms', 'plain props', 'plain ratio', 'D&C-1s ms', 'D&C props', 'D&C ratio', 'rss MB'];
+  const widths = [6, 11, 17, 9, 9, 6, 6, 9, 11, 11, 9, 9, 9, 6];
   console.log(pad(head, widths));
 
   for (const n of sizes) {
@@ -94,12 +94,21 @@ export async function benchUnrestricted(): Promise<void> {
     const ratio = median(ratios);
     const planned = unrestrictedPartitionSampler(n);
     let proposals = '-';
+    let visitRatio = '-';
     if (planned.method.startsWith('self-similar')) {
       const stats: SelfSimilarStats = { topProposals: 0, proposals: 0, visited: 0 };
       const counted = new SelfSimilarSampler(n, { baseThreshold: TABLE_METHOD_UP_TO, table, logP });
       const reps = Math.max(20, Math.min(2000, Math.round(2e5 / Math.sqrt(n))));
       for (let i = 0; i < reps; i++) counted.sample(source, stats);
       proposals = `${(stats.topProposals / reps).toFixed(2)}/${(stats.proposals / reps).toFixed(1)}`;
+      // Load-independent work ratio: part sizes visited per exact sample / per free proposal.
+      let freeVisited = 0;
+      const freeReps = Math.max(20, Math.round(reps / 2));
+      for (let i = 0; i < freeReps; i++) {
+        proposal.draw(source, logX, 1, 1, Infinity);
+        freeVisited += proposal.visited;
+      }
+      visitRatio = `${(stats.visited / reps / (freeVisited / freeReps)).toFixed(2)}x`;
     } else if (planned instanceof TableRecursiveSampler) proposals = 'table';
 
     const baseline = (make: () => { sample(s: RandomSource): unknown; proposals: number }, predictedProposals: number): string[] => {
@@ -117,8 +126,8 @@ export async function benchUnrestricted(): Promise<void> {
     const plain = baseline(() => new PlainRejectionSampler(n), 3.13 * n ** 0.75);
     const dc = baseline(() => new DivideAndConquerSampler(n), 4.0 * n ** 0.25);
     notePeak();
-    console.log(pad([n.toExponential(0), fmt(unit), planned.method, fmt(fast), proposals, `${ratio.toFixed(2)}x`, ...plain, ...dc, (process.memoryUsage().rss / 2 ** 20).toFixed(0)], widths));
+    console.log(pad([n.toExponential(0), fmt(unit), planned.method, fmt(fast), proposals, `${ratio.toFixed(2)}x`, visitRatio, ...plain, ...dc, (process.memoryUsage().rss / 2 ** 20).toFixed(0)], widths));
   }
-  console.log(`proposals = odd-size proposals per sample at the top level / at all levels of the recursion; ratio = median over rounds of exact ms / one free-size proposal ms, timed alternately; skipped baselines show the predicted proposals (plain ~3.13·n^{3/4}, D&C ~4.0·n^{1/4}).`);
+  console.log(`proposals = odd-size proposals per sample at the top level / at all levels of the recursion; ratio = median over rounds of exact ms / one free-size proposal ms, timed alternately; visits = part sizes visited per exact sample / per free-size proposal (load-independent); skipped baselines show the predicted proposals (plain ~3.13·n^{3/4}, D&C ~4.0·n^{1/4}).`);
   console.log(`peak rss ${(peakRss / 2 ** 20).toFixed(0)} MB; bench section took ${((performance.now() - t0) / 1000).toFixed(1)} s`);
 }
