@@ -1,0 +1,4 @@
+/** `npm run bench`: speed tables. Each section lives in scripts/bench/. */
+import { benchUnrestricted } from './bench/unrestricted.js';
+
+await benchUnrestricted();

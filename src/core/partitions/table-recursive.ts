@@ -1,0 +1,159 @@
+import type { Partition } from '../partition.js';
+import type { RandomSource } from '../random.js';
+import type { PartitionSampler } from '../sampler.js';
+
+/**
+ * Counts p(m, ≤k) of partitions of m into parts of size at most k, for 0 <= k <= m <= maxN, by
+ *   p(m, ≤k) = p(m, ≤k−1) + p(m − k, ≤k)      (A&S 24.2.2; OEIS A026820 for the triangle)
+ * (a partition of m into parts ≤ k either has no part k, or remove one part k). Only additions of
+ * positive numbers, so the doubles carry a relative error of at most ~m rounding steps — unlike the
+ * pentagonal recurrence, which cancels. Row m stores k = 0..m; p(m, ≤k) = p(m, ≤m) for k > m.
+ * Filled lazily up to the largest m asked for; memory (maxN+1)(maxN+2)/2 doubles.
+ */
+export class RestrictedPartitionTable {
+  /** Largest m the table will be built for (about 2 MB of doubles). */
+  static readonly MAX_N = 700;
+
+  private values = new Float64Array(1).fill(1); // row 0: p(0, ≤0) = 1
+  private rows = 1;
+
+  /** p(m, ≤k) as a double; k may exceed m. */
+  get(m: number, k: number): number {
+    this.ensure(m);
+    return this.values[rowStart(m) + Math.min(k, m)];
+  }
+
+  /** Makes rows 0..m available. */
+  ensure(m: number): void {
+    if (m < this.rows) return;
+    if (!Number.isInteger(m) || m < 0 || m > RestrictedPartitionTable.MAX_N) {
+      throw new RangeError(`the restricted partition table covers m <= ${RestrictedPartitionTable.MAX_N}, got ${m}`);
+    }
+    const values = new Float64Array(rowStart(m + 1));
+    values.set(this.values);
+    for (let r = this.rows; r <= m; r++) {
+      const base = rowStart(r);
+      values[base] = 0; // p(r, ≤0) = 0 for r >= 1
+      for (let k = 1; k <= r; k++) {
+        const rest = r - k;
+        values[base + k] = values[base + k - 1] + values[rowStart(rest) + Math.min(k, rest)];
+      }
+    }
+    this.values = values;
+    this.rows = m + 1;
+  }
+
+  /** The raw triangle and row layout, for the sampler's inner loop (rows 0..m must be ensured). */
+  triangle(): Float64Array {
+    return this.values;
+  }
+}
+
+/** Offset of row m in the triangle: rows 0..m−1 hold 1 + 2 + ... + m entries. */
+export function rowStart(m: number): number {
+  return (m * (m + 1)) / 2;
+}
+
+/**
+ * Draws a uniform partition of m into parts <= k, pushing (size, multiplicity) pairs in
+ * DESCENDING size order into the given arrays. The largest part j of such a partition has
+ * P(largest = j) = p(m − j, ≤j) / p(m, ≤k) = (p(m, ≤j) − p(m, ≤j−1)) / p(m, ≤k) (the recursion
+ * above, unrolled), so one uniform U and a binary search for the least j with p(m, ≤j) > U·p(m, ≤k)
+ * picks it; then the rest is a uniform partition of m − j into parts <= j (Nijenhuis & Wilf 1978,
+ * ch. 10, in the "largest part" form). Once only parts of size 1 remain, they are all 1s.
+ */
+export function sampleRestricted(
+  table: RestrictedPartitionTable,
+  source: RandomSource,
+  m: number,
+  k: number,
+  sizes: number[],
+  multiplicities: number[],
+): void {
+  table.ensure(m);
+  const t = table.triangle();
+  let lastSize = 0;
+  while (m > 0) {
+    if (k > m) k = m;
+    let part: number;
+    if (k === 1) {
+      part = 1;
+    } else {
+      const base = rowStart(m);
+      const target = source.nextDouble() * t[base + k];
+      // least j in [1, k] with p(m, ≤j) > target; p(m, ≤0) = 0 <= target.
+      let lo = 1;
+      let hi = k;
+      while (lo < hi) {
+        const mid = (lo + hi) >>> 1;
+        if (t[base + mid] > target) hi = mid;
+        else lo = mid + 1;
+      }
+      part = lo;
+    }
+    const copies = part === 1 ? m : 1;
+    if (part === lastSize) multiplicities[multiplicities.length - 1] += copies;
+    else {
+      sizes.push(part);
+      multiplicities.push(copies);
+      lastSize = part;
+    }
+    m -= part * copies;
+    k = part;
+  }
+}
+
+/** Exact uniform sampler of partitions of n <= RestrictedPartitionTable.MAX_N by the table above. */
+export class TableRecursiveSampler implements PartitionSampler {
+  readonly method = 'table-recursive/1';
+  private estimates: { length: number; distinct: number } | null = null;
+
+  constructor(
+    readonly n: number,
+    private readonly table: RestrictedPartitionTable,
+  ) {
+    if (!Number.isInteger(n) || n < 0 || n > RestrictedPartitionTable.MAX_N) {
+      throw new RangeError(`n must be an integer in [0, ${RestrictedPartitionTable.MAX_N}] for the table method, got ${n}`);
+    }
+    table.ensure(n);
+  }
+
+  get expectedLength(): number {
+    return this.exactMeans().length;
+  }
+
+  get expectedDistinct(): number {
+    return this.exactMeans().distinct;
+  }
+
+  /** One uniform and a binary search of ~log2(n) steps per part. */
+  get expectedWork(): number {
+    return 1 + this.expectedLength * (1 + Math.log2(this.n + 1));
+  }
+
+  /**
+   * Exact means, computed on first use (O(n log n)): E[X_k] = Σ_{j>=1} p(n − jk)/p(n) and
+   * P(X_k >= 1) = p(n − k)/p(n) (remove j parts k / one part k; Andrews 1976, ch. 1).
+   */
+  private exactMeans(): { length: number; distinct: number } {
+    if (this.estimates === null) {
+      const n = this.n;
+      const p = (m: number): number => this.table.get(m, m);
+      let length = 0;
+      let distinct = 0;
+      for (let size = 1; size <= n; size++) {
+        distinct += p(n - size);
+        for (let rest = n - size; rest >= 0; rest -= size) length += p(rest);
+      }
+      this.estimates = n === 0 ? { length: 0, distinct: 0 } : { length: length / p(n), distinct: distinct / p(n) };
+    }
+    return this.estimates;
+  }
+
+  sample(source: RandomSource): Partition {
+    const sizes: number[] = [];
+    const multiplicities: number[] = [];
+    sampleRestricted(this.table, source, this.n, this.n, sizes, multiplicities);
+    return { sizes, multiplicities };
+  }
+}

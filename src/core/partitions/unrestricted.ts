@@ -1,0 +1,78 @@
+import { LogPartitionNumbers } from '../counting/log-partition-number.js';
+import type { Partition } from '../partition.js';
+import type { RandomSource } from '../random.js';
+import type { PartitionSampler } from '../sampler.js';
+import { SelfSimilarEngine } from './self-similar.js';
+import { RestrictedPartitionTable, TableRecursiveSampler } from './table-recursive.js';
+
+/** Largest n for the service's unrestricted partitions. */
+export const MAX_UNRESTRICTED_N = 1_000_000_000;
+
+/**
+ * Up to this n the table method is used directly, and the self-similar recursion hands over to it
+ * once a sub-problem is this small. Chosen by measurement (scripts/bench): at 500 the table costs
+ * 125,000 doubles (1 MB) and beats the recursion's per-level overhead below it.
+ */
+export const TABLE_METHOD_UP_TO = 500;
+
+/** The memo tables the unrestricted samplers share: filled lazily, owned by this object. */
+export class UnrestrictedTables {
+  readonly table = new RestrictedPartitionTable();
+  readonly logP = new LogPartitionNumbers();
+}
+
+/** The tables used when the caller passes none (one instance per process; pure caches). */
+const defaultTables = new UnrestrictedTables();
+
+export interface UnrestrictedOptions {
+  readonly tables?: UnrestrictedTables;
+}
+
+/**
+ * An exact uniform sampler of partitions of n, 0 <= n <= 10^9: the table method for
+ * n <= TABLE_METHOD_UP_TO, the self-similar Boltzmann method above (self-similar.ts).
+ */
+export function unrestrictedPartitionSampler(n: number, options: UnrestrictedOptions = {}): PartitionSampler {
+  if (!Number.isInteger(n) || n < 0 || n > MAX_UNRESTRICTED_N) {
+    throw new RangeError(`n must be an integer from 0 to ${MAX_UNRESTRICTED_N}, got ${n}`);
+  }
+  const tables = options.tables ?? defaultTables;
+  if (n <= TABLE_METHOD_UP_TO) return new TableRecursiveSampler(n, tables.table);
+  return new SelfSimilarPlanned(n, tables);
+}
+
+/** Euler's constant γ. */
+const EULER_GAMMA = 0.5772156649015329;
+
+class SelfSimilarPlanned implements PartitionSampler {
+  readonly method = 'self-similar/1';
+  readonly expectedLength: number;
+  readonly expectedDistinct: number;
+  readonly expectedWork: number;
+  private readonly engine: SelfSimilarEngine;
+
+  constructor(
+    readonly n: number,
+    tables: UnrestrictedTables,
+  ) {
+    this.engine = new SelfSimilarEngine({ baseThreshold: TABLE_METHOD_UP_TO, table: tables.table, logP: tables.logP });
+    // With x = e^{−t}, t = π/√(6n): E[parts] ≈ Σ_k x^k/(1 − x^k) = (ln(1/t) + γ)/t + 1/4 + O(t)
+    // (Lambert series of the divisor function) and E[distinct sizes] ≈ Σ_k x^k = 1/t − 1/2 + O(t);
+    // both agree with the uniform law to leading order (Erdős & Lehner 1941; Fristedt 1993).
+    const s = Math.sqrt(6 * n) / Math.PI;
+    this.expectedLength = s * (Math.log(s) + EULER_GAMMA) + 0.25;
+    this.expectedDistinct = s - 0.5;
+    // Measured: the odd-size proposals of all levels visit about WORK_PER_S·s part sizes per
+    // sample; the merge adds ~2 steps per distinct size, the table base case a bounded amount.
+    this.expectedWork = WORK_PER_S * s + 2 * this.expectedDistinct + BASE_CASE_WORK;
+  }
+
+  sample(source: RandomSource): Partition {
+    return this.engine.sample(source, this.n);
+  }
+}
+
+/** Part sizes visited per sample, in units of √(6n)/π (measured 2.0–2.2 for n = 10^4..10^9). */
+const WORK_PER_S = 2.3;
+/** Upper estimate of the table method's steps on a sub-problem of size <= TABLE_METHOD_UP_TO. */
+const BASE_CASE_WORK = 1000;

@@ -1,0 +1,46 @@
+import { describe, expect, it } from 'vitest';
+import { RestrictedPartitionTable, TableRecursiveSampler } from '../../src/core/partitions/table-recursive.js';
+import { unrestrictedPartitionSampler } from '../../src/core/partitions/unrestricted.js';
+import { sampleSource } from '../../src/core/seeding.js';
+import { enumeratePartitions } from '../support/enumerate-partitions.js';
+import { uniformityPValue } from '../support/partition-checks.js';
+
+// Chi-square over ALL partitions of n against the uniform law, 100,000 samples per case, fixed
+// seeds. Each case fails with probability alpha = 1e-4 when the sampler is exactly uniform
+// (project convention, BRIEF "Statistical tests").
+const ALPHA = 1e-4;
+const SAMPLES = 100_000;
+
+// p(10) = 42, p(12) = 77, p(15) = 176 (OEIS A000041).
+const P = new Map([
+  [10, 42],
+  [12, 77],
+  [15, 176],
+]);
+
+const table = new RestrictedPartitionTable();
+
+const methods: Array<[string, (n: number) => { sample: (s: ReturnType<typeof sampleSource>) => ReturnType<TableRecursiveSampler['sample']> }]> = [
+  ['planner', (n) => unrestrictedPartitionSampler(n)],
+  ['table-recursive', (n) => new TableRecursiveSampler(n, table)],
+];
+
+describe('enumeration helper', () => {
+  it('lists p(n) distinct partitions (OEIS A000041)', () => {
+    for (const [n, count] of P) {
+      const all = enumeratePartitions(n);
+      expect(all.length).toBe(count);
+      expect(new Set(all.map((p) => p.join(','))).size).toBe(count);
+    }
+  });
+});
+
+describe.each(methods)('uniformity of %s', (name, make) => {
+  it.each([10, 12, 15])('over all partitions of %i', (n) => {
+    const sampler = make(n);
+    const source = sampleSource(`chi-${name.replace(/[^a-z]/g, '')}-${n}`, 0, 'test');
+    const { pValue, cells } = uniformityPValue(n, SAMPLES, source, (s) => sampler.sample(s));
+    expect(cells).toBe(P.get(n));
+    expect(pValue).toBeGreaterThan(ALPHA);
+  });
+});
