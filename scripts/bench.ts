@@ -1,4 +1,25 @@
-/** `npm run bench`: speed tables. Each section lives in scripts/bench/. */
+/**
+ * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions) runs one.
+ */
+import { benchCompositions } from './bench/compositions.js';
+import { benchConstrained } from './bench/constrained.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
-await benchUnrestricted();
+const sections: Record<string, () => Promise<void>> = {
+  unrestricted: benchUnrestricted,
+  constrained: benchConstrained,
+  compositions: benchCompositions,
+};
+
+const chosen = process.argv.slice(2);
+for (const name of chosen) {
+  if (!(name in sections)) {
+    console.error(`unknown bench section ${JSON.stringify(name)}; choose from ${Object.keys(sections).join(', ')}`);
+    process.exit(2);
+  }
+}
+for (const name of chosen.length > 0 ? chosen : Object.keys(sections)) {
+  console.log(`\n## ${name}\n`);
+  await sections[name]();
+}

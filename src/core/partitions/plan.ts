@@ -1,21 +1,27 @@
 import type { PartitionFamily } from '../family.js';
-import { LimitExceededError } from '../errors.js';
 import type { PartitionSampler } from '../sampler.js';
 import { constrainedPartitionSampler } from './constrained/plan.js';
-import { RecursiveOracle } from './recursive-oracle.js';
+import { unrestrictedPartitionSampler } from './unrestricted.js';
 
 /** True when the family has no constraint beyond its size. */
 export function isUnconstrained(family: PartitionFamily): boolean {
-  return !family.distinct && (family.minPart === undefined || family.minPart <= 1) && family.maxPart === undefined && family.length === undefined && family.maxLength === undefined && family.allowed === undefined;
+  return (
+    !family.distinct &&
+    (family.minPart === undefined || family.minPart <= 1) &&
+    family.maxPart === undefined &&
+    family.length === undefined &&
+    family.maxLength === undefined &&
+    family.allowed === undefined
+  );
 }
 
 /**
- * Picks an exact uniform sampler for the family: the unrestricted sampler when there is no
- * constraint, otherwise the constrained planner (which chooses among its own exact methods by
- * estimated cost). The choice depends on the family only, never on the seed.
+ * Picks an exact uniform sampler for the family: the unrestricted sampler (a counting table for
+ * small n, the self-similar Boltzmann method above) when there is no constraint, otherwise the
+ * constrained planner, which chooses among its own exact methods by estimated cost. The choice
+ * depends on the family only, never on the seed, so sample i stays a function of
+ * (seed, i, family, ALGORITHM_VERSION).
  */
 export function planPartitionSampler(family: PartitionFamily): PartitionSampler {
-  if (!isUnconstrained(family)) return constrainedPartitionSampler(family);
-  if (family.n > RecursiveOracle.MAX_N) throw new LimitExceededError(`n must be at most ${RecursiveOracle.MAX_N}`, `n <= ${RecursiveOracle.MAX_N}`);
-  return new RecursiveOracle(family.n);
+  return isUnconstrained(family) ? unrestrictedPartitionSampler(family.n) : constrainedPartitionSampler(family);
 }
