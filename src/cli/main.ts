@@ -117,7 +117,7 @@ export async function runCli(argv: readonly string[], io: CliIo = { stdout: proc
         const decoder = new TextDecoder();
         for await (const chunk of answer.body) await sink.write(decoder.decode(chunk, { stream: true }));
       } else {
-        await runSamples({ spec, params, source, sink, makeProgress: (total) => new Progress(total, io.stderr, !quiet && io.stderr.isTTY === true) });
+        await runSamples({ spec, params, source, sink, makeProgress: (total) => new Progress(total, io.stderr, !quiet && io.stderr.isTTY === true, progressDelayMs()) });
       }
       // JSON documents end without a newline (as the API sends them); add one for a person reading a terminal.
       if (sink.isTerminal && (key.startsWith('count ') || (params.find((p) => p.name === 'format')?.value ?? 'json') === 'json')) await sink.write('\n');
@@ -164,4 +164,10 @@ function describe(error: unknown): string {
   const message = error instanceof Error ? error.message : String(error);
   if (typeof code === 'string' && (code.startsWith('E') || code.startsWith('UND_ERR'))) return `could not reach the service: ${message} (${code})`;
   return message.split('\n')[0];
+}
+
+/** The progress bar's quiet period: PARTSMITH_PROGRESS_AFTER_MS (whole milliseconds), default 1000. */
+function progressDelayMs(): number {
+  const raw = process.env.PARTSMITH_PROGRESS_AFTER_MS;
+  return raw !== undefined && /^[0-9]{1,7}$/.test(raw) ? Number(raw) : 1000;
 }

@@ -63,13 +63,15 @@ export class Progress {
     private readonly total: number,
     private readonly stderr: NodeJS.WritableStream & { isTTY?: boolean } = process.stderr,
     private readonly enabled: boolean = stderr.isTTY === true,
+    /** Quiet period before the bar appears (PARTSMITH_PROGRESS_AFTER_MS; default one second). */
+    private readonly afterMs: number = 1000,
   ) {}
 
   advance(samples: number): void {
     this.done += samples;
     if (!this.enabled) return;
     const now = Date.now();
-    if (now - this.startedAt < 1000 || now - this.lastDraw < 100) return;
+    if (now - this.startedAt < this.afterMs || now - this.lastDraw < 100) return;
     this.lastDraw = now;
     this.drawn = true;
     const fraction = this.total > 0 ? Math.min(1, this.done / this.total) : 1;

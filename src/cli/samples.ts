@@ -2,6 +2,7 @@ import type { ParsedFlag } from './flags.js';
 import type { Progress, Sink } from './output.js';
 import type { Source } from './source.js';
 import type { EndpointSpec } from './spec.js';
+import { DEFAULT_LIMITS } from '../http/limits.js';
 
 /** How a sampling command's flags become one or more requests. */
 export interface SamplesRun {
@@ -40,7 +41,9 @@ function withValue(params: readonly ParsedFlag[], name: string, value: string): 
 export async function runSamples(run: SamplesRun): Promise<void> {
   const { spec, params, source, sink } = run;
   const value = (name: string) => params.find((p) => p.name === name)?.value;
-  const maxCount = spec.params.find((p) => p.name === 'count')?.maximum ?? Infinity;
+  // Pages of the default per-response limit: the schema's maximum is what a server may be
+  // configured to allow, not what this one allows.
+  const maxCount = Math.min(spec.params.find((p) => p.name === 'count')?.maximum ?? Infinity, DEFAULT_LIMITS.maxCount);
   const countText = value('count');
   const startText = value('start') ?? '0';
   const repeated = new Set(params.map((p) => p.name)).size !== params.length;

@@ -60,7 +60,14 @@ export function createApp(options: AppOptions = {}): Hono {
   const app = new Hono();
   app.use('*', ...hardening());
   for (const endpoint of endpoints) {
-    app.get(endpoint.path, async (c) => endpoint.handle(c.req.raw, parseQuery(c.req.url, endpoint.query), requestContext(context, c.req.raw, clock)));
+    app.get(endpoint.path, async (c) => {
+      const query = parseQuery(c.req.url, endpoint.query);
+      try {
+        return await endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock));
+      } catch (error) {
+        throw familyProblem(error, query);
+      }
+    });
     app.all(endpoint.path, otherMethods(endpoint.path));
   }
   registerPage(app, context);
@@ -72,6 +79,23 @@ export function createApp(options: AppOptions = {}): Hono {
     return problemResponse(problem);
   });
   return app;
+}
+
+/** Parameters that define a family (as opposed to how many samples and in which form). */
+const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+
+/**
+ * An empty family or contradictory bounds (a core RangeError that is not about a limit) is
+ * answered with 422 naming the family's parameters: together they describe a set with no member.
+ */
+function familyProblem(error: unknown, query: Record<string, unknown>): unknown {
+  if (!(error instanceof RangeError) || error instanceof LimitExceededError) return error;
+  const given = FAMILY_PARAMS.filter((param) => query[param] !== undefined);
+  return new ProblemError(
+    422,
+    error.message,
+    given.map((param) => ({ param, message: 'together with the other family parameters, describes no partition or composition (see detail)' })),
+  );
 }
 
 /** Maps anything thrown while handling a request to a problem; internals never leak into the body. */

@@ -115,12 +115,14 @@ export async function nodeRuntime(): Promise<Runtime> {
   return {
     name: 'node',
     async send(path, init = {}) {
-      const response = await request(server.url + path, { method: (init.method ?? 'GET') as 'GET', headers: init.headers, dispatcher: agent });
-      const headers: Record<string, string> = {};
+      // The same Host as the other runtimes' URLs, so pages that print their own address agree.
+      const headers = { host: new URL(BASE).host, ...init.headers };
+      const response = await request(server.url + path, { method: (init.method ?? 'GET') as 'GET', headers, dispatcher: agent });
+      const answerHeaders: Record<string, string> = {};
       for (const [key, value] of Object.entries(response.headers)) {
-        if (value !== undefined) headers[key.toLowerCase()] = Array.isArray(value) ? value.join(', ') : value;
+        if (value !== undefined) answerHeaders[key.toLowerCase()] = Array.isArray(value) ? value.join(', ') : value;
       }
-      return { status: response.statusCode, headers, body: Buffer.from(await response.body.arrayBuffer()) };
+      return { status: response.statusCode, headers: answerHeaders, body: Buffer.from(await response.body.arrayBuffer()) };
     },
     async close() {
       await agent.close();

@@ -122,7 +122,9 @@ export async function checkResponse(endpoint: EndpointSpec, query: string, respo
 
   if (status >= 400 && status <= 499) violations.push(...problemViolations(status, contentType, text, params));
   else if (status >= 200 && status < 300) {
-    if (endpoint.params.includes('format')) violations.push(...sampleViolations(endpoint.path, params, contentType, text));
+    if (endpoint.path.endsWith('/diagram')) violations.push(...diagramViolations(params, contentType, text));
+    else if (endpoint.path.endsWith('/check')) violations.push(...checkViolations(params, contentType, text));
+    else if (endpoint.params.includes('format')) violations.push(...sampleViolations(endpoint.path, params, contentType, text));
     else {
       try {
         const body = JSON.parse(text);
@@ -133,4 +135,33 @@ export async function checkResponse(endpoint: EndpointSpec, query: string, respo
     }
   }
   return { status, violations };
+}
+
+/** A Ferrers diagram: SVG with one cell per unit, or rows of '#', one row per part. */
+function diagramViolations(params: URLSearchParams, contentType: string, text: string): string[] {
+  const size = params.has('parts') ? params.get('parts')!.split(',').reduce((a, b) => a + Number(b), 0) : Number(params.get('n'));
+  if ((params.get('style') ?? 'svg') === 'text') {
+    if (!contentType.startsWith('text/plain')) return [`text diagram answered with ${contentType}`];
+    const cells = (text.match(/#/g) ?? []).length;
+    return cells === size ? [] : [`text diagram has ${cells} cells, not ${size}`];
+  }
+  if (!contentType.startsWith('image/svg+xml')) return [`diagram answered with ${contentType}`];
+  if (!/^(<\?xml[^>]*>\s*)?<svg[\s>]/.test(text) || !text.trimEnd().endsWith('</svg>')) return ['diagram is not an SVG document'];
+  return [];
+}
+
+/** A distribution check: the statistics as JSON, or their plot as SVG. */
+function checkViolations(params: URLSearchParams, contentType: string, text: string): string[] {
+  if ((params.get('format') ?? 'json') === 'svg') {
+    return contentType.startsWith('image/svg+xml') && text.includes('<svg') ? [] : [`check plot answered with ${contentType}`];
+  }
+  try {
+    const body = JSON.parse(text);
+    // A family with one possible largest part leaves nothing to test: pValue and passed are null.
+    const degenerate = body.pValue === null && body.passed === null;
+    const ok = typeof body.statistic === 'number' && (degenerate || (typeof body.pValue === 'number' && body.pValue >= 0 && body.pValue <= 1)) && typeof body.test === 'string';
+    return ok ? [] : ['check body lacks statistic, pValue in [0, 1] or test'];
+  } catch {
+    return ['check body is not JSON'];
+  }
 }
