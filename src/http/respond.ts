@@ -22,7 +22,7 @@ export async function respondWithSamples<S>(
     'partsmith-method': job.sampler.method,
   };
   if (seeded) {
-    const etag = await strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, sortedQuery(query));
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) {
@@ -40,7 +40,7 @@ export async function respondWithSamples<S>(
 export async function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Promise<Response> {
   const headers: Record<string, string> = { 'content-type': 'application/json; charset=utf-8' };
   if (query) {
-    const etag = await strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, sortedQuery(query));
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });

@@ -31,7 +31,7 @@ export async function respondWithBody(
 ): Promise<Response> {
   const headers: Record<string, string> = { 'content-type': contentType, ...extraHeaders };
   if (query) {
-    const etag = await strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, sortedQuery(query));
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
