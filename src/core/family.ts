@@ -1,3 +1,6 @@
+/** The largest n of any family: one billion (samplers and counts are validated against it). */
+export const MAX_N = 1_000_000_000;
+
 /**
  * The families partsmith samples from. A family is a plain, normalised description of a set of
  * partitions or compositions of n; its canonical key seeds the random streams, so two requests

@@ -1,8 +1,9 @@
 import { EmptyFamilyError } from '../errors.js';
-import type { CompositionFamily } from '../family.js';
+import { MAX_N, type CompositionFamily } from '../family.js';
+import { gcd } from '../gcd.js';
 
 /** Largest n (and length) partsmith accepts for compositions. */
-export const MAX_COMPOSITION_N = 1_000_000_000;
+export const MAX_COMPOSITION_N = MAX_N;
 
 /**
  * The set a part may take: a contiguous range [min, max] or an explicit ascending list.
@@ -31,10 +32,7 @@ function checkInteger(name: string, value: unknown, min: number, max: number): n
   return value;
 }
 
-export function gcd(a: number, b: number): number {
-  while (b !== 0) [a, b] = [b, a % b];
-  return Math.abs(a);
-}
+export { gcd };
 
 /** Smallest and largest member of a part set. */
 export function partBounds(set: PartSet): { min: number; max: number } {

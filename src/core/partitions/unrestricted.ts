@@ -1,4 +1,5 @@
 import { LogPartitionNumbers } from '../counting/log-partition-number.js';
+import { MAX_N } from '../family.js';
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
@@ -6,7 +7,7 @@ import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable, TableRecursiveSampler } from './table-recursive.js';
 
 /** Largest n for the service's unrestricted partitions. */
-export const MAX_UNRESTRICTED_N = 1_000_000_000;
+export const MAX_UNRESTRICTED_N = MAX_N;
 
 /**
  * Up to this n the table method is used directly, and the self-similar recursion hands over to it

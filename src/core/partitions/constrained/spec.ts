@@ -1,4 +1,5 @@
-import type { PartitionFamily } from '../../family.js';
+import { MAX_N, type PartitionFamily } from '../../family.js';
+import { gcd } from '../../gcd.js';
 
 /**
  * A constrained partition family after validation, in the form the counting and sampling code
@@ -11,7 +12,7 @@ import type { PartitionFamily } from '../../family.js';
  * - length, maxLength: integers >= 0, not both;
  * - allowed: non-empty, at most 1000 distinct integers >= 1 (MAX_ALLOWED).
  */
-export const MAX_N = 1_000_000_000;
+export { MAX_N };
 export const MAX_ALLOWED = 1000;
 
 /** The sizes a part may take: an interval (hi may be < lo: no size) or an explicit list. */
@@ -124,10 +125,7 @@ export function largestSize(sizes: SizeSet): number {
   return sizes.kind === 'list' ? sizes.values[sizes.values.length - 1] : sizes.hi;
 }
 
-export function gcd(a: number, b: number): number {
-  while (b !== 0) [a, b] = [b, a % b];
-  return a;
-}
+export { gcd };
 
 /** gcd of the allowed sizes (1 for an interval of two or more sizes). */
 export function sizeGcd(sizes: SizeSet): number {
