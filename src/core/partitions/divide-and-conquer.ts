@@ -3,6 +3,7 @@ import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal, boltzmannLogX } from './boltzmann-proposal.js';
+import { uniformPartitionMeans } from './partition-means.js';
 
 /**
  * Probabilistic divide-and-conquer with the 1s determined (Arratia & DeSalvo 2016, §3.3):
@@ -34,9 +35,7 @@ export class DivideAndConquerSampler implements PartitionSampler {
     }
     this.logX = n === 0 ? -1 : boltzmannLogX(n);
     const s = Math.sqrt(6 * n) / Math.PI;
-    // Mean parts and distinct sizes of a uniform partition (Lambert-series asymptotics, see unrestricted.ts).
-    this.expectedLength = n === 0 ? 0 : s * (Math.log(s) + 0.5772156649015329) + 0.25;
-    this.expectedDistinct = n === 0 ? 0 : Math.max(1, s - 0.5);
+    ({ expectedLength: this.expectedLength, expectedDistinct: this.expectedDistinct } = uniformPartitionMeans(n));
     // ~4.0·n^{1/4} proposals of ~1.3·s visited sizes each (measured).
     this.expectedWork = n === 0 ? 1 : 4 * n ** 0.25 * (1.3 * s + 1);
   }

@@ -3,6 +3,7 @@ import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal, boltzmannLogX } from './boltzmann-proposal.js';
+import { uniformPartitionMeans } from './partition-means.js';
 
 /**
  * Baseline for the bench: whole Boltzmann proposals at x = exp(−π/√(6n)) until the size is
@@ -28,8 +29,7 @@ export class PlainRejectionSampler implements PartitionSampler {
     }
     this.logX = n === 0 ? -1 : boltzmannLogX(n);
     const s = Math.sqrt(6 * n) / Math.PI;
-    this.expectedLength = n === 0 ? 0 : s * (Math.log(s) + 0.5772156649015329) + 0.25;
-    this.expectedDistinct = n === 0 ? 0 : Math.max(1, s - 0.5);
+    ({ expectedLength: this.expectedLength, expectedDistinct: this.expectedDistinct } = uniformPartitionMeans(n));
     this.expectedWork = n === 0 ? 1 : 3.13 * n ** 0.75 * (1.3 * s + 1);
   }
 

@@ -3,6 +3,7 @@ import { MAX_N } from '../family.js';
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
+import { uniformPartitionMeans } from './partition-means.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable, TableRecursiveSampler } from './table-recursive.js';
 
@@ -42,9 +43,6 @@ export function unrestrictedPartitionSampler(n: number, options: UnrestrictedOpt
   return new SelfSimilarPlanned(n, tables);
 }
 
-/** Euler's constant γ. */
-const EULER_GAMMA = 0.5772156649015329;
-
 class SelfSimilarPlanned implements PartitionSampler {
   readonly method = 'self-similar/1';
   readonly expectedLength: number;
@@ -57,12 +55,8 @@ class SelfSimilarPlanned implements PartitionSampler {
     tables: UnrestrictedTables,
   ) {
     this.engine = new SelfSimilarEngine({ baseThreshold: TABLE_METHOD_UP_TO, table: tables.table, logP: tables.logP });
-    // With x = e^{−t}, t = π/√(6n): E[parts] ≈ Σ_k x^k/(1 − x^k) = (ln(1/t) + γ)/t + 1/4 + O(t)
-    // (Lambert series of the divisor function) and E[distinct sizes] ≈ Σ_k x^k = 1/t − 1/2 + O(t);
-    // both agree with the uniform law to leading order (Erdős & Lehner 1941; Fristedt 1993).
     const s = Math.sqrt(6 * n) / Math.PI;
-    this.expectedLength = s * (Math.log(s) + EULER_GAMMA) + 0.25;
-    this.expectedDistinct = s - 0.5;
+    ({ expectedLength: this.expectedLength, expectedDistinct: this.expectedDistinct } = uniformPartitionMeans(n));
     // Measured: the odd-size proposals of all levels visit about WORK_PER_S·s part sizes per
     // sample; the merge adds ~2 steps per distinct size, the table base case a bounded amount.
     this.expectedWork = WORK_PER_S * s + 2 * this.expectedDistinct + BASE_CASE_WORK;
