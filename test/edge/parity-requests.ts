@@ -76,6 +76,8 @@ const pictures: ParityRequest[] = [
   get('/v1/partitions/check?n=20&samples=300&seed=chk&format=svg'),
   get('/v1/partitions/check?n=30&samples=200&seed=chk&distinct=true'),
   get('/v1/partitions/check?n=30&samples=200&seed=chk&maxPart=6&format=svg'),
+  get('/v1/compositions/check?n=30&samples=300&seed=chk'),
+  get('/v1/compositions/check?n=30&samples=300&seed=chk&format=svg'),
 ];
 
 /** The page (seeded, so server-rendered identically) and its assets. */
@@ -137,6 +139,7 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/compositions?n=10&seed=x&as=multiplicities'),
   get('/v1/partitions/diagram?parts=3,1&n=4'),
   get('/v1/partitions/check?n=20&samples=0'),
+  get('/v1/compositions/check?n=20&maxPart=3'),
   get('/healthz?verbose=1'),
   // 404.
   get('/index.html'),
