@@ -85,6 +85,8 @@ const page: ParityRequest[] = [
   get('/'),
   get('/?family=partitions&n=12&count=3&seed=page&check=true&samples=300'),
   get('/?family=partitions&n=30&count=2&seed=page&maxPart=5'),
+  get('/?family=compositions&n=12&count=3&seed=page&check=true&samples=300'),
+  get('/?family=compositions&n=9&count=2&seed=page&length=4&minPart=0'),
   get('/?n=abc&count=4'),
   get('/assets/page.css'),
   get('/assets/page.js'),
