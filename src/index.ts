@@ -33,11 +33,7 @@ export type CountParams = (PartitionsCountParams & { kind?: 'partition' }) | (Co
 export interface Partsmith {
   /** Like GET /v1/partitions (format=json): the same document. */
   partitions(params: Sampling<PartitionsParams>): Promise<PartitionsDocument>;
-  /**
-   * Like GET /v1/compositions (format=json).
-   * TODO(compositions): served once the compositions endpoints are merged; until then it throws
-   * PartsmithError 404, exactly as the API answers.
-   */
+  /** Like GET /v1/compositions (format=json): the same document. */
   compositions(params: Sampling<CompositionsParams>): Promise<CompositionsDocument>;
   /** Like GET /v1/partitions/count or, with kind 'composition', /v1/compositions/count. */
   count(params: CountParams): Promise<CountDocument>;

@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import type { compositionsCountQuery, compositionsQuery } from '../http/schemas/compositions.js';
 import type { partitionsCountQuery, partitionsQuery } from '../http/schemas/partitions.js';
 
 /**
@@ -13,24 +14,8 @@ export type ParamsOf<S extends z.ZodType> = { [K in keyof z.input<S>]: K extends
 export type PartitionsParams = ParamsOf<typeof partitionsQuery>;
 export type PartitionsCountParams = ParamsOf<typeof partitionsCountQuery>;
 
-/**
- * TODO(compositions): replace with `ParamsOf<typeof compositionsQuery>` and
- * `ParamsOf<typeof compositionsCountQuery>` from `src/http/schemas/compositions.ts` once the
- * compositions endpoints are merged. Until then these restate the announced contract
- * (same sampling fields as partitions, as=parts only; constraints length, minPart, maxPart, allowed).
- */
-export interface CompositionsParams {
-  n: number;
-  count?: number;
-  seed?: string;
-  start?: number;
-  format?: 'json' | 'ndjson' | 'text';
-  length?: number;
-  minPart?: number;
-  maxPart?: number;
-  allowed?: number[];
-}
-export type CompositionsCountParams = Omit<CompositionsParams, 'count' | 'seed' | 'start' | 'format'>;
+export type CompositionsParams = ParamsOf<typeof compositionsQuery>;
+export type CompositionsCountParams = ParamsOf<typeof compositionsCountQuery>;
 
 /** The JSON document of a sampling endpoint (format=json). */
 export interface SamplesDocument<Sample> {

@@ -11,6 +11,7 @@ import { compositionsCountEndpoint, compositionsEndpoint } from './routes/compos
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';
 import { checkEndpoint } from './routes/check.js';
+import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { registerPage } from './routes/page.js';
 
@@ -51,6 +52,7 @@ export function createApp(options: AppOptions = {}): Hono {
     checkEndpoint as unknown as Endpoint,
     compositionsEndpoint as unknown as Endpoint,
     compositionsCountEndpoint as unknown as Endpoint,
+    compositionCheckEndpoint as unknown as Endpoint,
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );

@@ -103,6 +103,53 @@ describe.skipIf(!available)('the page in headless chromium', () => {
     await context.close();
   });
 
+  it('draws compositions: chosen in the form, one bargraph column per part, the binomial check and the real CLI and client snippets', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchConsole(page);
+    await page.goto(`${base}/`);
+    await page.getByLabel('Family').selectOption('compositions');
+    await page.getByLabel('Size n').fill('12');
+    await page.getByLabel('Samples', { exact: true }).fill('5');
+    await page.getByLabel('Seed').fill('browser-comp');
+    await page.getByLabel('Samples to check').fill('800');
+    await page.getByRole('button', { name: 'Draw' }).click();
+    await page.waitForURL(/family=compositions/);
+
+    const json = JSON.parse((await page.locator('#json-body').textContent()) ?? '');
+    expect(json.family).toEqual({ kind: 'composition', n: 12 });
+    // The page shows exactly the API's samples for the seed.
+    const api = await (await fetch(`${base}/v1/compositions?n=12&count=5&seed=browser-comp`)).json();
+    expect(json.samples).toEqual(api.samples);
+    const figures = page.locator('.diagrams figure');
+    await expect(figures.count()).resolves.toBe(5);
+    for (let i = 0; i < 5; i++) {
+      // One cell per unit, one size label per part, the parts in order in the caption.
+      await expect(figures.nth(i).locator('svg rect').count()).resolves.toBe(12);
+      await expect(figures.nth(i).locator('svg text.part-size').count()).resolves.toBe(api.samples[i].length);
+      await expect(figures.nth(i).locator('figcaption').textContent()).resolves.toBe(`#${i} ${api.samples[i].join(' + ')}`);
+      await expect(figures.nth(i).locator('svg').getAttribute('aria-label')).resolves.toContain(`Composition ${api.samples[i].join(' + ')}`);
+    }
+    await expect(page.locator('#samples-title').textContent()).resolves.toBe('5 compositions of 12');
+    await expect(page.locator('#snippet-curl').textContent()).resolves.toBe(`curl '${base}/v1/compositions?n=12&count=5&seed=browser-comp'`);
+    await expect(page.locator('#snippet-cli').textContent()).resolves.toBe('partsmith compositions --n 12 --count 5 --seed browser-comp');
+    const client = (await page.locator('#snippet-client').textContent()) ?? '';
+    expect(client).toContain(`import { createClient } from 'partsmith/client';`);
+    expect(client).toContain(`await client.compositions({ n: 12, count: 5, seed: 'browser-comp' })`);
+    await expect(page.locator('.plots svg').count()).resolves.toBe(1);
+    await expect(page.locator('.verdict').textContent()).resolves.toContain('Consistent with uniform');
+    await page.screenshot({ path: join(ARTIFACTS, 'page-compositions.png'), fullPage: true });
+
+    // Weak compositions with kebab-case CLI flags; a partitions-only constraint is reported, not ignored.
+    await page.goto(`${base}/?family=compositions&n=7&count=3&seed=weak&length=4&minPart=0&maxPart=3`);
+    await expect(page.locator('#snippet-cli').textContent()).resolves.toBe('partsmith compositions --n 7 --count 3 --min-part 0 --max-part 3 --length 4 --seed weak');
+    await expect(page.locator('.diagrams figure svg rect').count()).resolves.toBe(21);
+    await page.goto(`${base}/?family=compositions&n=7&count=3&maxLength=2`);
+    await expect(page.locator('#maxLength-error').textContent()).resolves.toContain('applies to partitions only');
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
   it('is readable on a phone and reports form errors next to their fields', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
     const page = await context.newPage();

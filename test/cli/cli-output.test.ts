@@ -38,6 +38,17 @@ describe.concurrent('partsmith CLI output equals the API body', () => {
     ],
     ['count', ['count', '--n', '100'], '/v1/partitions/count?n=100'],
     ['count partitions', ['count', 'partitions', '--n', '7'], '/v1/partitions/count?n=7'],
+    ['compositions, text, exact length', ['compositions', '--n', '20', '--length', '4', '--seed', 'demo', '--format', 'text'], '/v1/compositions?n=20&length=4&seed=demo&format=text'],
+    ['compositions, json', ['compositions', '--n', '12', '--count', '5', '--seed', 'demo'], '/v1/compositions?n=12&count=5&seed=demo'],
+    [
+      'compositions, ndjson, weak with kebab-case bounds',
+      ['compositions', '--n', '9', '--count', '6', '--seed', 'w', '--length', '4', '--min-part', '0', '--max-part', '5', '--format', 'ndjson'],
+      '/v1/compositions?n=9&count=6&seed=w&length=4&minPart=0&maxPart=5&format=ndjson',
+    ],
+    ['compositions, allowed sizes', ['compositions', '--n', '15', '--count', '3', '--seed', 'a', '--allowed', '1,3,4', '--format', 'text'], '/v1/compositions?n=15&count=3&seed=a&allowed=1,3,4&format=text'],
+    ['count compositions', ['count', 'compositions', '--n', '10'], '/v1/compositions/count?n=10'],
+    ['count compositions with constraints', ['count', 'compositions', '--n', '10', '--allowed', '1,2'], '/v1/compositions/count?n=10&allowed=1,2'],
+    ['constrained partitions, kebab-case flags', ['partitions', '--n', '30', '--count', '3', '--seed', 'k', '--max-part', '6', '--max-length', '9', '--format', 'text'], '/v1/partitions?n=30&count=3&seed=k&maxPart=6&maxLength=9&format=text'],
   ];
   for (const [name, args, path] of cases) {
     it(`${name} (runCli in-process, local and --url)`, async () => {
@@ -47,6 +58,18 @@ describe.concurrent('partsmith CLI output equals the API body', () => {
       }
     });
   }
+
+  it('compositions as a child process: --n 20 --length 4 --seed demo --format text is the API body byte for byte', async () => {
+    const [text, counted] = await Promise.all([
+      runBin(['compositions', '--n', '20', '--length', '4', '--seed', 'demo', '--format', 'text']),
+      runBin(['count', 'compositions', '--n', '10']),
+    ]);
+    expect(text).toEqual({ code: 0, stdout: await apiBody('/v1/compositions?n=20&length=4&seed=demo&format=text'), stderr: '' });
+    expect(text.stdout.trim().split(' ').map(Number).reduce((a, b) => a + b, 0)).toBe(20);
+    expect(counted).toEqual({ code: 0, stdout: await apiBody('/v1/compositions/count?n=10'), stderr: '' });
+    // Compositions of 10: 2^9 = 512 (OEIS A011782).
+    expect(JSON.parse(counted.stdout).count).toBe('512');
+  });
 
   it('text with --out FILE, as a child process: the body goes to the file, nothing to stdout', async () => {
     const file = join(dir, 'samples.txt');

@@ -42,6 +42,47 @@ describe('client against the real app', () => {
     expect(Object.keys(spec.paths as object)).toContain('/v1/partitions');
   });
 
+  it('compositions() and streamCompositions() return the service document and records, constraints included', async () => {
+    const doc = await client.compositions({ n: 20, count: 6, seed: 'client-comp', length: 4, maxPart: 9 });
+    expect(JSON.stringify(doc)).toBe(await direct('/v1/compositions?n=20&count=6&seed=client-comp&length=4&maxPart=9&format=json'));
+    for (const parts of doc.samples) {
+      expect(parts).toHaveLength(4);
+      expect(parts.reduce((a, b) => a + b, 0)).toBe(20);
+      expect(Math.max(...parts)).toBeLessThanOrEqual(9);
+    }
+    const weak = await client.compositions({ n: 5, count: 40, seed: 'weak', length: 3, minPart: 0 });
+    expect(weak.samples.some((parts) => parts.includes(0))).toBe(true);
+    const lines = [];
+    for await (const line of client.streamCompositions({ n: 12, count: 50, seed: 'client-comp', allowed: [1, 3, 4] })) lines.push(`${JSON.stringify(line)}\n`);
+    expect(lines.join('')).toBe(await direct('/v1/compositions?n=12&count=50&seed=client-comp&allowed=1,3,4&format=ndjson'));
+  });
+
+  it('countPartitions() and countCompositions() give exact counts, with constraints', async () => {
+    // Compositions of 10: 2^9 = 512 (OEIS A011782).
+    expect(await client.countCompositions({ n: 10 })).toEqual({ family: { kind: 'composition', n: 10 }, count: '512' });
+    // Compositions of 10 into parts 1 and 2: Fibonacci F(11) = 89 (OEIS A000045).
+    expect((await client.countCompositions({ n: 10, allowed: [1, 2] })).count).toBe('89');
+    // Compositions of 10 into 4 parts: C(9, 3) = 84 (OEIS A007318, Pascal's triangle).
+    expect((await client.countCompositions({ n: 10, length: 4 })).count).toBe('84');
+    // Weak compositions of 10 into 3 parts: C(12, 2) = 66 (OEIS A000217, triangular numbers).
+    expect((await client.countCompositions({ n: 10, length: 3, minPart: 0 })).count).toBe('66');
+    // Partitions of 30 into distinct parts: 296 (OEIS A000009, value from memory).
+    expect((await client.countPartitions({ n: 30, distinct: true })).count).toBe('296');
+    // Partitions of 20 into at most 4 parts (= parts at most 4): 108 (OEIS A001400, value from memory).
+    expect((await client.countPartitions({ n: 20, maxPart: 4 })).count).toBe('108');
+    // @ts-expect-error n is required: the type comes from the zod schema.
+    await expect(client.countCompositions({ length: 3 })).rejects.toBeInstanceOf(PartsmithError);
+  });
+
+  it('a composition family the service refuses surfaces as a 400 or 422 PartsmithError', async () => {
+    const weakWithoutLength = (await client.compositions({ n: 10, seed: 'x', minPart: 0 }).catch((e: unknown) => e)) as PartsmithError;
+    expect(weakWithoutLength.status).toBe(400);
+    expect(weakWithoutLength.errors.map((e) => e.param)).toEqual(['minPart']);
+    const empty = (await client.compositions({ n: 7, seed: 'x', allowed: [2, 4] }).catch((e: unknown) => e)) as PartsmithError;
+    expect(empty.status).toBe(422);
+    expect(empty.detail).toContain('{2, 4}');
+  });
+
   it('surfaces problem documents as PartsmithError with the problem fields', async () => {
     const error = await client.partitions({ n: 10, seed: 'x', length: 2, maxLength: 3 }).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(PartsmithError);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compositions, count, createPartsmith, partitions, PartsmithError, streamPartitions } from 'partsmith';
+import { compositions, count, createPartsmith, partitions, PartsmithError, streamCompositions, streamPartitions } from 'partsmith';
 import { createApp } from '../../src/http/app.js';
 
 /**
@@ -52,15 +52,22 @@ describe('library partitions/count', () => {
   });
 });
 
-// TODO(compositions): runs by itself once GET /v1/compositions is merged (until then the API,
-// and so the library, answers 404 and this block is skipped).
-const compositionsServed = (await service('/v1/compositions?n=3&seed=probe')).status === 200;
-describe.skipIf(!compositionsServed)('library compositions', () => {
+describe('library compositions', () => {
   it('compositions() returns the API document; count() gives 2^(n-1)', async () => {
     const doc = await compositions({ n: 10, count: 30, seed: 'lib-comp' });
     expect(JSON.stringify(doc)).toBe((await service('/v1/compositions?n=10&count=30&seed=lib-comp')).text);
     for (const parts of doc.samples) expect(parts.reduce((a, b) => a + b, 0)).toBe(10);
     // Compositions of 10: 2^9 = 512 (OEIS A011782).
     expect((await count({ kind: 'composition', n: 10 })).count).toBe('512');
+  });
+
+  it('constrained compositions and their counts equal the API answers', async () => {
+    const doc = await compositions({ n: 20, count: 8, seed: 'lib-comp', length: 4, minPart: 0, maxPart: 8 });
+    expect(JSON.stringify(doc)).toBe((await service('/v1/compositions?n=20&count=8&seed=lib-comp&length=4&minPart=0&maxPart=8')).text);
+    const lines: string[] = [];
+    for await (const record of streamCompositions({ n: 15, count: 20, seed: 'lib-comp', allowed: [1, 2] })) lines.push(`${JSON.stringify(record)}\n`);
+    expect(lines.join('')).toBe((await service('/v1/compositions?n=15&count=20&seed=lib-comp&allowed=1,2&format=ndjson')).text);
+    // Compositions of 15 into 1s and 2s: Fibonacci F(16) = 987 (OEIS A000045).
+    expect((await count({ kind: 'composition', n: 15, allowed: [1, 2] })).count).toBe('987');
   });
 });

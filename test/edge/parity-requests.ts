@@ -4,9 +4,8 @@
  *
  * ONE list on purpose: extend it here when an endpoint, a family or a format is added. Every
  * request that returns samples is seeded, so the answer is a pure function of the request.
- * Requests for families that are not served yet (constrained partitions, compositions) are
- * included too: today they are 422/404 everywhere, after the samplers land they are 200
- * everywhere, and parity is checked either way.
+ * `SERVED` lists the requests that must answer 200 (every family and picture the service
+ * offers); the rest are the error cases (400, 404, 405, 422).
  */
 export interface ParityRequest {
   /** Path and query, e.g. "/v1/partitions?n=10&seed=a". */
@@ -17,21 +16,90 @@ export interface ParityRequest {
 }
 
 const get = (path: string): ParityRequest => ({ path });
+const FORMATS = ['json', 'ndjson', 'text'] as const;
 
 /** Unrestricted partitions of small and medium n, every format and representation. */
 const partitionSamples: ParityRequest[] = [];
 for (const n of [0, 1, 2, 7, 20, 100, 1000]) {
-  for (const format of ['json', 'ndjson', 'text'] as const) {
-    partitionSamples.push(get(`/v1/partitions?n=${n}&count=5&seed=parity-${n}&format=${format}`));
-  }
+  for (const format of FORMATS) partitionSamples.push(get(`/v1/partitions?n=${n}&count=5&seed=parity-${n}&format=${format}`));
 }
-for (const format of ['json', 'ndjson', 'text'] as const) {
+for (const format of FORMATS) {
   partitionSamples.push(get(`/v1/partitions?n=60&count=4&seed=mult&as=multiplicities&format=${format}`));
   partitionSamples.push(get(`/v1/partitions?n=60&count=4&seed=mult&as=parts&start=1000000&format=${format}`));
 }
 
-export const PARITY_REQUESTS: readonly ParityRequest[] = [
+/** Every partition constraint on its own and combined, each with its count. */
+const PARTITION_CONSTRAINTS = ['distinct=true', 'minPart=3', 'maxPart=4', 'length=5', 'maxLength=6', 'allowed=1,2,5,10', 'minPart=2&maxPart=9&maxLength=6', 'distinct=true&allowed=1,2,3,5,8,13'];
+const constrainedPartitions: ParityRequest[] = [];
+PARTITION_CONSTRAINTS.forEach((constraint, k) => {
+  const format = FORMATS[k % FORMATS.length];
+  constrainedPartitions.push(get(`/v1/partitions?n=30&count=3&seed=c&${constraint}&format=${format}`));
+  constrainedPartitions.push(get(`/v1/partitions/count?n=30&${constraint}`));
+});
+constrainedPartitions.push(get('/v1/partitions?n=30&count=3&seed=c&length=5&as=multiplicities'));
+constrainedPartitions.push(get('/v1/partitions?n=2000&count=2&seed=c&distinct=true&format=ndjson'));
+constrainedPartitions.push(get('/v1/partitions?n=400&count=2&seed=c&maxPart=10&minPart=2&format=text'));
+
+/** Compositions: unrestricted, exact length, weak (minPart=0), bounded, allowed sizes; every format; counts. */
+const COMPOSITION_CONSTRAINTS = ['', 'length=4', 'length=5&minPart=0', 'maxPart=3', 'allowed=1,3,4', 'minPart=2&maxPart=5', 'length=4&allowed=2,5,7'];
+const compositions: ParityRequest[] = [];
+COMPOSITION_CONSTRAINTS.forEach((constraint, k) => {
+  const extra = constraint ? `&${constraint}` : '';
+  compositions.push(get(`/v1/compositions/count?n=20${extra}`));
+  if (k < 2) {
+    for (const format of FORMATS) compositions.push(get(`/v1/compositions?n=20&count=4&seed=comp${extra}&format=${format}`));
+  } else {
+    compositions.push(get(`/v1/compositions?n=20&count=4&seed=comp${extra}&format=${FORMATS[k % FORMATS.length]}`));
+  }
+});
+compositions.push(
+  get('/v1/compositions?n=0&count=2&seed=comp'),
+  get('/v1/compositions?n=20&count=4&seed=comp&length=4&format=text&start=999'),
+  get('/v1/compositions?n=100000&count=1&seed=big&format=ndjson'),
+  get('/v1/compositions?n=3000&count=2&seed=big&maxPart=4&format=text'),
+  get('/v1/compositions/count?n=10'),
+  get('/v1/compositions/count?n=1000&allowed=1,2'),
+  { path: '/v1/compositions?n=9&count=2&seed=head', method: 'HEAD' },
+);
+
+/** Pictures: Ferrers diagrams (svg, text, conjugate; parts= and n/seed/index), distribution checks (json, svg). */
+const pictures: ParityRequest[] = [
+  get('/v1/partitions/diagram?parts=5,4,1,1'),
+  get('/v1/partitions/diagram?parts=5,4,1,1&style=text'),
+  get('/v1/partitions/diagram?parts=1,4,1,5&conjugate=true'),
+  get('/v1/partitions/diagram?parts=6,3,3,2&conjugate=true&style=text'),
+  get('/v1/partitions/diagram?n=20&seed=d&index=3'),
+  get('/v1/partitions/diagram?n=20&seed=d&index=3&style=text'),
+  get('/v1/partitions/diagram?n=40&seed=d&index=7&distinct=true&conjugate=true'),
+  get('/v1/partitions/diagram?n=30&seed=d&maxPart=5&length=8&style=text'),
+  get('/v1/partitions/check?n=20&samples=300&seed=chk'),
+  get('/v1/partitions/check?n=20&samples=300&seed=chk&format=svg'),
+  get('/v1/partitions/check?n=30&samples=200&seed=chk&distinct=true'),
+  get('/v1/partitions/check?n=30&samples=200&seed=chk&maxPart=6&format=svg'),
+  get('/v1/compositions/check?n=30&samples=300&seed=chk'),
+  get('/v1/compositions/check?n=30&samples=300&seed=chk&format=svg'),
+];
+
+/** The page (seeded, so server-rendered identically) and its assets. */
+const page: ParityRequest[] = [
+  get('/'),
+  get('/?family=partitions&n=12&count=3&seed=page&check=true&samples=300'),
+  get('/?family=partitions&n=30&count=2&seed=page&maxPart=5'),
+  get('/?family=compositions&n=12&count=3&seed=page&check=true&samples=300'),
+  get('/?family=compositions&n=9&count=2&seed=page&length=4&minPart=0'),
+  get('/?n=abc&count=4'),
+  get('/assets/page.css'),
+  get('/assets/page.js'),
+  get('/favicon.ico'),
+];
+
+/** Requests that must answer 200 on every runtime. */
+export const SERVED: readonly ParityRequest[] = [
   ...partitionSamples,
+  ...constrainedPartitions,
+  ...compositions,
+  ...pictures,
+  ...page,
   // Defaults (count=1, start=0, format=json), a long seed with every allowed character, parameter order.
   get('/v1/partitions?n=30&seed=default'),
   get('/v1/partitions?seed=A-z.0_9~:x&n=30&count=2'),
@@ -39,32 +107,23 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get(`/v1/partitions?n=12&count=3&seed=${'s'.repeat(64)}`),
   // Large n and a body over the 64 KiB streaming chunk (several chunks).
   get('/v1/partitions?n=5000&count=2&seed=big&format=ndjson'),
+  get('/v1/partitions?n=100000&count=1&seed=big'),
   get('/v1/partitions?n=40&count=4000&seed=chunks&format=text'),
   get('/v1/partitions?n=40&count=3000&seed=chunks&format=json&start=17'),
   // HEAD: headers only.
   { path: '/v1/partitions?n=25&count=3&seed=head', method: 'HEAD' },
-  // Constrained families (422 "not available yet" until the constrained samplers are merged).
-  get('/v1/partitions?n=30&count=3&seed=c&distinct=true'),
-  get('/v1/partitions?n=30&count=3&seed=c&maxPart=4&format=ndjson'),
-  get('/v1/partitions?n=30&count=3&seed=c&minPart=2&maxLength=6&format=text'),
-  get('/v1/partitions?n=30&count=3&seed=c&length=5&as=multiplicities'),
-  get('/v1/partitions?n=30&count=3&seed=c&allowed=1,2,5,10'),
-  get('/v1/partitions?n=7&count=3&seed=c&allowed=2,4'),
   // Counts.
   get('/v1/partitions/count?n=0'),
   get('/v1/partitions/count?n=100'),
   get('/v1/partitions/count?n=5000'),
   get('/v1/partitions/count?n=50001'),
-  get('/v1/partitions/count?n=30&distinct=true'),
-  get('/v1/partitions/count?n=30&maxPart=5&length=4'),
-  // Compositions (404 until the compositions endpoints are merged, then samples).
-  get('/v1/compositions?n=10&count=4&seed=comp'),
-  get('/v1/compositions?n=10&count=4&seed=comp&format=ndjson'),
-  get('/v1/compositions?n=10&count=4&seed=comp&format=text&length=3'),
-  get('/v1/compositions/count?n=10'),
   // Meta.
   get('/healthz'),
   get('/openapi.json'),
+];
+
+export const PARITY_REQUESTS: readonly ParityRequest[] = [
+  ...SERVED,
   // 400: missing, malformed, unknown, repeated parameters, bad seed, bad enum, length with maxLength.
   get('/v1/partitions'),
   get('/v1/partitions?n=&seed=x'),
@@ -78,16 +137,25 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions?n=10&seed=x&count=10001'),
   get('/v1/partitions?n=10&seed=x&length=2&maxLength=3'),
   get('/v1/partitions/count?n=10&seed=x'),
+  get('/v1/compositions?n=10&seed=x&minPart=0'),
+  get('/v1/compositions?n=10&seed=x&as=multiplicities'),
+  get('/v1/partitions/diagram?parts=3,1&n=4'),
+  get('/v1/partitions/check?n=20&samples=0'),
+  get('/v1/compositions/check?n=20&maxPart=3'),
   get('/healthz?verbose=1'),
   // 404.
-  get('/'),
+  get('/index.html'),
   get('/v1/partition?n=10'),
   get('/v2/partitions?n=10'),
   // 405 (with Allow).
   { path: '/v1/partitions?n=10&seed=x', method: 'POST' },
   { path: '/v1/partitions/count?n=10', method: 'DELETE' },
+  { path: '/v1/compositions?n=10&seed=x', method: 'PUT' },
   { path: '/healthz', method: 'PUT' },
-  // 422: over the interim sampler's n, over the index limit.
-  get('/v1/partitions?n=100000&seed=x'),
+  { path: '/', method: 'POST' },
+  // 422: empty families, contradictory bounds, over the index limit, over the count limit of a count.
+  get('/v1/partitions?n=7&count=3&seed=c&allowed=2,4'),
+  get('/v1/partitions?n=10&seed=x&minPart=6&maxPart=4'),
+  get('/v1/compositions?n=7&seed=x&allowed=2,4&length=2'),
   get('/v1/partitions?n=10&seed=x&start=1000000000000000&count=2'),
 ];

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PARITY_REQUESTS, type ParityRequest } from './parity-requests.js';
+import { PARITY_REQUESTS, SERVED, type ParityRequest } from './parity-requests.js';
 import { inProcessRuntime, nodeRuntime, workerRuntime, type Answer, type Runtime } from './runtimes.js';
 
 /**
@@ -40,19 +40,31 @@ describe('runtime parity: in-process, Node server, workerd', () => {
 
   it('has at least 50 requests covering every endpoint, format and error status', () => {
     expect(PARITY_REQUESTS.length).toBeGreaterThanOrEqual(50);
-    const paths = new Set(PARITY_REQUESTS.map((r) => r.path.split('?')[0]));
-    for (const path of ['/v1/partitions', '/v1/partitions/count', '/healthz', '/openapi.json']) expect(paths).toContain(path);
+    const servedAt = (path: string) => SERVED.filter((r) => r.path.split('?')[0] === path).map((r) => r.path);
+    const endpoints = ['/v1/partitions', '/v1/partitions/count', '/v1/compositions', '/v1/compositions/count', '/v1/partitions/diagram', '/v1/partitions/check', '/v1/compositions/check', '/healthz', '/openapi.json'];
+    for (const path of [...endpoints, '/', '/assets/page.css', '/assets/page.js', '/favicon.ico']) expect(servedAt(path).length, path).toBeGreaterThan(0);
+    // Every constraint answered with samples and with a count.
+    for (const path of ['/v1/partitions', '/v1/partitions/count']) {
+      for (const param of ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed']) expect(servedAt(path).some((p) => p.includes(`&${param}=`)), `${path} ${param}`).toBe(true);
+    }
+    for (const path of ['/v1/compositions', '/v1/compositions/count']) {
+      for (const param of ['length', 'minPart=0', 'maxPart', 'allowed']) expect(servedAt(path).some((p) => p.includes(`&${param}`)), `${path} ${param}`).toBe(true);
+    }
+    for (const needle of ['style=text', 'conjugate=true', 'parts=', 'index=']) expect(servedAt('/v1/partitions/diagram').some((p) => p.includes(needle)), needle).toBe(true);
+    expect(servedAt('/v1/partitions/check').some((p) => p.includes('format=svg'))).toBe(true);
     for (const format of ['json', 'ndjson', 'text']) expect(PARITY_REQUESTS.some((r) => r.path.includes(`format=${format}`))).toBe(true);
     expect(PARITY_REQUESTS.some((r) => r.path.includes('as=multiplicities'))).toBe(true);
   });
 
   it('answers every request identically: status, body bytes, key headers', async () => {
     const statuses = new Set<number>();
+    const served = new Set(SERVED);
     for (const request of PARITY_REQUESTS) {
       const init = { method: request.method, headers: request.headers ? { ...request.headers } : undefined };
       const answers = await Promise.all(runtimes.map((r) => r.send(request.path, init)));
       const [reference, ...others] = answers;
       statuses.add(reference.status);
+      if (served.has(request)) expect(reference.status, `${label(request)}: ${reference.body.toString('utf8').slice(0, 300)}`).toBe(200);
       others.forEach((answer, k) => {
         const where = `${runtimes[k + 1].name} vs ${runtimes[0].name}: ${label(request)}`;
         expect(answer.status, where).toBe(reference.status);

@@ -117,7 +117,11 @@ export async function nodeRuntime(): Promise<Runtime> {
     async send(path, init = {}) {
       // The same Host as the other runtimes' URLs, so pages that print their own address agree.
       const headers = { host: new URL(BASE).host, ...init.headers };
-      const response = await request(server.url + path, { method: (init.method ?? 'GET') as 'GET', headers, dispatcher: agent });
+      // reset: one connection per request. The in-process runtime shares this thread and can
+      // block it for seconds (an exact count of p(50001)), so undici's idle-socket timer fires
+      // late, after the server has closed the socket at its 5 s keep-alive timeout: reusing it
+      // failed with "other side closed" under load.
+      const response = await request(server.url + path, { method: (init.method ?? 'GET') as 'GET', headers, dispatcher: agent, reset: true });
       const answerHeaders: Record<string, string> = {};
       for (const [key, value] of Object.entries(response.headers)) {
         if (value !== undefined) answerHeaders[key.toLowerCase()] = Array.isArray(value) ? value.join(', ') : value;

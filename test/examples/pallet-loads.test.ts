@@ -4,38 +4,41 @@ import { loadTrucks } from './pallet-loads.js';
 
 /**
  * Property test of loadTrucks with partsmith fixtures. A day's orders are a multiset of
- * order sizes summing to the pallets on the dock: a partition of n. Drawing the partitions
- * exactly uniformly (seeded, so a failure replays) exercises the typical days and, because
- * every partition is equally likely, the odd ones too: one huge order, all single pallets,
- * orders of exactly the capacity. The fixtures come from the in-process library, so the same
- * seed gives the same days as `GET /v1/partitions?n=...&seed=...` or `partsmith partitions`.
+ * order sizes summing to the pallets on the dock: a partition of n. The warehouse takes no
+ * order larger than a truck, so a day is a partition of n with largest part at most the
+ * capacity (`maxPart: CAPACITY`): the fixtures are exactly the days that can happen, nothing
+ * is filtered or clipped afterwards. Drawing them exactly uniformly (seeded, so a failure
+ * replays) exercises the typical days and, because every such partition is equally likely, the
+ * odd ones too: all single pallets, many orders of exactly the capacity. The fixtures come from
+ * the in-process library, so the same seed gives the same days as
+ * `GET /v1/partitions?n=...&maxPart=26&seed=...` or `partsmith partitions --max-part 26 ...`.
+ * (Orders over the capacity, which loadTrucks also splits, are covered by the fixed cases.)
  */
 const CAPACITY = 26;
 
 async function fixture(n: number, count: number, seed: string): Promise<number[][]> {
-  const doc: PartitionsDocument = await partitions({ n, count, seed });
+  const doc: PartitionsDocument = await partitions({ n, count, seed, maxPart: CAPACITY });
   return doc.samples as number[][];
 }
 
 describe('loadTrucks on uniformly random days of orders', () => {
-  it('ships every pallet, never overloads a truck, keeps orders that fit whole, and wastes at most one half-empty truck', async () => {
+  it('ships every pallet, never overloads a truck, keeps every order whole, and wastes at most one half-empty truck', async () => {
     const days = [...(await fixture(60, 200, 'pallets-60')), ...(await fixture(250, 100, 'pallets-250')), ...(await fixture(7, 15, 'pallets-7'))];
     expect(days).toHaveLength(315);
     for (const orders of days) {
       const n = orders.reduce((a, b) => a + b, 0);
       const trucks = loadTrucks(orders, CAPACITY);
       const where = `orders ${orders.join(' ')}`;
+      // The fixture family: no order exceeds a truck.
+      expect(Math.max(0, ...orders), where).toBeLessThanOrEqual(CAPACITY);
       // Conservation: every pallet leaves, on exactly one truck.
       expect(trucks.reduce((a, t) => a + t.pallets, 0), where).toBe(n);
       for (const truck of trucks) {
         expect(truck.pallets, where).toBeLessThanOrEqual(CAPACITY);
         expect(truck.loads.reduce((a, b) => a + b, 0), where).toBe(truck.pallets);
       }
-      // Orders that fit travel whole: the multiset of loads of size < capacity equals the
-      // remainders order % capacity (an order > capacity fills whole trucks first).
-      const remainders = orders.map((o) => o % CAPACITY).filter((r) => r > 0).sort((a, b) => a - b);
-      const partial = trucks.flatMap((t) => t.loads).filter((l) => l < CAPACITY).sort((a, b) => a - b);
-      expect(partial, where).toEqual(remainders);
+      // Every order fits a truck, so every order travels whole: the loads are the orders.
+      expect(trucks.flatMap((t) => t.loads).sort((a, b) => a - b), where).toEqual([...orders].sort((a, b) => a - b));
       // Lower bound: no plan uses fewer than ceil(n / capacity) trucks.
       expect(trucks.length, where).toBeGreaterThanOrEqual(Math.ceil(n / CAPACITY));
       // First fit never leaves two trucks each at most half full: the later truck's first
@@ -45,8 +48,10 @@ describe('loadTrucks on uniformly random days of orders', () => {
   });
 
   it('handles the extreme days every uniform draw eventually produces', () => {
-    // The two extreme partitions of 60: one order of 60, and sixty single pallets.
+    // One order over the capacity (outside the fixture family: loadTrucks splits it into full
+    // trucks and a remainder), and the other extreme, sixty single pallets.
     expect(loadTrucks([60], CAPACITY).map((t) => t.pallets)).toEqual([26, 26, 8]);
+    expect(loadTrucks([60, 30, 5], CAPACITY).flatMap((t) => t.loads)).toEqual([26, 26, 26, 8, 5, 4]);
     expect(loadTrucks(Array(60).fill(1), CAPACITY).map((t) => t.pallets)).toEqual([26, 26, 8]);
     // The empty partition of 0: no orders, no trucks.
     expect(loadTrucks([], CAPACITY)).toEqual([]);

@@ -36,8 +36,8 @@ export interface CompositionPartsReport {
  * Chi-square test of the numbers of parts of samples claimed to be uniform compositions of n
  * (unconstrained) against 1 + Binomial(n − 1, 1/2). Takes the part counts, not the compositions,
  * so any sampler (or a deliberately biased one, in the tests) can be fed through it.
- * TODO(compositions): the route GET /v1/compositions/check belongs after the compositions
- * sampler is merged; it should feed `sampler.sample(sampleSource(seed, i, familyKey(family))).length`.
+ * GET /v1/compositions/check (src/http/routes/composition-check.ts) feeds it the lengths of
+ * `sampler.sample(sampleSource(seed, i, familyKey(family)))`, the very samples the API returns.
  */
 export function checkCompositionParts(n: number, partCounts: Iterable<number>): CompositionPartsReport {
   const law = compositionPartsLaw(n);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { checkQuery } from '../schemas/check.js';
+import { compositionsQuery, type CompositionsQuery } from '../schemas/compositions.js';
 import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js';
 
 /**
@@ -8,9 +9,10 @@ import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js'
  * blank fields are simply absent and unknown parameters are ignored.
  */
 
-/** A family the page offers. Adding compositions is one more entry here (and its sampler in render). */
+/** A family the page offers: one entry here, its sampler and drawing in render. */
 export interface PageFamily {
-  readonly value: string;
+  readonly value: 'partitions' | 'compositions';
+  readonly kind: 'partition' | 'composition';
   readonly label: string;
   /** Path of the sampling endpoint, e.g. /v1/partitions. */
   readonly apiPath: string;
@@ -23,9 +25,12 @@ export interface PageFamily {
 export type ConstraintName = 'distinct' | 'minPart' | 'maxPart' | 'length' | 'maxLength' | 'allowed';
 
 export const PAGE_FAMILIES: readonly PageFamily[] = [
-  { value: 'partitions', label: 'Partitions', apiPath: '/v1/partitions', command: 'partitions', constraints: ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] },
-  // TODO(compositions): { value: 'compositions', label: 'Compositions', apiPath: '/v1/compositions', command: 'compositions', constraints: ['minPart', 'maxPart', 'length', 'allowed'] },
+  { value: 'partitions', kind: 'partition', label: 'Partitions', apiPath: '/v1/partitions', command: 'partitions', constraints: ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] },
+  { value: 'compositions', kind: 'composition', label: 'Compositions', apiPath: '/v1/compositions', command: 'compositions', constraints: ['minPart', 'maxPart', 'length', 'allowed'] },
 ];
+
+/** The sampling endpoint's query: the same schema, and so the same rules, as the API's. */
+export type PageQuery = PartitionsQuery | CompositionsQuery;
 
 /** Every field of the form, in the order they appear in URLs and snippets. */
 export const FIELD_NAMES = ['family', 'n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'check', 'samples'] as const;
@@ -43,8 +48,8 @@ export interface FormState {
   readonly values: Partial<Record<FieldName, string>>;
   readonly errors: Partial<Record<FieldName, string>>;
   readonly family: PageFamily;
-  /** The API query (seed may still be absent) when the form is valid. */
-  readonly query: PartitionsQuery | null;
+  /** The API query of `family` (seed may still be absent) when the form is valid. */
+  readonly query: PageQuery | null;
   /** The API parameters as typed, for URLs and snippets, in a fixed order. */
   readonly apiParams: [string, string][];
   readonly check: boolean;
@@ -68,13 +73,17 @@ export function readForm(url: URL): FormState {
   for (const name of API_FIELDS) {
     const value = values[name];
     if (value === undefined) continue;
-    if (name === 'distinct') {
-      if (value === 'true') apiParams.push([name, 'true']);
+    if (name === 'distinct' && value !== 'true') continue;
+    // A constraint the family does not have is an error, not silently dropped: the samples
+    // would otherwise not be what the form says.
+    if (isConstraint(name) && !family.constraints.includes(name)) {
+      errors[name] = `applies to ${PAGE_FAMILIES.filter((f) => f.constraints.includes(name)).map((f) => f.value).join(' and ')} only`;
       continue;
     }
     apiParams.push([name, value]);
   }
-  const parsed = partitionsQuery.safeParse(Object.fromEntries(apiParams));
+  const schema = family.kind === 'composition' ? compositionsQuery : partitionsQuery;
+  const parsed = schema.safeParse(Object.fromEntries(apiParams));
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const field = String(issue.path[0] ?? 'n') as FieldName;
@@ -90,6 +99,10 @@ export function readForm(url: URL): FormState {
   }
   const valid = Object.keys(errors).length === 0;
   return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check, samples };
+}
+
+function isConstraint(name: string): name is ConstraintName {
+  return ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'].includes(name);
 }
 
 /** A query string from ordered pairs (URL-encoded, ready to paste). */

@@ -1,17 +1,23 @@
+import { planCompositionSampler } from '../../core/compositions/plan.js';
 import { familyKey } from '../../core/family.js';
-import { lengthOf, partsOf, type Partition } from '../../core/partition.js';
+import { partsOf } from '../../core/partition.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { CHECK_ALPHA } from '../../core/pictures/check.js';
 import { boundarySvg, formatP, histogramSvg, largestPartHistogram } from '../../core/pictures/check-svg.js';
 import { DIAGRAM_LIMITS } from '../../core/pictures/ferrers.js';
+import { compositionSvg } from '../../core/pictures/composition-svg.js';
 import { ferrersSvg } from '../../core/pictures/ferrers-svg.js';
 import { sampleSource } from '../../core/seeding.js';
-import { partitionAsParts } from '../encode.js';
+import { compositionAsParts, partitionAsParts } from '../encode.js';
 import type { AppContext } from '../endpoint.js';
 import { ProblemError } from '../problem.js';
 import { checkJobLimits } from '../sampling.js';
 import { runPartitionCheck, type PartitionCheck } from '../routes/check.js';
+import { runCompositionCheck, type CompositionCheck } from '../routes/composition-check.js';
+import { compositionFamilyOf } from '../routes/compositions.js';
 import { partitionFamilyOf } from '../routes/partitions.js';
+import type { PartitionsQuery } from '../schemas/partitions.js';
+import { compositionCheckSection, isUnrestricted } from './composition-check.js';
 import { PAGE_FAMILIES, PAGE_MAX_SHOWN, queryString, type FieldName, type FormState } from './form.js';
 import { html, trusted, type Html } from './html.js';
 import { snippetsFor } from './snippets.js';
@@ -23,7 +29,8 @@ interface Drawn {
   readonly seed: string;
   readonly seedDrawn: boolean;
   readonly method: string;
-  readonly samples: Partition[];
+  /** Parts of each sample shown: largest first for partitions, in order for compositions. */
+  readonly samples: number[][];
   readonly json: string;
 }
 
@@ -31,7 +38,7 @@ interface Drawn {
 export function renderPage(url: URL, form: FormState, context: AppContext): string {
   let drawn: Drawn | null = null;
   let problem: string | null = null;
-  let check: PartitionCheck | null = null;
+  let check: PartitionCheck | CompositionCheck | null = null;
   let checkProblem: string | null = null;
   if (form.query) {
     try {
@@ -40,8 +47,10 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
       problem = messageOf(error);
     }
     if (drawn && form.check) {
+      const limits = { ...context.limits, maxWork: context.limits.maxWork * PAGE_CHECK_WORK_SHARE };
       try {
-        check = runPartitionCheck(form.query, form.samples, drawn.seed, { ...context.limits, maxWork: context.limits.maxWork * PAGE_CHECK_WORK_SHARE });
+        if (form.family.kind === 'partition') check = runPartitionCheck(form.query as PartitionsQuery, form.samples, drawn.seed, limits);
+        else if (isUnrestricted(form.query)) check = runCompositionCheck(form.query.n, form.samples, drawn.seed, limits);
       } catch (error) {
         checkProblem = messageOf(error);
       }
@@ -51,7 +60,7 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
 <a class="skip" href="#results">Skip to the results</a>
 <header class="masthead"><div class="masthead-inner">
   <a class="brand" href="/" aria-label="partsmith, start over">${logo()}<span class="wordmark">partsmith</span></a>
-  <p class="tagline">Exactly uniform random partitions of n — seeded, replayable, drawn.</p>
+  <p class="tagline">Exactly uniform random partitions and compositions of n — seeded, replayable, drawn.</p>
   <nav aria-label="Service"><a href="/openapi.json">OpenAPI</a><a href="/healthz">Status</a></nav>
 </div></header>
 <div class="layout">
@@ -62,18 +71,18 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
     ${drawn ? samplesSection(url, form, drawn) : null}
     ${drawn ? snippetsSection(url, form, drawn) : null}
     ${drawn ? jsonSection(form, drawn) : null}
-    ${drawn && form.check ? checkSection(form, drawn, check, checkProblem) : null}
+    ${drawn && form.check ? (form.family.kind === 'partition' ? checkSection(form, drawn, check as PartitionCheck | null, checkProblem) : compositionCheckSection(form, drawn.seed, check as CompositionCheck | null, checkProblem)) : null}
   </main>
 </div>
 <footer><p>Sample i of a seed is the same on every run and runtime. Diagrams are drawn up to ${DIAGRAM_LIMITS.maxRows} rows × ${DIAGRAM_LIMITS.maxColumns} columns; this page draws the first ${PAGE_MAX_SHOWN} samples and the API serves the rest.</p></footer>`;
-  const title = form.query ? `Partitions of ${form.query.n} · partsmith` : 'partsmith';
+  const title = form.query ? `${form.family.label} of ${form.query.n} · partsmith` : 'partsmith';
   return `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${html`${title}`}</title>
-<meta name="description" content="Draw exactly uniform random integer partitions, see them as Ferrers diagrams and check their distribution.">
+<meta name="description" content="Draw exactly uniform random integer partitions and compositions, see them drawn and check their distribution.">
 <link rel="icon" href="/favicon.ico" type="image/svg+xml">
 <link rel="stylesheet" href="/assets/page.css">
 <script src="/assets/page.js" defer></script>
@@ -87,19 +96,33 @@ function draw(form: FormState, context: AppContext): Drawn {
   const query = form.query!;
   const seedDrawn = query.seed === undefined;
   const seed = query.seed ?? context.drawSeed();
-  const family = partitionFamilyOf(query);
-  const sampler = planPartitionSampler(family);
-  checkJobLimits({ family, sampler, encoder: partitionAsParts, numbersPerSample: sampler.expectedLength, seed, start: 0, count: query.count, format: 'json' }, context.limits);
   const shown = Math.min(query.count, PAGE_MAX_SHOWN);
-  const key = familyKey(family);
-  const samples: Partition[] = [];
-  for (let i = 0; i < shown; i++) samples.push(sampler.sample(sampleSource(seed, i, key)));
-  // The same document GET /v1/partitions returns (one sample per line for reading).
-  const head = JSON.stringify({ family, seed, start: 0, method: sampler.method });
-  const lines = samples.map((s) => `    ${JSON.stringify(partsOf(s))}`);
+  let head: Record<string, unknown>;
+  let samples: number[][] = [];
+  let method: string;
+  // The same sampler and sample sources as GET /v1/partitions and /v1/compositions.
+  if (form.family.kind === 'partition') {
+    const family = partitionFamilyOf(query as PartitionsQuery);
+    const sampler = planPartitionSampler(family);
+    checkJobLimits({ family, sampler, encoder: partitionAsParts, numbersPerSample: sampler.expectedLength, seed, start: 0, count: query.count, format: 'json' }, context.limits);
+    const key = familyKey(family);
+    for (let i = 0; i < shown; i++) samples.push(partsOf(sampler.sample(sampleSource(seed, i, key))));
+    head = { family, seed, start: 0, method: sampler.method };
+    method = sampler.method;
+  } else {
+    const family = compositionFamilyOf(query);
+    const sampler = planCompositionSampler(family);
+    checkJobLimits({ family, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: 0, count: query.count, format: 'json' }, context.limits);
+    const key = familyKey(family);
+    samples = Array.from({ length: shown }, (_, i) => sampler.sample(sampleSource(seed, i, key)));
+    head = { family, seed, start: 0, method: sampler.method };
+    method = sampler.method;
+  }
+  // The same document the API returns (one sample per line for reading).
+  const lines = samples.map((s) => `    ${JSON.stringify(s)}`);
   const more = query.count > shown ? `\n    … ${query.count - shown} more in the API response` : '';
-  const json = `${head.slice(0, -1).replace(/^\{/, '{\n  ').replace(/,"(seed|start|method)"/g, ',\n  "$1"')},\n  "samples": [\n${lines.join(',\n')}${more}\n  ]\n}`;
-  return { seed, seedDrawn, method: sampler.method, samples, json };
+  const json = `${JSON.stringify(head).slice(0, -1).replace(/^\{/, '{\n  ').replace(/,"(seed|start|method)"/g, ',\n  "$1"')},\n  "samples": [\n${lines.join(',\n')}${more}\n  ]\n}`;
+  return { seed, seedDrawn, method, samples, json };
 }
 
 function messageOf(error: unknown): string {
@@ -128,7 +151,7 @@ function formPanel(form: FormState): Html {
       <legend>What to draw</legend>
       <div class="field">
         <label for="family">Family</label>
-        <p class="hint" id="family-hint">Partitions: the order of parts does not matter.</p>
+        <p class="hint" id="family-hint">Partitions: the order of parts does not matter. Compositions: it does (1 + 2 and 2 + 1 differ).</p>
         <select id="family" name="family" aria-describedby="family-hint">${PAGE_FAMILIES.map((f) => html`<option value="${f.value}"${f.value === form.family.value ? html` selected` : null}>${f.label}</option>`)}</select>
       </div>
       <div class="row">
@@ -139,14 +162,15 @@ function formPanel(form: FormState): Html {
     </fieldset>
     <details class="constraints"${constraintsSet ? html` open` : null}>
       <summary>Constraints <span class="hint">optional</span></summary>
-      <div class="check"><input type="checkbox" id="distinct" name="distinct" value="true"${form.values.distinct === 'true' ? html` checked` : null}><label for="distinct">All parts different</label></div>
+      <div class="check"><input type="checkbox" id="distinct" name="distinct" value="true"${form.values.distinct === 'true' ? html` checked` : null}${form.errors.distinct ? html` aria-invalid="true" aria-describedby="distinct-error"` : null}><label for="distinct">All parts different <span class="hint">(partitions)</span></label></div>
+      ${form.errors.distinct ? html`<p class="error" id="distinct-error">All parts different ${form.errors.distinct}.</p>` : null}
       <div class="row">
-        ${field(form, 'minPart', 'Smallest part ≥', { min: 1, inputmode: 'numeric' })}
+        ${field(form, 'minPart', 'Smallest part ≥', { min: 0, inputmode: 'numeric', hint: '0 allows empty parts (compositions with exactly k parts).' })}
         ${field(form, 'maxPart', 'Largest part ≤', { min: 1, inputmode: 'numeric' })}
       </div>
       <div class="row">
         ${field(form, 'length', 'Exactly k parts', { min: 0, inputmode: 'numeric' })}
-        ${field(form, 'maxLength', 'At most k parts', { min: 0, inputmode: 'numeric' })}
+        ${field(form, 'maxLength', 'At most k parts', { min: 0, inputmode: 'numeric', hint: 'Partitions only.' })}
       </div>
       ${field(form, 'allowed', 'Allowed part sizes', { hint: 'Comma-separated, e.g. 1,2,5,10.', inputmode: 'numeric' })}
     </details>
@@ -170,28 +194,38 @@ function errorSummary(form: FormState): Html {
 
 function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
   const query = form.query!;
+  const partitions = form.family.kind === 'partition';
+  const noun = partitions ? 'partition' : 'composition';
   const diagramParams = form.apiParams.filter(([k]) => k !== 'count' && k !== 'seed');
-  const figures = drawn.samples.map((partition, i) => {
-    const parts = partsOf(partition);
+  const figures = drawn.samples.map((parts, i) => {
     const link = `/v1/partitions/diagram?${queryString([...diagramParams, ['seed', drawn.seed], ['index', String(i)]])}`;
-    const tooLarge = lengthOf(partition) > DIAGRAM_LIMITS.maxRows || (parts[0] ?? 0) > DIAGRAM_LIMITS.maxColumns;
+    // Partitions: rows = parts, columns = largest part. Compositions: columns = parts, rows = largest part.
+    const across = partitions ? (parts[0] ?? 0) : parts.length;
+    const down = partitions ? parts.length : Math.max(0, ...parts);
+    const tooLarge = down > DIAGRAM_LIMITS.maxRows || across > DIAGRAM_LIMITS.maxColumns;
     const caption = parts.length <= 16 ? parts.join(' + ') : `${parts.slice(0, 12).join(' + ')} + … (${parts.length} parts)`;
+    let drawing: Html;
+    if (tooLarge) drawing = html`<p class="too-large">${down} rows × ${across} columns: too large to draw here.</p>`;
+    else if (partitions) drawing = html`<a class="drawing" href="${link}" aria-label="Sample ${i} as an SVG file">${trusted(ferrersSvg(parts, { fit: 200 }))}</a>`;
+    else drawing = html`<div class="drawing">${trusted(compositionSvg(parts, { fit: 200 }))}</div>`;
     return html`<li><figure>
-  ${tooLarge ? html`<p class="too-large">${parts.length} rows × ${parts[0]} columns: too large to draw here.</p>` : html`<a class="drawing" href="${link}" aria-label="Sample ${i} as an SVG file">${trusted(ferrersSvg(parts, { fit: 200 }))}</a>`}
-  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? 'the empty partition' : caption}</figcaption>
+  ${drawing}
+  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}</figcaption>
 </figure></li>`;
   });
   const permalink = `/?${queryString([['family', form.family.value], ...form.apiParams.filter(([k]) => k !== 'seed'), ['seed', drawn.seed], ...(form.check ? ([['check', 'true'], ['samples', String(form.samples)]] as [string, string][]) : [])])}`;
   return html`<section class="card" aria-labelledby="samples-title">
-  <h2 id="samples-title">${query.count === 1 ? 'One partition' : `${query.count} partitions`} of ${query.n}</h2>
+  <h2 id="samples-title">${query.count === 1 ? `One ${noun}` : `${query.count} ${noun}s`} of ${query.n}</h2>
   <p class="summary">
     <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
     <span class="pill">method <code>${drawn.method}</code></span>
     <a href="${permalink}">Permalink</a>
   </p>
-  <ul class="diagrams" aria-label="Ferrers diagrams, one per sample">${figures}</ul>
+  <ul class="diagrams" aria-label="${partitions ? 'Ferrers diagrams' : 'Bargraphs'}, one per sample">${figures}</ul>
   ${query.count > drawn.samples.length ? html`<p class="note">The first ${drawn.samples.length} of ${query.count} samples are drawn; the snippets below fetch them all.</p>` : null}
-  <p class="note">One row per part, largest first; the highlighted square is the Durfee square. Each diagram links to its SVG.</p>
+  ${partitions
+    ? html`<p class="note">One row per part, largest first; the highlighted square is the Durfee square. Each diagram links to its SVG.</p>`
+    : html`<p class="note">One column per part, in the composition's order, the part's size written below it; neighbouring parts alternate colours. A part 0 is a mark on the baseline.</p>`}
 </section>`;
 }
 
