@@ -1,6 +1,7 @@
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
 import { deadlineOf } from './deadline.js';
+import { completeResponse } from './middleware/complete-response.js';
 import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sampling.js';
 
 /**
@@ -26,14 +27,14 @@ export async function respondWithSamples<S>(
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) {
-      return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+      return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });
     }
   } else {
     headers['cache-control'] = NO_STORE;
   }
   // HEAD gets the headers only: no samples are drawn for a body nobody reads.
   const body = request.method === 'HEAD' ? null : startBody(job, deadlineOf(limits));
-  return new Response(body, { status: 200, headers });
+  return completeResponse(body, 200, headers);
 }
 
 /** A small JSON document (counts, health): cacheable when it is a pure function of the request. */
@@ -43,9 +44,9 @@ export async function respondWithJson(request: Request, path: string, query: Rec
     const etag = strongEtag(path, sortedQuery(query));
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
-    if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+    if (matchesIfNoneMatch(request, etag)) return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });
   } else {
     headers['cache-control'] = NO_STORE;
   }
-  return new Response(JSON.stringify(body), { status: 200, headers });
+  return completeResponse(JSON.stringify(body), 200, headers);
 }
