@@ -6,16 +6,17 @@ import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sa
 
 /**
  * Answers a sampling request: limits first, then caching headers, then the streamed body.
- * `query` is the parsed query with the seed filled in (drawn or given).
+ * `query` is the parsed query with the seed filled in (drawn or given). Synchronous on purpose:
+ * a small answer then reaches the Node adapter without a promise turn (see Hardening.route).
  */
-export async function respondWithSamples<S>(
+export function respondWithSamples<S>(
   request: Request,
   path: string,
   query: Record<string, unknown>,
   job: SamplingJob<S>,
   seeded: boolean,
   limits: Limits,
-): Promise<Response> {
+): Response {
   checkJobLimits(job as SamplingJob<unknown>, limits);
   const headers: Record<string, string> = {
     'content-type': contentTypeOf(job.format),
@@ -38,7 +39,7 @@ export async function respondWithSamples<S>(
 }
 
 /** A small JSON document (counts, health): cacheable when it is a pure function of the request. */
-export async function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Promise<Response> {
+export function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Response {
   const headers: Record<string, string> = { 'content-type': 'application/json; charset=utf-8' };
   if (query) {
     const etag = strongEtag(path, sortedQuery(query));
