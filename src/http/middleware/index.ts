@@ -19,7 +19,7 @@ export { API_CONTENT_SECURITY_POLICY, cspHash, htmlContentSecurityPolicy, inline
  * `route(handler)` wraps one route handler instead: a path whose only matching handler is that
  * route is dispatched by Hono without its middleware composer, and a route that answers
  * synchronously with a string body is then written by the Node adapter directly. For a small
- * API request that saves several promise turns and an 'close' listener per request. (A wrapped
+ * API request that saves several promise turns and a 'close' listener per request. (A wrapped
  * route refuses oversized URLs after routing instead of before; routing does not look at the query.)
  */
 export interface Hardening {
