@@ -24,9 +24,21 @@ export function sampleSource(seed: string, index: number, familyKey: string): Ra
   if (!Number.isSafeInteger(index) || index < 0) {
     throw new RangeError(`sample index must be a non-negative safe integer, got ${index}`);
   }
-  const alea = seedrandom.alea(`partsmith/v${ALGORITHM_VERSION}|${familyKey}|${seed}|${index}`);
-  return {
-    nextDouble: () => alea.double(),
-    nextUint32: () => alea.int32() >>> 0,
-  };
+  return new AleaSource(seedrandom.alea(`partsmith/v${ALGORITHM_VERSION}|${familyKey}|${seed}|${index}`));
+}
+
+/**
+ * A RandomSource over one alea stream. A class rather than an object of closures: a web request
+ * often draws a single sample, so building the source is part of every request's cost.
+ */
+class AleaSource implements RandomSource {
+  constructor(private readonly alea: seedrandom.PRNG) {}
+
+  nextDouble(): number {
+    return this.alea.double();
+  }
+
+  nextUint32(): number {
+    return this.alea.int32() >>> 0;
+  }
 }

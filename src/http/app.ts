@@ -1,7 +1,7 @@
 import { Hono } from 'hono';
 import { LimitExceededError } from '../core/errors.js';
 import { requestContext, type Clock } from './deadline.js';
-import { hardening, otherMethods } from './middleware/index.js';
+import { hardening, otherMethods, oversizedUrlProblem } from './middleware/index.js';
 import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
@@ -13,7 +13,7 @@ import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions
 import { checkEndpoint } from './routes/check.js';
 import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
-import { registerPage } from './routes/page.js';
+import { PAGE_PATHS, registerPage } from './routes/page.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -60,20 +60,30 @@ export function createApp(options: AppOptions = {}): Hono {
   const clock = options.clock ?? (() => performance.now());
 
   const app = new Hono();
-  app.use('*', ...hardening());
+  const harden = hardening();
   for (const endpoint of endpoints) {
-    app.get(endpoint.path, async (c) => {
-      const query = parseQuery(c.req.url, endpoint.query);
-      try {
-        return await endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock));
-      } catch (error) {
-        throw familyProblem(error, query);
-      }
-    });
-    app.all(endpoint.path, otherMethods(endpoint.path));
+    const other = otherMethods(endpoint.path);
+    // One handler per path for every method, so Hono calls it directly (see Hardening.route).
+    app.all(
+      endpoint.path,
+      harden.route((c) => {
+        const method = c.req.method;
+        if (method !== 'GET' && method !== 'HEAD') return other(c, async () => {}) as Response;
+        const query = parseQuery(c.req.url, endpoint.query);
+        let response: Response | Promise<Response>;
+        try {
+          response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock));
+        } catch (error) {
+          throw familyProblem(error, query);
+        }
+        return response instanceof Promise ? response.catch((error: unknown) => Promise.reject(familyProblem(error, query))) : response;
+      }),
+    );
   }
+  for (const path of PAGE_PATHS) app.use(path, harden.middleware());
   registerPage(app, context);
-  app.notFound((c) => problemResponse(new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
+  // Unmatched paths pass no middleware: the URL limits are checked here (a problem response is complete).
+  app.notFound((c) => problemResponse(oversizedUrlProblem(c.req.url) ?? new ProblemError(404, `There is nothing at ${new URL(c.req.url).pathname}. See /openapi.json for the endpoints.`)));
   const logError = options.logError ?? ((error: unknown, request: Request) => console.error(`500 for ${request.url}:`, error));
   app.onError((error, c) => {
     const problem = toProblem(error);

@@ -1,3 +1,5 @@
+import { completeResponse } from './middleware/complete-response.js';
+
 /**
  * RFC 9457 problem details. Every error the service returns is one of these, with
  * `errors: [{ param, message }]` naming each offending parameter where there is one.
@@ -63,8 +65,9 @@ export class ProblemError extends Error {
 }
 
 export function problemResponse(error: ProblemError): Response {
-  return new Response(JSON.stringify(error.toProblem()), {
-    status: error.status,
-    headers: { 'content-type': 'application/problem+json; charset=utf-8', 'cache-control': 'no-store', ...error.headers },
+  return completeResponse(JSON.stringify(error.toProblem()), error.status, {
+    'content-type': 'application/problem+json; charset=utf-8',
+    'cache-control': 'no-store',
+    ...error.headers,
   });
 }

@@ -1,20 +1,22 @@
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
 import { deadlineOf } from './deadline.js';
+import { completeResponse } from './middleware/complete-response.js';
 import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sampling.js';
 
 /**
  * Answers a sampling request: limits first, then caching headers, then the streamed body.
- * `query` is the parsed query with the seed filled in (drawn or given).
+ * `query` is the parsed query with the seed filled in (drawn or given). Synchronous on purpose:
+ * a small answer then reaches the Node adapter without a promise turn (see Hardening.route).
  */
-export async function respondWithSamples<S>(
+export function respondWithSamples<S>(
   request: Request,
   path: string,
   query: Record<string, unknown>,
   job: SamplingJob<S>,
   seeded: boolean,
   limits: Limits,
-): Promise<Response> {
+): Response {
   checkJobLimits(job as SamplingJob<unknown>, limits);
   const headers: Record<string, string> = {
     'content-type': contentTypeOf(job.format),
@@ -26,26 +28,26 @@ export async function respondWithSamples<S>(
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) {
-      return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+      return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });
     }
   } else {
     headers['cache-control'] = NO_STORE;
   }
   // HEAD gets the headers only: no samples are drawn for a body nobody reads.
   const body = request.method === 'HEAD' ? null : startBody(job, deadlineOf(limits));
-  return new Response(body, { status: 200, headers });
+  return completeResponse(body, 200, headers);
 }
 
 /** A small JSON document (counts, health): cacheable when it is a pure function of the request. */
-export async function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Promise<Response> {
+export function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Response {
   const headers: Record<string, string> = { 'content-type': 'application/json; charset=utf-8' };
   if (query) {
     const etag = strongEtag(path, sortedQuery(query));
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
-    if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
+    if (matchesIfNoneMatch(request, etag)) return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });
   } else {
     headers['cache-control'] = NO_STORE;
   }
-  return new Response(JSON.stringify(body), { status: 200, headers });
+  return completeResponse(JSON.stringify(body), 200, headers);
 }

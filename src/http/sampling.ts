@@ -1,4 +1,4 @@
-import { canonicalFamily, familyKey, type Family } from '../core/family.js';
+import { canonicalFamily, type Family } from '../core/family.js';
 import type { RandomSource } from '../core/random.js';
 import { sampleSource } from '../core/seeding.js';
 import type { SampleEncoder } from './encode.js';
@@ -65,10 +65,11 @@ export function checkJobLimits(job: SamplingJob<unknown>, limits: Limits): void 
  * (seed, i, family), so the pieces are the same whatever start and count frame them.
  */
 export function* bodyPieces<S>(job: SamplingJob<S>, deadline?: Deadline): Generator<string> {
-  const key = familyKey(job.family);
+  const family = canonicalFamily(job.family);
+  const key = JSON.stringify(family); // = familyKey(job.family), without normalising twice
   const end = job.start + job.count;
   if (job.format === 'json') {
-    const head = { family: canonicalFamily(job.family), seed: job.seed, start: job.start, method: job.sampler.method };
+    const head = { family, seed: job.seed, start: job.start, method: job.sampler.method };
     yield `${JSON.stringify(head).slice(0, -1)},"samples":[`;
     for (let i = job.start; i < end; i++) {
       deadline?.check(i - job.start);

@@ -1,12 +1,13 @@
-import type { Handler, MiddlewareHandler } from 'hono';
+import type { Context, Handler, MiddlewareHandler } from 'hono';
 import { ProblemError } from '../problem.js';
+import { CORS_EXPOSED_HEADERS } from './complete-response.js';
 
 /**
  * Cross-origin access. The data is public and read-only and no credentials are ever used, so
  * any origin may read it (`*`), including the problem details of failed requests; scripts may
  * read the headers that matter for replay and caching.
  */
-export const CORS_EXPOSED_HEADERS = 'ETag, Partsmith-Seed, Partsmith-Method, Retry-After';
+export { CORS_EXPOSED_HEADERS } from './complete-response.js';
 export const ALLOWED_METHODS = 'GET, HEAD, OPTIONS';
 /** Request headers a cross-origin script may send (If-None-Match for revalidation); the rest are safelisted by Fetch. */
 const ALLOWED_REQUEST_HEADERS = 'If-None-Match';
@@ -17,9 +18,14 @@ const PREFLIGHT_MAX_AGE = '86400';
 export function corsHeaders(): MiddlewareHandler {
   return async (c, next) => {
     await next();
-    c.res.headers.set('access-control-allow-origin', '*');
-    c.res.headers.set('access-control-expose-headers', CORS_EXPOSED_HEADERS);
+    addCorsHeaders(c);
   };
+}
+
+/** Sets the CORS headers on the context's response. */
+export function addCorsHeaders(c: Context): void {
+  c.res.headers.set('access-control-allow-origin', '*');
+  c.res.headers.set('access-control-expose-headers', CORS_EXPOSED_HEADERS);
 }
 
 /**

@@ -12,16 +12,22 @@ export const MAX_PATH_LENGTH = 512;
  */
 export function rejectOversizedUrls(): MiddlewareHandler {
   return async (c, next) => {
-    const url = c.req.url;
-    if (url.length > MAX_URL_LENGTH) {
-      throw new ProblemError(414, `The URL is ${url.length} characters long; the limit is ${MAX_URL_LENGTH}.`);
-    }
-    const pathStart = url.indexOf('/', url.indexOf('//') + 2);
-    const queryStart = url.indexOf('?');
-    const pathLength = (queryStart < 0 ? url.length : queryStart) - Math.max(pathStart, 0);
-    if (pathStart >= 0 && pathLength > MAX_PATH_LENGTH) {
-      throw new ProblemError(414, `The path is ${pathLength} characters long; the limit is ${MAX_PATH_LENGTH}.`);
-    }
+    const problem = oversizedUrlProblem(c.req.url);
+    if (problem) throw problem;
     await next();
   };
+}
+
+/** The 414 problem for a URL (absolute, as a Request carries it) over the limits, if it is. */
+export function oversizedUrlProblem(url: string): ProblemError | undefined {
+  if (url.length > MAX_URL_LENGTH) {
+    return new ProblemError(414, `The URL is ${url.length} characters long; the limit is ${MAX_URL_LENGTH}.`);
+  }
+  const pathStart = url.indexOf('/', url.indexOf('//') + 2);
+  const queryStart = url.indexOf('?');
+  const pathLength = (queryStart < 0 ? url.length : queryStart) - Math.max(pathStart, 0);
+  if (pathStart >= 0 && pathLength > MAX_PATH_LENGTH) {
+    return new ProblemError(414, `The path is ${pathLength} characters long; the limit is ${MAX_PATH_LENGTH}.`);
+  }
+  return undefined;
 }

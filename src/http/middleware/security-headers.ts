@@ -1,10 +1,7 @@
-import type { MiddlewareHandler } from 'hono';
+import type { Context, MiddlewareHandler } from 'hono';
+import { API_CONTENT_SECURITY_POLICY } from './complete-response.js';
 
-/**
- * Security headers on every response. The API only ever returns data (JSON, NDJSON, text), so
- * its policy forbids everything a browser could do with it if it were rendered as a document.
- */
-export const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
+export { API_CONTENT_SECURITY_POLICY } from './complete-response.js';
 
 /**
  * Policy for HTML pages of this service, apart from the inline scripts and styles it allows by
@@ -64,26 +61,39 @@ export async function htmlContentSecurityPolicy(html: string): Promise<string> {
  * hash-based policy for HTML unless the handler already set one.
  */
 export function securityHeaders(): MiddlewareHandler {
-  // One-entry memo: pages are usually the same bytes on every request; never grows.
-  let lastHtml: string | undefined;
-  let lastPolicy = '';
+  const memo = htmlPolicyMemo();
   return async (c, next) => {
     await next();
-    let response = c.res;
-    const type = response.headers.get('content-type') ?? '';
-    if (/^text\/html\b/i.test(type) && !response.headers.has('content-security-policy') && response.body) {
-      const html = await response.text();
-      if (html !== lastHtml) {
-        lastPolicy = await htmlContentSecurityPolicy(html);
-        lastHtml = html;
-      }
-      response = new Response(html, response);
-      response.headers.set('content-security-policy', lastPolicy);
-      c.res = response; // Hono copies the old headers over; they have no policy, so this one stays
-    } else if (!response.headers.has('content-security-policy')) {
-      response.headers.set('content-security-policy', API_CONTENT_SECURITY_POLICY);
-    }
-    c.res.headers.set('x-content-type-options', 'nosniff');
-    c.res.headers.set('referrer-policy', 'no-referrer');
+    await addSecurityHeaders(c, memo);
   };
+}
+
+/** One-entry memo of the last HTML page's policy: pages are usually the same bytes on every request; never grows. */
+export interface HtmlPolicyMemo {
+  html: string | undefined;
+  policy: string;
+}
+
+export function htmlPolicyMemo(): HtmlPolicyMemo {
+  return { html: undefined, policy: '' };
+}
+
+/** Sets the security headers on the context's response (see securityHeaders). */
+export async function addSecurityHeaders(c: Context, memo: HtmlPolicyMemo): Promise<void> {
+  let response = c.res;
+  const type = response.headers.get('content-type') ?? '';
+  if (/^text\/html\b/i.test(type) && !response.headers.has('content-security-policy') && response.body) {
+    const html = await response.text();
+    if (html !== memo.html) {
+      memo.policy = await htmlContentSecurityPolicy(html);
+      memo.html = html;
+    }
+    response = new Response(html, response);
+    response.headers.set('content-security-policy', memo.policy);
+    c.res = response; // Hono copies the old headers over; they have no policy, so this one stays
+  } else if (!response.headers.has('content-security-policy')) {
+    response.headers.set('content-security-policy', API_CONTENT_SECURITY_POLICY);
+  }
+  c.res.headers.set('x-content-type-options', 'nosniff');
+  c.res.headers.set('referrer-policy', 'no-referrer');
 }

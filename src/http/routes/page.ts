@@ -14,6 +14,9 @@ export const PAGE_ASSETS = {
   '/favicon.ico': { body: FAVICON_SVG, contentType: 'image/svg+xml' },
 } as const;
 
+/** Every path `registerPage` serves (the app puts its hardening middleware on exactly these). */
+export const PAGE_PATHS: readonly string[] = ['/', ...Object.keys(PAGE_ASSETS)];
+
 /**
  * The Content-Security-Policy the page works under: no inline script or style (the page uses
  * none; its drawings use presentation attributes only), assets and form submission same-origin.
@@ -33,7 +36,7 @@ export function registerPage(app: Hono, context: AppContext): void {
   for (const [path, asset] of Object.entries(PAGE_ASSETS)) {
     app.get(path, () => new Response(asset.body, { status: 200, headers: { 'content-type': asset.contentType, 'cache-control': 'public, max-age=3600' } }));
   }
-  for (const path of ['/', ...Object.keys(PAGE_ASSETS)]) {
+  for (const path of PAGE_PATHS) {
     app.all(path, (c) => {
       throw new ProblemError(405, `${c.req.method} is not supported on ${path}; use GET or HEAD.`, undefined, { allow: 'GET, HEAD' });
     });
