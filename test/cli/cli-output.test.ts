@@ -2,7 +2,7 @@ import { mkdtemp, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { spawnNodeServer, type SpawnedServer } from '../edge/runtimes.js';
+import { startServer, type RunningServer } from '../support/server-process.js';
 import { apiBody, runBin, runInProcess } from './run-bin.js';
 
 /**
@@ -11,10 +11,10 @@ import { apiBody, runBin, runInProcess } from './run-bin.js';
  * service with --url. Each case runs the real bin as a child process.
  */
 describe.concurrent('partsmith CLI output equals the API body', () => {
-  let server: SpawnedServer;
+  let server: RunningServer;
   let dir: string;
   beforeAll(async () => {
-    [server, dir] = await Promise.all([spawnNodeServer(), mkdtemp(join(tmpdir(), 'partsmith-cli-'))]);
+    [server, dir] = await Promise.all([startServer(), mkdtemp(join(tmpdir(), 'partsmith-cli-'))]);
   }, 30_000);
   afterAll(async () => {
     await server?.stop();
@@ -23,7 +23,7 @@ describe.concurrent('partsmith CLI output equals the API body', () => {
 
   it('ndjson with --url against a running server (npm start), as a child process', async () => {
     const args = ['partitions', '--n=60', '--count=4', '--seed=m', '--format', 'ndjson', '--as', 'multiplicities', '--start', '99', '--distinct', 'false'];
-    const result = await runBin([...args, '--url', server.url]);
+    const result = await runBin([...args, '--url', server.baseUrl]);
     const expected = await apiBody('/v1/partitions?n=60&count=4&seed=m&format=ndjson&as=multiplicities&start=99&distinct=false');
     expect(result).toEqual({ code: 0, stdout: expected, stderr: '' });
   });
@@ -53,7 +53,7 @@ describe.concurrent('partsmith CLI output equals the API body', () => {
   for (const [name, args, path] of cases) {
     it(`${name} (runCli in-process, local and --url)`, async () => {
       const expected = await apiBody(path);
-      for (const result of [await runInProcess(args), await runInProcess([...args, '--url', server.url])]) {
+      for (const result of [await runInProcess(args), await runInProcess([...args, '--url', server.baseUrl])]) {
         expect(result).toEqual({ code: 0, stdout: expected, stderr: '' });
       }
     });

@@ -1,10 +1,11 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { mkdtemp, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { Miniflare } from 'miniflare';
 import { Agent, request } from 'undici';
 import { createApp } from '../../src/http/app.js';
+import { startServer } from '../support/server-process.js';
 
 /**
  * The three ways partsmith runs, each reduced to "send this request, give me status, headers and
@@ -48,69 +49,9 @@ export function inProcessRuntime(): Runtime {
   };
 }
 
-export interface SpawnedServer {
-  readonly url: string;
-  readonly child: ChildProcess;
-  stop(): Promise<void>;
-}
-
-/**
- * Starts a server the way `npm start` does (`npx tsx src/node.ts`) with PORT=0 and reads the URL
- * it prints. The process gets its own group (detached) so stop() ends npx, tsx and node together.
- */
-export async function spawnNodeServer(env: Record<string, string> = {}): Promise<SpawnedServer> {
-  const child = spawn('npx', ['tsx', 'src/node.ts'], {
-    cwd: PROJECT_ROOT,
-    env: { ...process.env, PORT: '0', HOST: '127.0.0.1', TSX_DISABLE_CACHE: '1', ...env },
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  const url = await new Promise<string>((resolveUrl, reject) => {
-    let out = '';
-    let err = '';
-    const timer = setTimeout(() => reject(new Error(`server did not start within 20 s; stderr: ${err}`)), 20_000);
-    child.stdout!.on('data', (chunk: Buffer) => {
-      out += chunk.toString('utf8');
-      const match = /listening on (http:\/\/[^\s]+)/.exec(out);
-      if (match) {
-        clearTimeout(timer);
-        resolveUrl(match[1]);
-      }
-    });
-    child.stderr!.on('data', (chunk: Buffer) => {
-      err += chunk.toString('utf8');
-    });
-    child.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`server exited with ${code} before listening; stderr: ${err}`));
-    });
-  });
-  return { url, child, stop: () => killGroup(child) };
-}
-
-/** Ends a detached child's whole process group and waits for the child to exit. */
-export async function killGroup(child: ChildProcess): Promise<void> {
-  if (child.exitCode !== null || child.signalCode !== null || child.pid === undefined) return;
-  const exited = new Promise<void>((done) => child.once('exit', () => done()));
-  try {
-    process.kill(-child.pid, 'SIGTERM');
-  } catch {
-    return;
-  }
-  const timer = setTimeout(() => {
-    try {
-      process.kill(-child.pid!, 'SIGKILL');
-    } catch {
-      /* already gone */
-    }
-  }, 3000);
-  await exited;
-  clearTimeout(timer);
-}
-
 /** (2) The Node server over HTTP, with undici and a keep-alive agent. */
 export async function nodeRuntime(): Promise<Runtime> {
-  const server = await spawnNodeServer();
+  const server = await startServer();
   const agent = new Agent({ keepAliveTimeout: 10_000 });
   return {
     name: 'node',
@@ -121,7 +62,7 @@ export async function nodeRuntime(): Promise<Runtime> {
       // block it for seconds (an exact count of p(50001)), so undici's idle-socket timer fires
       // late, after the server has closed the socket at its 5 s keep-alive timeout: reusing it
       // failed with "other side closed" under load.
-      const response = await request(server.url + path, { method: (init.method ?? 'GET') as 'GET', headers, dispatcher: agent, reset: true });
+      const response = await request(server.baseUrl + path, { method: (init.method ?? 'GET') as 'GET', headers, dispatcher: agent, reset: true });
       const answerHeaders: Record<string, string> = {};
       for (const [key, value] of Object.entries(response.headers)) {
         if (value !== undefined) answerHeaders[key.toLowerCase()] = Array.isArray(value) ? value.join(', ') : value;

@@ -4,7 +4,7 @@ import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
 import { compositionsCountQuery, compositionsQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
-import { PROBLEM_RESPONSES, SAMPLE_CONTENT_TYPES } from './docs.js';
+import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 const COMPOSITIONS_PATH = '/v1/compositions';
 const COMPOSITIONS_COUNT_PATH = '/v1/compositions/count';
@@ -27,11 +27,7 @@ export const compositionsEndpoint = defineEndpoint({
   description:
     'Compositions are ordered: 1+2 and 2+1 are different. Each sample is drawn exactly uniformly from the compositions of n that satisfy the constraints; sample i of a seed is the same whatever start and count are.',
   query: compositionsQuery,
-  responses: {
-    '200': { description: 'The samples.', contentTypes: SAMPLE_CONTENT_TYPES },
-    '304': { description: 'Not modified (If-None-Match matched the ETag of a seeded request).', contentTypes: [] },
-    ...PROBLEM_RESPONSES,
-  },
+  responses: SAMPLE_RESPONSES,
   handle(request, query, context) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
@@ -53,10 +49,7 @@ export const compositionsCountEndpoint = defineEndpoint({
   summary: 'The exact number of compositions of n in a family',
   description: 'The count is exact (a decimal string); 0 for an empty family.',
   query: compositionsCountQuery,
-  responses: {
-    '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
-    ...PROBLEM_RESPONSES,
-  },
+  responses: COUNT_RESPONSES,
   handle(request, query) {
     const family = compositionFamilyOf(query);
     return respondWithJson(request, COMPOSITIONS_COUNT_PATH, query, { family, count: countCompositions(family).toString() });

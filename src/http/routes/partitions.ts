@@ -5,7 +5,7 @@ import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
 import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
-import { PROBLEM_RESPONSES, SAMPLE_CONTENT_TYPES } from './docs.js';
+import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 /** The family a query describes, normalised (the default minPart = 1 is dropped). */
 export function partitionFamilyOf(query: PartitionsCountQuery): PartitionFamily {
@@ -30,11 +30,7 @@ export const partitionsEndpoint = defineEndpoint({
   description:
     'Each sample is drawn exactly uniformly from the partitions of n that satisfy the constraints. Sample i of a seed is the same whatever start and count are, on every runtime.',
   query: partitionsQuery,
-  responses: {
-    '200': { description: 'The samples.', contentTypes: SAMPLE_CONTENT_TYPES },
-    '304': { description: 'Not modified (If-None-Match matched the ETag of a seeded request).', contentTypes: [] },
-    ...PROBLEM_RESPONSES,
-  },
+  responses: SAMPLE_RESPONSES,
   handle(request, query, context) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
@@ -66,10 +62,7 @@ export const partitionsCountEndpoint = defineEndpoint({
   summary: 'The exact number of partitions of n in a family',
   description: 'The count is exact (a decimal string, since it may exceed 2^53).',
   query: partitionsCountQuery,
-  responses: {
-    '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
-    ...PROBLEM_RESPONSES,
-  },
+  responses: COUNT_RESPONSES,
   handle(request, query) {
     const family = partitionFamilyOf(query);
     const count = countPartitions(family);
