@@ -2,7 +2,7 @@ import type { PartitionFamily } from '../family.js';
 import type { Partition } from '../partition.js';
 import { EXACT_LARGEST_PART_MAX_N, gumbelScaling, largestPartLaw } from './largest-part.js';
 import { BoundaryAverage, boundaryGrid, DISTINCT_LIMIT_SHAPE, PARTITION_LIMIT_SHAPE, type LimitShape } from './limit-shape.js';
-import { binnedChiSquare, gumbelCdf, integerKolmogorovSmirnov, type ChiSquareCell } from './statistics.js';
+import { exactLawReport, gumbelCdf, integerKolmogorovSmirnov, type ChiSquareCell } from './statistics.js';
 import { LimitExceededError } from '../errors.js';
 
 /** The false-alarm level the check's verdict uses (one test per request). */
@@ -119,18 +119,7 @@ function exactReport(probabilities: Float64Array, largest: Map<number, number>):
   // Mass trimmed away (below 1e-12 per value) is added to the end cells so the law sums to 1.
   const kept = expected.reduce((a, b) => a + b, 0);
   if (expected.length > 0) expected[expected.length - 1] += Math.max(0, 1 - kept);
-  const result = binnedChiSquare(observed, expected);
-  return {
-    law: 'exact',
-    test: 'chi-square',
-    statistic: result.statistic,
-    pValue: result.pValue,
-    degreesOfFreedom: result.degreesOfFreedom,
-    offset: lo,
-    observed,
-    expected,
-    cells: result.cells.map((c) => ({ ...c, from: c.from + lo, to: c.to + lo })),
-  };
+  return exactLawReport(observed, expected, lo);
 }
 
 function gumbelReport(n: number, distinct: boolean, largest: Map<number, number>): LargestPartReport {

@@ -1,4 +1,4 @@
-import { binnedChiSquare, lnBinomial, type ChiSquareCell } from './statistics.js';
+import { exactLawReport, lnBinomial, type ExactLawReport } from './statistics.js';
 
 /** Largest n the composition check tabulates (one double per possible number of parts). */
 export const COMPOSITION_CHECK_MAX_N = 1_000_000;
@@ -19,17 +19,8 @@ export function compositionPartsLaw(n: number): Float64Array {
   return probabilities;
 }
 
-export interface CompositionPartsReport {
+export interface CompositionPartsReport extends ExactLawReport {
   readonly samples: number;
-  readonly law: 'exact';
-  readonly test: 'chi-square';
-  readonly statistic: number;
-  readonly pValue: number | null;
-  readonly degreesOfFreedom: number;
-  readonly offset: number;
-  readonly observed: number[];
-  readonly expected: number[];
-  readonly cells: readonly ChiSquareCell[];
 }
 
 /**
@@ -62,17 +53,5 @@ export function checkCompositionParts(n: number, partCounts: Iterable<number>): 
     observed.push(tally.get(k) ?? 0);
     expected.push(k >= 1 && k <= n ? law[k] : 0);
   }
-  const result = binnedChiSquare(observed, expected);
-  return {
-    samples: total,
-    law: 'exact',
-    test: 'chi-square',
-    statistic: result.statistic,
-    pValue: result.pValue,
-    degreesOfFreedom: result.degreesOfFreedom,
-    offset: lo,
-    observed,
-    expected,
-    cells: result.cells.map((c) => ({ ...c, from: c.from + lo, to: c.to + lo })),
-  };
+  return { samples: total, ...exactLawReport(observed, expected, lo) };
 }

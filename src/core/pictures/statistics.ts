@@ -200,3 +200,32 @@ export function integerKolmogorovSmirnov(counts: readonly number[], offset: numb
   d = Math.max(d, 1 - cdf(offset + counts.length - 0.5));
   return { statistic: d, pValue: kolmogorovSmirnovPValue(d, total) };
 }
+
+/** A chi-square comparison of counts of offset, offset+1, ... with their exact law, as reported by the check endpoints. */
+export interface ExactLawReport {
+  readonly law: 'exact';
+  readonly test: 'chi-square';
+  readonly statistic: number;
+  readonly pValue: number | null;
+  readonly degreesOfFreedom: number;
+  readonly offset: number;
+  readonly observed: number[];
+  readonly expected: number[];
+  readonly cells: readonly ChiSquareCell[];
+}
+
+/** binnedChiSquare of the counts against the law, with the cells labelled by their values. */
+export function exactLawReport(observed: number[], expected: number[], offset: number): ExactLawReport {
+  const result = binnedChiSquare(observed, expected);
+  return {
+    law: 'exact',
+    test: 'chi-square',
+    statistic: result.statistic,
+    pValue: result.pValue,
+    degreesOfFreedom: result.degreesOfFreedom,
+    offset,
+    observed,
+    expected,
+    cells: result.cells.map((c) => ({ ...c, from: c.from + offset, to: c.to + offset })),
+  };
+}
