@@ -4,16 +4,11 @@ import { partsOf, sizeOf } from '../../src/core/partition.js';
 import { RecursiveOracle } from '../../src/core/partitions/recursive-oracle.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { chiSquareTest } from '../support/chi-square.js';
+import { enumeratePartitions, partsKey } from '../support/enumerate-partitions.js';
 
-/** All partitions of n as keys "5,4,1" (parts largest first), by the standard recursion on the largest part. */
+/** All partitions of n as keys "5,4,1" (parts largest first). */
 function allPartitionKeys(n: number): string[] {
-  const out: string[] = [];
-  const walk = (rest: number, maxPart: number, prefix: number[]) => {
-    if (rest === 0) return void out.push(prefix.join(','));
-    for (let part = Math.min(rest, maxPart); part >= 1; part--) walk(rest - part, part, [...prefix, part]);
-  };
-  walk(n, n, []);
-  return out;
+  return enumeratePartitions(n).map(partsKey);
 }
 
 describe('exact partition numbers p(n)', () => {

@@ -9,28 +9,11 @@ import { gumbelScaling, largestPartLaw } from '../../src/core/pictures/largest-p
 import { DISTINCT_LIMIT_SHAPE, PARTITION_LIMIT_SHAPE } from '../../src/core/pictures/limit-shape.js';
 import { nextBelow, type RandomSource } from '../../src/core/random.js';
 import { sampleSource } from '../../src/core/seeding.js';
-
-/** Every partition of n, largest part first (brute force, independent of the counting tables). */
-function allPartitions(n: number, max = n): number[][] {
-  if (n === 0) return [[]];
-  const out: number[][] = [];
-  for (let first = Math.min(n, max); first >= 1; first--) for (const rest of allPartitions(n - first, first)) out.push([first, ...rest]);
-  return out;
-}
-
-function member(family: PartitionFamily, parts: number[]): boolean {
-  if (family.distinct && new Set(parts).size !== parts.length) return false;
-  if (family.minPart !== undefined && parts.some((p) => p < family.minPart!)) return false;
-  if (family.maxPart !== undefined && parts.some((p) => p > family.maxPart!)) return false;
-  if (family.length !== undefined && parts.length !== family.length) return false;
-  if (family.maxLength !== undefined && parts.length > family.maxLength) return false;
-  if (family.allowed !== undefined && parts.some((p) => !family.allowed!.includes(p))) return false;
-  return true;
-}
+import { allPartitions, satisfies } from '../support/enumerate-constrained.js';
 
 /** An exactly uniform reference sampler: enumerate the family, pick one with an exact uniform integer. */
 function enumeratingSampler(family: PartitionFamily): (source: RandomSource) => Partition {
-  const members = allPartitions(family.n).filter((p) => member(family, p));
+  const members = allPartitions(family.n).filter((p) => satisfies(p, family));
   return (source) => partitionFromParts(members[nextBelow(source, members.length)]);
 }
 
@@ -83,7 +66,7 @@ describe('the exact law of the largest part', () => {
       { kind: 'partition', n: 0 },
     ];
     for (const family of families) {
-      const members = allPartitions(family.n).filter((p) => member(family, p));
+      const members = allPartitions(family.n).filter((p) => satisfies(p, family));
       const law = largestPartLaw(family);
       expect(law.count, JSON.stringify(family)).toBe(members.length);
       for (let m = 0; m <= family.n; m++) {

@@ -1,28 +1,13 @@
 import type { PartitionFamily } from '../../src/core/family.js';
 import { partsOf, type Partition } from '../../src/core/partition.js';
+import { enumeratePartitions } from './enumerate-partitions.js';
 
 /**
  * Brute force, independent of the library's counting code: every partition of n as a list of
  * parts, largest first (plain recursion on the largest part), filtered by the family's
  * constraints read straight from their definitions. For n <= ~45 (p(45) = 89134, OEIS A000041).
  */
-export function allPartitions(n: number): number[][] {
-  const out: number[][] = [];
-  const current: number[] = [];
-  const walk = (rest: number, max: number) => {
-    if (rest === 0) {
-      out.push(current.slice());
-      return;
-    }
-    for (let part = Math.min(rest, max); part >= 1; part--) {
-      current.push(part);
-      walk(rest - part, part);
-      current.pop();
-    }
-  };
-  walk(n, n);
-  return out;
-}
+export const allPartitions = enumeratePartitions;
 
 /** Does a list of parts belong to the family? */
 export function satisfies(parts: readonly number[], family: PartitionFamily): boolean {
