@@ -48,6 +48,11 @@ describe('planned samplers are uniform (chi-square, alpha = 1e-4 each)', () => {
     ['k = 5 parts in [1, 4], n = 12', { n: 12, length: 5, maxPart: 4 }, 'count-table/1'],
     ['k = 4 parts from {0, 2, 5}, n = 12', { n: 12, length: 4, allowed: [0, 2, 5] }, 'count-table/1'],
     ['k = 9 parts, n = 12 (more bars than stars)', { n: 12, length: 9 }, 'gap-subset/1'],
+    // A part list in arithmetic progression is a full range once shifted and scaled
+    // ({2, 5, 8, 11} -> {0..3}, d = 3): gap-subset on the core, parts mapped back as 2 + 3v.
+    // (Regression: the planner once ignored the scale here and drew parts outside the list.)
+    ['k = 3 parts from {2, 5, 8, 11}, n = 15 (10)', { n: 15, length: 3, allowed: [2, 5, 8, 11] }, 'gap-subset/1'],
+    ['k = 6 parts from {2, 7}, n = 17 (6)', { n: 17, length: 6, allowed: [7, 2] }, 'gap-subset/1'],
   ];
   for (const [name, f, method] of cases) {
     it(name, () => {

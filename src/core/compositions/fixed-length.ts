@@ -53,16 +53,20 @@ export function weakCompositionWork(n: number, k: number): number {
 /**
  * Compositions of n into exactly k parts, each >= shift (shift 0: weak compositions; shift 1:
  * the ordinary case, a uniform (k-1)-subset of the n-1 gaps). Subtracting shift from every part
- * maps them onto weak compositions of n - k*shift.
+ * maps them onto weak compositions of n - k*shift. With `scale` d > 1 the parts are
+ * shift + d*v for a weak composition v of (n - k*shift)/d: the members of a part list such as
+ * {2, 7} (shift 2, d = 5) once its core (reduce.ts) is the full range {0..(n - k*shift)/d}.
  */
-export function fixedLengthSampler(n: number, k: number, shift: number): CompositionSampler {
-  const rest = n - k * shift;
+export function fixedLengthSampler(n: number, k: number, shift: number, scale = 1): CompositionSampler {
+  const rest = (n - k * shift) / scale;
+  if (!Number.isInteger(rest) || rest < 0) throw new RangeError(`n - k*shift = ${n - k * shift} must be a non-negative multiple of scale = ${scale}`);
   return {
     method: 'gap-subset/1',
     expectedLength: k,
     expectedWork: weakCompositionWork(rest, k),
     sample(source) {
       const parts = sampleWeakComposition(source, rest, k);
+      if (scale !== 1) for (let i = 0; i < k; i++) parts[i] *= scale;
       if (shift !== 0) for (let i = 0; i < k; i++) parts[i] += shift;
       return parts;
     },

@@ -92,7 +92,7 @@ function planFixed(resolved: ResolvedCompositions, core: FixedCore): Composition
   const { n, k, parts, shift } = core;
   const top = partBounds(parts).max;
   if (top === 0) return single(() => new Array<number>(k).fill(shift), k);
-  if (parts.kind === 'range' && top >= n) return fixedLengthSampler(resolved.n, k, shift);
+  if (parts.kind === 'range' && top >= n) return fixedLengthSampler(resolved.n, k, shift, core.scale);
   const cells = (k + 1) * (n + 1);
   const countBits = log2Binomial(n + k - 1, k - 1) + 1;
   const width = partCount(parts);
