@@ -53,6 +53,9 @@ describe('planned samplers are uniform (chi-square, alpha = 1e-4 each)', () => {
     // (Regression: the planner once ignored the scale here and drew parts outside the list.)
     ['k = 3 parts from {2, 5, 8, 11}, n = 15 (10)', { n: 15, length: 3, allowed: [2, 5, 8, 11] }, 'gap-subset/1'],
     ['k = 6 parts from {2, 7}, n = 17 (6)', { n: 17, length: 6, allowed: [7, 2] }, 'gap-subset/1'],
+    // Likewise without a length: {4, 8, 12} is 4 x {1, 2, 3}, every composition of 12 / 4 = 3.
+    ['allowed {4, 8, 12}, n = 12 (4)', { n: 12, allowed: [12, 4, 8] }, 'gap-bits/1'],
+    ['allowed {3, 6}, minPart 2, n = 6 (2)', { n: 6, minPart: 2, allowed: [3, 6] }, 'gap-bits/1'],
   ];
   for (const [name, f, method] of cases) {
     it(name, () => {

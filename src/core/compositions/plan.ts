@@ -67,7 +67,8 @@ function planFree(resolved: ResolvedCompositions, core: FreeCore): CompositionSa
   const { n, parts, scale } = core;
   const { min, max } = partBounds(parts);
   if (max === 1) return single(() => new Array<number>(n).fill(scale), n);
-  if (parts.kind === 'range' && min === 1 && max >= n) return unrestrictedSampler(n);
+  // Every composition of the core: all compositions of n (n·d with parts d·v when the list scaled by d, e.g. {3, 6}).
+  if (parts.kind === 'range' && min === 1 && max >= n) return unrestrictedSampler(n, scale);
   if (parts.kind === 'range' && Math.ceil(n / max) * min > n) {
     throw emptyFamily(resolved, `${Math.ceil(n / max)} parts are needed and they sum to at least ${Math.ceil(n / max) * min * scale}`);
   }

@@ -29,13 +29,25 @@ export function sampleUnrestricted(source: RandomSource, n: number): number[] {
   return parts;
 }
 
-export function unrestrictedSampler(n: number): CompositionSampler {
+/**
+ * Every composition of n, or with `scale` d every composition of n·d into multiples of d (parts
+ * d·v): the family of a part list such as {3, 6} or {4, 8, 12} whose core (reduce.ts) is all
+ * compositions.
+ */
+export function unrestrictedSampler(n: number, scale = 1): CompositionSampler {
   return {
     method: 'gap-bits/1',
     // 1 + Binomial(n-1, 1/2) parts.
     expectedLength: n === 0 ? 0 : (n + 1) / 2,
     // One word per 32 gaps plus one step per part.
     expectedWork: Math.ceil(Math.max(0, n - 1) / 32) + (n + 1) / 2,
-    sample: (source) => sampleUnrestricted(source, n),
+    sample:
+      scale === 1
+        ? (source) => sampleUnrestricted(source, n)
+        : (source) => {
+            const parts = sampleUnrestricted(source, n);
+            for (let i = 0; i < parts.length; i++) parts[i] *= scale;
+            return parts;
+          },
   };
 }
