@@ -19,7 +19,8 @@ export const partitionAsParts: SampleEncoder<Partition> = {
 
 export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   field: 'multiplicities',
-  json: (p) => p.sizes.map((size, i) => [size, p.multiplicities[i]]),
+  // As integers (`| 0`, exact below 2^31), for the same reason as in partsOf.
+  json: (p) => p.sizes.map((size, i) => [size | 0, p.multiplicities[i] | 0]),
   // "5 4 1^3": a part followed by ^multiplicity when it occurs more than once.
   text: (p) => p.sizes.map((size, i) => (p.multiplicities[i] > 1 ? `${size}^${p.multiplicities[i]}` : `${size}`)).join(' '),
 };

@@ -1,4 +1,4 @@
-import { canonicalFamily, type Family } from '../core/family.js';
+import type { Family } from '../core/family.js';
 import type { RandomSource } from '../core/random.js';
 import { sampleSource } from '../core/seeding.js';
 import type { SampleEncoder } from './encode.js';
@@ -9,7 +9,10 @@ import type { SampleFormat } from './schemas/common.js';
 
 /** What a sampling endpoint hands to the shared response writer. */
 export interface SamplingJob<S> {
+  /** The family, canonical (see canonicalFamily). */
   readonly family: Family;
+  /** familyKey(family): echoed in the body and part of every sample's stream. */
+  readonly familyKey: string;
   readonly sampler: { readonly method: string; readonly expectedWork: number; sample(source: RandomSource): S };
   readonly encoder: SampleEncoder<S>;
   /** Expected numbers one sample adds to the body (parts, or 2 per multiplicity pair). */
@@ -29,8 +32,17 @@ const CONTENT_TYPES: Record<SampleFormat, string> = {
 /** Bytes gathered before handing a chunk to the network: large enough to amortise, small enough to stream. */
 const CHUNK_CHARS = 64 * 1024;
 
+/**
+ * Bodies expected to hold at most this many numbers (a few kB) are built as one string in a
+ * plain loop (see wholeBody); most requests are this small.
+ */
+const WHOLE_BODY_NUMBERS = 2000;
+
+/** What the limits look at: how many samples, from where, and their expected size and work. */
+export type JobSize = Pick<SamplingJob<unknown>, 'sampler' | 'numbersPerSample' | 'start' | 'count'>;
+
 /** Refuses, before any work is done, a job whose expected size or work is over the limits. */
-export function checkJobLimits(job: SamplingJob<unknown>, limits: Limits): void {
+export function checkJobLimits(job: JobSize, limits: Limits): void {
   if (job.count > limits.maxCount) {
     // The schema admits up to MAX_COUNT so an operator can raise the limit; the configured one is checked here.
     const message = `must be a whole number from 1 to ${limits.maxCount}, written with digits only`;
@@ -65,26 +77,46 @@ export function checkJobLimits(job: SamplingJob<unknown>, limits: Limits): void 
  * (seed, i, family), so the pieces are the same whatever start and count frame them.
  */
 export function* bodyPieces<S>(job: SamplingJob<S>, deadline?: Deadline): Generator<string> {
-  const family = canonicalFamily(job.family);
-  const key = JSON.stringify(family); // = familyKey(job.family), without normalising twice
   const end = job.start + job.count;
-  if (job.format === 'json') {
-    const head = { family, seed: job.seed, start: job.start, method: job.sampler.method };
-    yield `${JSON.stringify(head).slice(0, -1)},"samples":[`;
-    for (let i = job.start; i < end; i++) {
-      deadline?.check(i - job.start);
-      const sample = job.sampler.sample(sampleSource(job.seed, i, key));
-      yield (i > job.start ? ',' : '') + JSON.stringify(job.encoder.json(sample));
-    }
-    yield ']}';
-    return;
-  }
+  if (job.format === 'json') yield jsonHead(job);
   for (let i = job.start; i < end; i++) {
     deadline?.check(i - job.start);
-    const sample = job.sampler.sample(sampleSource(job.seed, i, key));
-    yield job.format === 'ndjson'
-      ? `{"index":${i},"${job.encoder.field}":${JSON.stringify(job.encoder.json(sample))}}\n`
-      : `${job.encoder.text(sample)}\n`;
+    yield samplePiece(job, i);
+  }
+  if (job.format === 'json') yield JSON_TAIL;
+}
+
+/**
+ * The whole body as one string, produced in a plain loop: the same text as joining
+ * `bodyPieces`, without a generator's per-piece cost. For bodies that fit in one chunk.
+ */
+function wholeBody<S>(job: SamplingJob<S>, deadline?: Deadline): string {
+  const end = job.start + job.count;
+  let text = job.format === 'json' ? jsonHead(job) : '';
+  for (let i = job.start; i < end; i++) {
+    deadline?.check(i - job.start);
+    text += samplePiece(job, i);
+  }
+  return job.format === 'json' ? text + JSON_TAIL : text;
+}
+
+/** `{"family":…,"seed":…,"start":…,"method":…,"samples":[` — the family is its key, already JSON. */
+function jsonHead(job: SamplingJob<unknown>): string {
+  return `{"family":${job.familyKey},"seed":${JSON.stringify(job.seed)},"start":${job.start},"method":${JSON.stringify(job.sampler.method)},"samples":[`;
+}
+
+const JSON_TAIL = ']}';
+
+/** Sample i of the job, encoded for its format (with its separator or line end). */
+function samplePiece<S>(job: SamplingJob<S>, i: number): string {
+  const sample = job.sampler.sample(sampleSource(job.seed, i, job.familyKey));
+  switch (job.format) {
+    case 'json':
+      return (i > job.start ? ',' : '') + JSON.stringify(job.encoder.json(sample));
+    case 'ndjson':
+      return `{"index":${i},"${job.encoder.field}":${JSON.stringify(job.encoder.json(sample))}}\n`;
+    default:
+      return `${job.encoder.text(sample)}\n`;
   }
 }
 
@@ -118,6 +150,13 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * (see `bodyStream`).
  */
 export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
+  if (job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
+    try {
+      return wholeBody(job, deadline);
+    } catch (error) {
+      throw stoppedProblem(error, job.start);
+    }
+  }
   const pieces = bodyPieces(job, deadline);
   const first = takeChunk(pieces);
   if (first.stopped !== undefined) throw stoppedProblem(first.stopped, job.start);

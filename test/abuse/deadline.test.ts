@@ -92,6 +92,7 @@ describe('errors inside a stream', () => {
     let drawn = 0;
     return {
       family: { kind: 'partition', n: 3 },
+      familyKey: '{"kind":"partition","n":3}',
       sampler: {
         method: 'failing/1',
         expectedWork: 1,

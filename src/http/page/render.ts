@@ -8,7 +8,6 @@ import { DIAGRAM_LIMITS } from '../../core/pictures/ferrers.js';
 import { compositionSvg } from '../../core/pictures/composition-svg.js';
 import { ferrersSvg } from '../../core/pictures/ferrers-svg.js';
 import { sampleSource } from '../../core/seeding.js';
-import { compositionAsParts, partitionAsParts } from '../encode.js';
 import type { AppContext } from '../endpoint.js';
 import { ProblemError } from '../problem.js';
 import { checkJobLimits } from '../sampling.js';
@@ -104,7 +103,7 @@ function draw(form: FormState, context: AppContext): Drawn {
   if (form.family.kind === 'partition') {
     const family = partitionFamilyOf(query as PartitionsQuery);
     const sampler = planPartitionSampler(family);
-    checkJobLimits({ family, sampler, encoder: partitionAsParts, numbersPerSample: sampler.expectedLength, seed, start: 0, count: query.count, format: 'json' }, context.limits);
+    checkJobLimits({ sampler, numbersPerSample: sampler.expectedLength, start: 0, count: query.count }, context.limits);
     const key = familyKey(family);
     for (let i = 0; i < shown; i++) samples.push(partsOf(sampler.sample(sampleSource(seed, i, key))));
     head = { family, seed, start: 0, method: sampler.method };
@@ -112,7 +111,7 @@ function draw(form: FormState, context: AppContext): Drawn {
   } else {
     const family = compositionFamilyOf(query);
     const sampler = planCompositionSampler(family);
-    checkJobLimits({ family, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: 0, count: query.count, format: 'json' }, context.limits);
+    checkJobLimits({ sampler, numbersPerSample: sampler.expectedLength, start: 0, count: query.count }, context.limits);
     const key = familyKey(family);
     samples = Array.from({ length: shown }, (_, i) => sampler.sample(sampleSource(seed, i, key)));
     head = { family, seed, start: 0, method: sampler.method };

@@ -32,12 +32,13 @@ export const compositionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const family = compositionFamilyOf(query);
-    const sampler = context.compositionSamplers.getOrCreate(familyKey(family), () => planCompositionSampler(family));
+    const key = familyKey(family);
+    const sampler = context.compositionSamplers.getOrCreate(key, () => planCompositionSampler(family));
     return respondWithSamples(
       request,
       COMPOSITIONS_PATH,
       { ...query, seed },
-      { family, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
+      { family, familyKey: key, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
       seeded,
       context.limits,
     );

@@ -35,7 +35,8 @@ export const partitionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const family = partitionFamilyOf(query);
-    const sampler = context.partitionSamplers.getOrCreate(familyKey(family), () => planPartitionSampler(family));
+    const key = familyKey(family);
+    const sampler = context.partitionSamplers.getOrCreate(key, () => planPartitionSampler(family));
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
       request,
@@ -43,6 +44,7 @@ export const partitionsEndpoint = defineEndpoint({
       { ...query, seed },
       {
         family,
+        familyKey: key,
         sampler,
         encoder: multiplicities ? partitionAsMultiplicities : partitionAsParts,
         numbersPerSample: multiplicities ? 2 * sampler.expectedDistinct : sampler.expectedLength,
