@@ -1,18 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { hash128, sortedQuery, strongEtag } from '../../src/http/caching.js';
+import { sortedQuery, strongEtag } from '../../src/http/caching.js';
 
-describe('ETag hash', () => {
-  it('is 32 hex digits, deterministic, and sensitive to every character', () => {
-    const base = 'n=1000&seed=demo';
-    expect(hash128(base)).toMatch(/^[0-9a-f]{32}$/);
-    expect(hash128(base)).toBe(hash128(base));
-    const seen = new Set<string>();
-    for (let i = 0; i < base.length; i++) {
-      const changed = base.slice(0, i) + String.fromCharCode(base.charCodeAt(i) ^ 1) + base.slice(i + 1);
-      seen.add(hash128(changed));
-    }
-    expect(seen.size).toBe(base.length);
-    expect(seen.has(hash128(base))).toBe(false);
+describe('ETag', () => {
+  it('is a quoted 32-hex-digit strong tag, deterministic, and changes with every query value', () => {
+    const tag = strongEtag('/v1/partitions', { n: 1000, seed: 'demo' });
+    expect(tag).toMatch(/^"[0-9a-f]{32}"$/);
+    expect(strongEtag('/v1/partitions', { n: 1000, seed: 'demo' })).toBe(tag);
+    expect(strongEtag('/v1/partitions', { n: 1001, seed: 'demo' })).not.toBe(tag);
+    expect(strongEtag('/v1/partitions', { n: 1000, seed: 'demp' })).not.toBe(tag);
+    expect(strongEtag('/v1/compositions', { n: 1000, seed: 'demo' })).not.toBe(tag);
   });
   it('gives 100,000 distinct seeds 100,000 distinct tags', () => {
     const tags = new Set<string>();
