@@ -9,9 +9,10 @@ import type { RandomSource } from './random.js';
  * compositions in test/compositions/properties.test.ts).
  *
  * 1: Alea seeded by its own string hash (Mash) of the stream key.
- * 2: Alea's state set from MurmurHash3 of the stream key (same key, same samplers): Mash costs
- *    ~70 ns per character, three passes over a ~55-character key, and was the largest single
- *    cost of a small request.
+ * 2: Alea's state set from MurmurHash3 of the stream key (same key): Mash costs ~70 ns per
+ *    character, three passes over a ~55-character key, and was the largest single cost of a
+ *    small request. Unrestricted partitions use the table method up to n = 1000 (was 500), also
+ *    as the base of the self-similar recursion.
  */
 export const ALGORITHM_VERSION = 2;
 

@@ -31,22 +31,30 @@ describe('golden vectors (seed "golden")', () => {
     expect(draw(10, 7)).toEqual({ sizes: [7, 1], multiplicities: [1, 3] });
   });
 
-  it('n = 1000 (self-similar method)', () => {
-    expect(fingerprint(1000, 0)).toEqual({ distinct: 22, largest: 47, ones: 43, sha256: '85c2468ecb5b70e2' });
-    expect(fingerprint(1000, 1)).toEqual({ distinct: 27, largest: 78, ones: 3, sha256: '79065e60af8ae855' });
-    expect(fingerprint(1000, 7)).toEqual({ distinct: 21, largest: 73, ones: 75, sha256: 'f848ab59f77e5bf7' });
+  it('n = 1000 (table method, its largest n)', () => {
+    expect(fingerprint(1000, 0)).toEqual({ distinct: 26, largest: 126, ones: 4, sha256: 'c4685fe12ce61de5' });
+    expect(fingerprint(1000, 1)).toEqual({ distinct: 26, largest: 131, ones: 91, sha256: '820267267dadcc75' });
+    expect(fingerprint(1000, 7)).toEqual({ distinct: 22, largest: 144, ones: 8, sha256: 'c5c78de7c550b434' });
+  });
+
+  it('n = 1001 (self-similar method, its smallest n)', () => {
+    expect(fingerprint(1001, 0)).toEqual({ distinct: 25, largest: 87, ones: 13, sha256: 'e237431ff7431adc' });
+    expect(fingerprint(1001, 1)).toEqual({ distinct: 23, largest: 100, ones: 37, sha256: '7f2d4178ef3c3ed4' });
+    expect(fingerprint(1001, 7)).toEqual({ distinct: 26, largest: 87, ones: 123, sha256: 'd3a46b169f3a9549' });
   });
 
   it('n = 1,000,000 (self-similar method)', () => {
-    expect(fingerprint(1_000_000, 0)).toEqual({ distinct: 794, largest: 4981, ones: 593, sha256: '9db34d329d62f4af' });
-    expect(fingerprint(1_000_000, 1)).toEqual({ distinct: 789, largest: 4917, ones: 1807, sha256: '0c55db1f347bea36' });
-    expect(fingerprint(1_000_000, 7)).toEqual({ distinct: 790, largest: 6439, ones: 2411, sha256: '30148733437ed5dd' });
+    expect(fingerprint(1_000_000, 0)).toEqual({ distinct: 794, largest: 4981, ones: 593, sha256: '97caafa16b13512b' });
+    expect(fingerprint(1_000_000, 1)).toEqual({ distinct: 792, largest: 7168, ones: 1807, sha256: 'd98dec5188f7bd6f' });
+    expect(fingerprint(1_000_000, 7)).toEqual({ distinct: 788, largest: 6439, ones: 2411, sha256: 'c15bca8fa3f1eea7' });
   });
 
   it('sample i does not depend on other samples (fresh sampler vs reused sampler)', () => {
-    const sampler = unrestrictedPartitionSampler(1000);
-    const key = familyKey({ kind: 'partition', n: 1000 });
-    const reused = [0, 1, 7].map((i) => sampler.sample(sampleSource('golden', i, key)));
-    expect(reused).toEqual([draw(1000, 0), draw(1000, 1), draw(1000, 7)]);
+    for (const n of [1000, 1001]) {
+      const sampler = unrestrictedPartitionSampler(n);
+      const key = familyKey({ kind: 'partition', n });
+      const reused = [0, 1, 7].map((i) => sampler.sample(sampleSource('golden', i, key)));
+      expect(reused).toEqual([draw(n, 0), draw(n, 1), draw(n, 7)]);
+    }
   });
 });

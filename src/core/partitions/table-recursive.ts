@@ -11,8 +11,8 @@ import type { PartitionSampler } from '../sampler.js';
  * Filled lazily up to the largest m asked for; memory (maxN+1)(maxN+2)/2 doubles.
  */
 export class RestrictedPartitionTable {
-  /** Largest m the table will be built for (about 2 MB of doubles). */
-  static readonly MAX_N = 700;
+  /** Largest m the table will be built for (500,500 doubles: 4 MB). */
+  static readonly MAX_N = 1000;
 
   private values = new Float64Array(1).fill(1); // row 0: p(0, ≤0) = 1
   private rows = 1;
