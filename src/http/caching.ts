@@ -9,9 +9,13 @@ import { ALGORITHM_VERSION } from '../core/seeding.js';
  * of MurmurHash3, synchronous and fast (Web Crypto's SHA-256 is async and cost ~150 µs per
  * request); an ETag needs distinct requests to get distinct tags, not resistance to an adversary.
  * An unseeded response used a freshly drawn seed and must never be stored.
+ *
+ * `parsedQuery` is the query as the endpoint's zod schema returned it: zod lists the schema's
+ * keys in schema order whatever order the URL gave them in, and fills in defaults, so
+ * equivalent spellings of a request serialise alike (tested in etag.test.ts).
  */
-export function strongEtag(path: string, canonicalQuery: unknown): string {
-  return `"${murmur3Hex(`${APP_VERSION}|${ALGORITHM_VERSION}|${path}|${JSON.stringify(canonicalQuery)}`)}"`;
+export function strongEtag(path: string, parsedQuery: unknown): string {
+  return `"${murmur3Hex(`${APP_VERSION}|${ALGORITHM_VERSION}|${path}|${JSON.stringify(parsedQuery)}`)}"`;
 }
 
 export const IMMUTABLE = 'public, max-age=31536000, immutable';
@@ -23,18 +27,4 @@ export function matchesIfNoneMatch(request: Request, etag: string): boolean {
   if (!header) return false;
   if (header.trim() === '*') return true;
   return header.split(',').some((tag) => tag.trim().replace(/^W\//, '') === etag);
-}
-
-/** Query values with keys sorted, so equivalent spellings of a request share one ETag. */
-export function sortedQuery(query: Record<string, unknown>): Record<string, unknown> {
-  // A plain object rather than a null-prototype one (which V8 keeps in slow dictionary mode:
-  // 0.5 µs more per request); "__proto__" is defined as an own property, never assigned.
-  const sorted: Record<string, unknown> = {};
-  for (const key of Object.keys(query).sort()) {
-    const value = query[key];
-    if (value === undefined) continue;
-    if (key === '__proto__') Object.defineProperty(sorted, key, { value, enumerable: true, writable: true, configurable: true });
-    else sorted[key] = value;
-  }
-  return sorted;
 }

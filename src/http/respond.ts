@@ -1,4 +1,4 @@
-import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from './caching.js';
+import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
 import { deadlineOf } from './deadline.js';
 import { completeResponse } from './middleware/complete-response.js';
@@ -24,7 +24,7 @@ export function respondWithSamples<S>(
     'partsmith-method': job.sampler.method,
   };
   if (seeded) {
-    const etag = strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, query);
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) {
@@ -42,7 +42,7 @@ export function respondWithSamples<S>(
 export function respondWithJson(request: Request, path: string, query: Record<string, unknown> | null, body: unknown): Response {
   const headers: Record<string, string> = { 'content-type': 'application/json; charset=utf-8' };
   if (query) {
-    const etag = strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, query);
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });

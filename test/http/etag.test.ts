@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { sortedQuery, strongEtag } from '../../src/http/caching.js';
+import { strongEtag } from '../../src/http/caching.js';
+import { parseQuery } from '../../src/http/query.js';
+import { partitionsCountQuery, partitionsQuery } from '../../src/http/schemas/partitions.js';
 
 describe('ETag', () => {
   it('is a quoted 32-hex-digit strong tag, deterministic, and changes with every query value', () => {
@@ -15,12 +17,16 @@ describe('ETag', () => {
     for (let i = 0; i < 100_000; i++) tags.add(strongEtag('/v1/partitions', { n: 1000, seed: `s${i}` }));
     expect(tags.size).toBe(100_000);
   });
-  it('canonicalises the query: keys in code-point order, undefined values dropped, "__proto__" kept as data', () => {
-    const query = JSON.parse('{"seed":"x","n":5,"__proto__":"p","as":"parts","start":0}') as Record<string, unknown>;
-    query.count = undefined;
-    const sorted = sortedQuery(query);
-    // Expected text written by hand from the rule (ECMA-262 JSON.stringify on own keys, in order).
-    expect(JSON.stringify(sorted)).toBe('{"__proto__":"p","as":"parts","n":5,"seed":"x","start":0}');
-    expect(Object.getPrototypeOf(sorted)).toBe(Object.prototype);
+  it('hashes the parsed query, which has the same JSON however the URL orders and spells it', () => {
+    const spellings = [
+      '/v1/partitions?n=30&count=3&seed=spell',
+      '/v1/partitions?seed=spell&count=3&n=030&format=json&as=parts&start=0',
+      '/v1/partitions?as=parts&start=0&format=json&n=30&seed=spell&count=3',
+    ].map((url) => JSON.stringify(parseQuery(url, partitionsQuery)));
+    // Schema order, defaults filled in (see the schema in src/http/schemas).
+    expect(spellings[0]).toBe('{"n":30,"count":3,"seed":"spell","start":0,"format":"json","as":"parts"}');
+    expect(new Set(spellings).size).toBe(1);
+    const countSpellings = ['/v1/partitions/count?n=9&distinct=true&maxPart=5', '/v1/partitions/count?maxPart=5&distinct=true&n=9'];
+    expect(new Set(countSpellings.map((url) => JSON.stringify(parseQuery(url, partitionsCountQuery)))).size).toBe(1);
   });
 });

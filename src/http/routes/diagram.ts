@@ -5,7 +5,7 @@ import { checkDiagramLimits, conjugateParts, DIAGRAM_LIMITS, ferrersText, sorted
 import { ferrersSvg } from '../../core/pictures/ferrers-svg.js';
 import { LimitExceededError } from '../../core/errors.js';
 import { sampleSource } from '../../core/seeding.js';
-import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, sortedQuery, strongEtag } from '../caching.js';
+import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, strongEtag } from '../caching.js';
 import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { diagramQuery } from '../schemas/diagram.js';
@@ -31,7 +31,7 @@ export async function respondWithBody(
 ): Promise<Response> {
   const headers: Record<string, string> = { 'content-type': contentType, ...extraHeaders };
   if (query) {
-    const etag = strongEtag(path, sortedQuery(query));
+    const etag = strongEtag(path, query);
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) return new Response(null, { status: 304, headers: { etag, 'cache-control': IMMUTABLE } });
