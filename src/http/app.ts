@@ -113,7 +113,9 @@ function familyProblem(error: unknown, query: Record<string, unknown>): unknown 
 /** Maps anything thrown while handling a request to a problem; internals never leak into the body. */
 export function toProblem(error: unknown): ProblemError {
   if (error instanceof ProblemError) return error;
-  if (error instanceof LimitExceededError && !error.message.includes(error.limit)) {
+  // A limit is always named as one, so clients (and the fuzz contract) can tell "too big for
+  // this service" from "malformed": "... for n <= 100000, got 1000000000 (limit: n <= 100000)".
+  if (error instanceof LimitExceededError && !/\blimit\b/i.test(error.message)) {
     return new ProblemError(422, `${error.message} (limit: ${error.limit})`);
   }
   // The core raises RangeErrors (EmptyFamilyError and LimitExceededError among them) for

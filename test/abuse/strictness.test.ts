@@ -50,6 +50,16 @@ describe('strict parameters', () => {
       expect(JSON.parse(text).detail).toBeTruthy();
     }
   });
+
+  it('a request past a limit of the service is a 422 that says "limit", naming which', async () => {
+    // Found by the long fuzz run: the exact count of p(n) past n = 100000 was refused without
+    // saying that a limit, rather than the query, was the reason.
+    for (const path of ['/v1/partitions/count?n=1000000000', '/v1/partitions/count?n=100001']) {
+      const response = await get(path);
+      expect(response.status).toBe(422);
+      expect((await response.json()).detail).toMatch(/\(limit: n <= 100000\)$/);
+    }
+  });
 });
 
 describe('methods and CORS', () => {

@@ -74,7 +74,7 @@ function countMethods(family: PartitionFamily): CountMethod[] | bigint | null {
   if (isUnrestricted(spec)) {
     if (n > PartitionNumbers.MAX_N) {
       throw new LimitExceededError(
-        `the exact number of partitions is computed for n <= ${PartitionNumbers.MAX_N}`,
+        `the exact number of partitions is computed for n <= ${PartitionNumbers.MAX_N}, got ${n}`,
         `n <= ${PartitionNumbers.MAX_N}`,
       );
     }
