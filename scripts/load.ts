@@ -14,6 +14,8 @@ import { rssMb, startServer, type RunningServer } from './load/servers.js';
  * markdown table; exits 1 when any request failed.
  *
  *   npm run load -- --duration 8 --soak 60 --connections 64,256 --n 1000 --big-n 1000000 --batch 10
+ *   npm run load -- --soak 0 --ceiling 0,10,20   (adds reference rows: what the HTTP stack and
+ *                                               a given amount of per-request work cost here)
  */
 const { values: flags } = parseArgs({
   options: {
@@ -24,6 +26,9 @@ const { values: flags } = parseArgs({
     'big-n': { type: 'string', default: '1000000' },
     batch: { type: 'string', default: '10' },
     'max-requests': { type: 'string', default: '2000000' },
+    // Reference rows: a Hono app with partsmith's headers and a fixed body, after this many µs
+    // of busy work per request (comma-separated, e.g. 0,10,20; empty: none). See fixed-hono-server.ts.
+    ceiling: { type: 'string', default: '' },
   },
 });
 
@@ -38,6 +43,8 @@ for (const [name, value] of Object.entries({ phaseMs, soakMs, n, bigN, batch, ma
   if (!Number.isFinite(value) || value < 0) throw new Error(`bad flag value for ${name}: ${value}`);
 }
 if (connectionCounts.some((c) => !Number.isInteger(c) || c < 1 || c > 1024)) throw new Error('--connections must be whole numbers from 1 to 1024');
+const ceilingWork = flags.ceiling ? flags.ceiling.split(',').map(Number) : [];
+if (ceilingWork.some((us) => !Number.isFinite(us) || us < 0 || us > 10_000)) throw new Error('--ceiling must list microseconds from 0 to 10000');
 
 interface Row {
   readonly scenario: string;
@@ -105,23 +112,28 @@ async function main(): Promise<void> {
   console.error(`load: ${phaseMs / 1000} s per phase, soak ${soakMs / 1000} s, connections ${connectionCounts.join('/')}, loopback only`);
   const bare = await startServer('bare node:http', `${root}scripts/load/bare-server.ts`);
   const partsmith = await startServer('partsmith', `${root}src/node.ts`);
+  const references: RunningServer[] = [];
   try {
+    for (const us of ceilingWork) references.push(await startServer(`fixed Hono, ${us} µs work`, `${root}scripts/load/fixed-hono-server.ts`, { WORK_US: String(us) }));
     const baseline: Record<number, number> = {};
     const single: Record<number, number> = {};
     const stack: Record<number, number> = {};
+    const reference: Record<number, number[]> = {};
     for (const connections of connectionCounts) {
-      const [bareRow, singleRow, stackRow] = await interleaved(
+      const [bareRow, singleRow, stackRow, ...referenceRows] = await interleaved(
         4,
         [
           { scenario: 'baseline: fixed 200-byte JSON', server: bare, request: bareRequest },
           { scenario: `(a) n = ${n}, 1 sample`, server: partsmith, request: sampleRequest(n, 1, `a${connections}`) },
           { scenario: '(a0) n = 10, 1 sample (HTTP stack)', server: partsmith, request: sampleRequest(10, 1, `z${connections}`) },
+          ...references.map((server, k) => ({ scenario: `(ref) fixed n = 1000 response from Hono + ${ceilingWork[k]} µs busy work`, server, request: sampleRequest(n, 1, `r${connections}`) })),
         ],
         connections,
       );
       baseline[connections] = bareRow.result.requestsPerSecond;
       single[connections] = singleRow.result.requestsPerSecond;
       stack[connections] = stackRow.result.requestsPerSecond;
+      reference[connections] = referenceRows.map((row) => row.result.requestsPerSecond);
     }
     const big = await servedN(partsmith, bigN);
     const bigBatch = big === bigN ? batch : 1;
@@ -140,6 +152,9 @@ async function main(): Promise<void> {
     console.log('|---|' + connectionCounts.map(() => '---:').join('|') + '|');
     console.log(`| (a) n = ${n}, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * single[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
     console.log(`| (a0) n = 10, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * stack[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
+    for (const [k, us] of ceilingWork.entries()) {
+      console.log(`| (ref) fixed response from Hono + ${us} µs work | ` + connectionCounts.map((c) => `${fmt((100 * reference[c][k]) / baseline[c], 1)}%`).join(' | ') + ' |');
+    }
     const soak = rows.find((row) => row.scenario.startsWith('soak'));
     if (soak) console.log(`\nRSS growth over the ${soakMs / 1000} s soak: ${fmt(soak.rssAfter - soak.rssBefore, 1)} MB (${fmt(soak.rssBefore, 1)} -> ${fmt(soak.rssAfter, 1)} MB).`);
     const totalErrors = rows.reduce((sum, row) => sum + row.result.errors, 0);
@@ -147,7 +162,7 @@ async function main(): Promise<void> {
     for (const note of notes) console.log(`Note: ${note}`);
     if (totalErrors > 0) process.exitCode = 1;
   } finally {
-    await Promise.all([bare.stop(), partsmith.stop()]);
+    await Promise.all([bare.stop(), partsmith.stop(), ...references.map((server) => server.stop())]);
   }
 }
 
