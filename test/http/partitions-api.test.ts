@@ -1,4 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { familyKey, type PartitionFamily } from '../../src/core/family.js';
+import { partsOf } from '../../src/core/partition.js';
+import { planPartitionSampler } from '../../src/core/partitions/plan.js';
+import { sampleSource } from '../../src/core/seeding.js';
 import { appClient } from './helpers.js';
 
 const { get } = appClient();
@@ -31,6 +35,15 @@ describe('GET /v1/partitions', () => {
     const one = (await json('/v1/partitions?n=40&start=7&seed=slice')).body.samples;
     expect(tail).toEqual(whole.slice(5));
     expect(one).toEqual([whole[7]]);
+  });
+
+  it('serves sample i of the core stream (seed, i, familyKey(family)), however the family is spelled', async () => {
+    const family: PartitionFamily = { kind: 'partition', n: 40, minPart: 2, allowed: [2, 3, 7, 11] };
+    const sampler = planPartitionSampler(family);
+    const expected = [3, 4, 5].map((i) => partsOf(sampler.sample(sampleSource('core', i, familyKey(family)))));
+    const { body } = await json('/v1/partitions?allowed=11,3,7,2,3&n=40&minPart=2&seed=core&start=3&count=3');
+    expect(body.samples).toEqual(expected);
+    expect(JSON.stringify(body.family)).toBe(familyKey(family));
   });
 
   it('answers the same URL twice with byte-identical bodies and the same strong ETag', async () => {

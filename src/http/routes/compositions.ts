@@ -1,5 +1,5 @@
 import { planCompositionSampler, countCompositions } from '../../core/compositions/plan.js';
-import { canonicalFamily, familyKey, type CompositionFamily } from '../../core/family.js';
+import { canonicalFamily, type CompositionFamily } from '../../core/family.js';
 import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
@@ -32,7 +32,7 @@ export const compositionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const family = compositionFamilyOf(query);
-    const key = familyKey(family);
+    const key = JSON.stringify(family); // = familyKey(family): compositionFamilyOf already returns the canonical form
     const sampler = context.compositionSamplers.getOrCreate(key, () => planCompositionSampler(family));
     return respondWithSamples(
       request,

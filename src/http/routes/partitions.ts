@@ -1,4 +1,4 @@
-import { canonicalFamily, familyKey, type PartitionFamily } from '../../core/family.js';
+import { canonicalFamily, type PartitionFamily } from '../../core/family.js';
 import { countPartitions } from '../../core/counting/partition-counts.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
@@ -35,7 +35,7 @@ export const partitionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const family = partitionFamilyOf(query);
-    const key = familyKey(family);
+    const key = JSON.stringify(family); // = familyKey(family): partitionFamilyOf already returns the canonical form
     const sampler = context.partitionSamplers.getOrCreate(key, () => planPartitionSampler(family));
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
