@@ -12,7 +12,8 @@ import type { RandomSource } from './random.js';
  * 2: Alea's state set from MurmurHash3 of the stream key (same key): Mash costs ~70 ns per
  *    character, three passes over a ~55-character key, and was the largest single cost of a
  *    small request. Unrestricted partitions use the table method up to n = 1000 (was 500), also
- *    as the base of the self-similar recursion.
+ *    as the base of the self-similar recursion, and it draws each distinct size's multiplicity
+ *    at once (table-recursive.ts).
  */
 export const ALGORITHM_VERSION = 2;
 

@@ -57,7 +57,8 @@ const logP = new LogPartitionNumbers();
 
 const cases: Array<[string, number, number, () => PartitionSampler | { sample: PartitionSampler['sample'] }]> = [
   ['planner (table method)', 100, 200_000, () => unrestrictedPartitionSampler(100)],
-  ['planner (self-similar)', 1000, 100_000, () => unrestrictedPartitionSampler(1000)],
+  ['planner (table method, its largest n)', 1000, 100_000, () => unrestrictedPartitionSampler(1000)],
+  ['planner (self-similar, table base at 1000)', 3000, 30_000, () => unrestrictedPartitionSampler(3000)],
   ['self-similar, no table base', 100, 100_000, () => new SelfSimilarSampler(100, { baseThreshold: 0, table, logP })],
   ['self-similar, base 20', 1000, 100_000, () => new SelfSimilarSampler(1000, { baseThreshold: 20, table, logP })],
   ['divide-and-conquer', 1000, 30_000, () => new DivideAndConquerSampler(1000)],

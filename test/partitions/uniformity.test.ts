@@ -11,11 +11,12 @@ import { uniformityPValue } from '../support/partition-checks.js';
 const ALPHA = 1e-4;
 const SAMPLES = 100_000;
 
-// p(10) = 42, p(12) = 77, p(15) = 176 (OEIS A000041).
+// p(10) = 42, p(12) = 77, p(15) = 176, p(20) = 627 (OEIS A000041).
 const P = new Map([
   [10, 42],
   [12, 77],
   [15, 176],
+  [20, 627],
 ]);
 
 const table = new RestrictedPartitionTable();
@@ -41,6 +42,16 @@ describe.each(methods)('uniformity of %s', (name, make) => {
     const source = sampleSource(`chi-${name.replace(/[^a-z]/g, '')}-${n}`, 0, 'test');
     const { pValue, cells } = uniformityPValue(n, SAMPLES, source, (s) => sampler.sample(s));
     expect(cells).toBe(P.get(n));
+    expect(pValue).toBeGreaterThan(ALPHA);
+  });
+});
+
+describe('uniformity of table-recursive with multiplicities up to 10 (n = 20)', () => {
+  // The table method draws each distinct size's multiplicity at once; n = 20 has 1^20, 2^10, 3^6, ...
+  it('over all 627 partitions of 20 (about 160 samples per partition)', () => {
+    const sampler = new TableRecursiveSampler(20, table);
+    const { pValue, cells } = uniformityPValue(20, SAMPLES, sampleSource('chi-table-20', 0, 'test'), (s) => sampler.sample(s));
+    expect(cells).toBe(P.get(20));
     expect(pValue).toBeGreaterThan(ALPHA);
   });
 });

