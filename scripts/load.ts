@@ -59,12 +59,20 @@ interface Row {
 const rows: Row[] = [];
 const notes: string[] = [];
 
+/** A side's merged result plus its req/s relative to the first side, round by round. */
+interface InterleavedRow extends Row {
+  /** req/s of this side over req/s of the first side (the baseline) in the same round. */
+  readonly roundRatios: readonly number[];
+}
+
 /**
- * Runs two phases in alternating slices (A B A B ...) and merges each side: background load on
- * a shared machine drifts, and interleaving spreads the drift over both sides of a ratio.
- * Each server first gets an unmeasured warm-up slice (JIT, connection setup).
+ * Runs several phases in alternating slices (A B C A B C ...) and merges each side. This
+ * machine's speed drifts by a factor of two within seconds (shared cores), so each ratio is
+ * also taken round by round — a slice against the baseline slice just before it — and its
+ * median is quoted next to the ratio of the merged totals. Each server first gets an unmeasured
+ * warm-up slice (JIT, connection setup).
  */
-async function interleaved(rounds: number, sides: readonly { scenario: string; server: RunningServer; request: LoadPhase['request'] }[], connections: number): Promise<Row[]> {
+async function interleaved(rounds: number, sides: readonly { scenario: string; server: RunningServer; request: LoadPhase['request'] }[], connections: number): Promise<InterleavedRow[]> {
   const slices: LoadResult[][] = sides.map(() => []);
   const rss = sides.map((side) => ({ before: rssMb(side.server.pid), after: NaN }));
   for (const side of sides) await runLoad({ origin: side.server.origin, connections, durationMs: Math.min(1000, phaseMs / 4), maxRequests, request: side.request });
@@ -75,12 +83,19 @@ async function interleaved(rounds: number, sides: readonly { scenario: string; s
   }
   return sides.map((side, k) => {
     const result = mergeResults(slices[k]);
-    const row = { scenario: side.scenario, server: side.server.name, connections, result, rssBefore: rss[k].before, rssAfter: rssMb(side.server.pid) };
+    const roundRatios = slices[k].map((slice, round) => slice.requestsPerSecond / slices[0][round].requestsPerSecond);
+    const row = { scenario: side.scenario, server: side.server.name, connections, result, rssBefore: rss[k].before, rssAfter: rssMb(side.server.pid), roundRatios };
     rows.push(row);
     console.error(`  ${side.scenario} (${side.server.name}, ${connections} conns): ${result.requestsPerSecond.toFixed(0)} req/s, p50 ${result.p50Ms.toFixed(1)} ms, p99 ${result.p99Ms.toFixed(1)} ms, ${result.errors} errors`);
     for (const sample of result.errorSamples) console.error(`    error: ${sample}`);
     return row;
   });
+}
+
+function median(values: readonly number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
 }
 
 async function phase(scenario: string, server: RunningServer, connections: number, request: LoadPhase['request'], durationMs = phaseMs, note?: string): Promise<Row> {
@@ -115,13 +130,11 @@ async function main(): Promise<void> {
   const references: RunningServer[] = [];
   try {
     for (const us of ceilingWork) references.push(await startServer(`fixed Hono, ${us} µs work`, `${root}scripts/load/fixed-hono-server.ts`, { WORK_US: String(us) }));
-    const baseline: Record<number, number> = {};
-    const single: Record<number, number> = {};
-    const stack: Record<number, number> = {};
-    const reference: Record<number, number[]> = {};
+    // Ratio rows of the summary: scenario -> connections -> the interleaved row.
+    const ratioRows = new Map<string, Map<number, InterleavedRow>>();
     for (const connections of connectionCounts) {
-      const [bareRow, singleRow, stackRow, ...referenceRows] = await interleaved(
-        4,
+      const [, ...compared] = await interleaved(
+        Math.max(4, Math.round(phaseMs / 1000)),
         [
           { scenario: 'baseline: fixed 200-byte JSON', server: bare, request: bareRequest },
           { scenario: `(a) n = ${n}, 1 sample`, server: partsmith, request: sampleRequest(n, 1, `a${connections}`) },
@@ -130,10 +143,10 @@ async function main(): Promise<void> {
         ],
         connections,
       );
-      baseline[connections] = bareRow.result.requestsPerSecond;
-      single[connections] = singleRow.result.requestsPerSecond;
-      stack[connections] = stackRow.result.requestsPerSecond;
-      reference[connections] = referenceRows.map((row) => row.result.requestsPerSecond);
+      for (const row of compared) {
+        if (!ratioRows.has(row.scenario)) ratioRows.set(row.scenario, new Map());
+        ratioRows.get(row.scenario)!.set(connections, row);
+      }
     }
     const big = await servedN(partsmith, bigN);
     const bigBatch = big === bigN ? batch : 1;
@@ -148,12 +161,17 @@ async function main(): Promise<void> {
       const r = row.result;
       console.log(`| ${row.scenario} | ${row.server} | ${row.connections} | ${r.requests} | ${fmt(r.requestsPerSecond)} | ${fmt(r.p50Ms, 1)} | ${fmt(r.p99Ms, 1)} | ${r.errors} | ${fmt(row.rssBefore, 1)} | ${fmt(row.rssAfter, 1)} |`);
     }
-    console.log('\n| ratio to bare node:http | ' + connectionCounts.map((c) => `${c} conns`).join(' | ') + ' |');
+    console.log('\n| ratio to bare node:http (median of paired rounds; ratio of totals; range of rounds) | ' + connectionCounts.map((c) => `${c} conns`).join(' | ') + ' |');
     console.log('|---|' + connectionCounts.map(() => '---:').join('|') + '|');
-    console.log(`| (a) n = ${n}, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * single[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
-    console.log(`| (a0) n = 10, 1 sample | ` + connectionCounts.map((c) => `${fmt((100 * stack[c]) / baseline[c], 1)}%`).join(' | ') + ' |');
-    for (const [k, us] of ceilingWork.entries()) {
-      console.log(`| (ref) fixed response from Hono + ${us} µs work | ` + connectionCounts.map((c) => `${fmt((100 * reference[c][k]) / baseline[c], 1)}%`).join(' | ') + ' |');
+    for (const [scenario, byConnections] of ratioRows) {
+      const cells = connectionCounts.map((c) => {
+        const row = byConnections.get(c)!;
+        const baselineRow = rows.find((r) => r.server === bare.name && r.connections === c)!;
+        const total = row.result.requestsPerSecond / baselineRow.result.requestsPerSecond;
+        const pct = (x: number) => `${fmt(100 * x, 1)}%`;
+        return `**${pct(median(row.roundRatios))}**; ${pct(total)}; ${pct(Math.min(...row.roundRatios))}–${pct(Math.max(...row.roundRatios))}`;
+      });
+      console.log(`| ${scenario} | ${cells.join(' | ')} |`);
     }
     const soak = rows.find((row) => row.scenario.startsWith('soak'));
     if (soak) console.log(`\nRSS growth over the ${soakMs / 1000} s soak: ${fmt(soak.rssAfter - soak.rssBefore, 1)} MB (${fmt(soak.rssBefore, 1)} -> ${fmt(soak.rssAfter, 1)} MB).`);
