@@ -44,10 +44,11 @@ describe('request deadline', () => {
   });
 
   it('stops a request whose work exceeds a tiny deadline quickly (real clock)', async () => {
-    // n = 2000 costs milliseconds per sample with the exact oracle, so 300 samples take seconds.
+    // n = 10^6 costs ~0.1 ms per sample (npm run bench), so 2,000 samples take ~200 ms: ten times
+    // the deadline. (This once used n = 2000, which became fast enough to finish inside 20 ms.)
     const app = createApp({ limits: { deadlineMs: 20 } });
     const started = performance.now();
-    const response = await app.fetch(new Request('http://x/v1/partitions?n=2000&count=300&seed=d'));
+    const response = await app.fetch(new Request('http://x/v1/partitions?n=1000000&count=2000&seed=d&as=multiplicities'));
     const elapsed = performance.now() - started;
     expect(response.status).toBe(503);
     expect(response.headers.get('retry-after')).toBe('1');
