@@ -4,20 +4,7 @@ import { DivideAndConquerSampler } from '../../src/core/partitions/divide-and-co
 import { SelfSimilarSampler } from '../../src/core/partitions/self-similar.js';
 import { RestrictedPartitionTable, TableRecursiveSampler } from '../../src/core/partitions/table-recursive.js';
 import { sampleSource } from '../../src/core/seeding.js';
-import { uniformityPValue } from '../support/partition-checks.js';
-
-// Chi-square over ALL partitions of n against the uniform law, 100,000 samples per case, fixed
-// seeds. Each case fails with probability alpha = 1e-4 when the sampler is exactly uniform
-// (project convention, BRIEF "Statistical tests").
-const ALPHA = 1e-4;
-const SAMPLES = 100_000;
-
-// p(10) = 42, p(12) = 77, p(15) = 176 (OEIS A000041).
-const P = new Map([
-  [10, 42],
-  [12, 77],
-  [15, 176],
-]);
+import { PARTITION_NUMBERS as P, UNIFORMITY_ALPHA as ALPHA, UNIFORMITY_SAMPLES as SAMPLES, uniformityPValue } from '../support/partition-checks.js';
 
 const table = new RestrictedPartitionTable();
 const logP = new LogPartitionNumbers();

@@ -21,6 +21,22 @@ export function assertValidPartition(partition: Partition, n: number): void {
 }
 
 /**
+ * Chi-square over ALL partitions of n against the uniform law: 100,000 samples per case, fixed
+ * seeds; each case fails with probability alpha = 1e-4 when the sampler is exactly uniform
+ * (DEVELOPERS.md, "Statistical tests").
+ */
+export const UNIFORMITY_ALPHA = 1e-4;
+export const UNIFORMITY_SAMPLES = 100_000;
+
+/** p(n) for the enumerated sizes: p(10) = 42, p(12) = 77, p(15) = 176, p(20) = 627 (OEIS A000041). */
+export const PARTITION_NUMBERS = new Map([
+  [10, 42],
+  [12, 77],
+  [15, 176],
+  [20, 627],
+]);
+
+/**
  * Pearson chi-square of `samples` draws over all p(n) partitions of n against the uniform law;
  * returns the upper-tail p-value (chi-square with p(n) − 1 degrees of freedom, via
  * @stdlib/stats-base-dists-chisquare-cdf) and the number of cells.
