@@ -6,7 +6,7 @@ import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
 import { parseQuery } from './query.js';
-import { LruCache } from './sampler-cache.js';
+import { LruCache } from './lru-cache.js';
 import { compositionsCountEndpoint, compositionsEndpoint } from './routes/compositions.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
 import { partitionsCountEndpoint, partitionsEndpoint } from './routes/partitions.js';

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
 import type { Limits } from './limits.js';
-import type { LruCache } from './sampler-cache.js';
+import type { LruCache } from './lru-cache.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
