@@ -1,5 +1,5 @@
 import seedrandom from 'seedrandom';
-import { murmur3x86_128 } from './murmur3.js';
+import { Murmur3x86_128Prefix } from './murmur3.js';
 import type { RandomSource } from './random.js';
 
 /**
@@ -26,6 +26,15 @@ const TWO_TO_MINUS_32 = 2 ** -32;
 /**
  * The random stream of one sample. It depends on (seed, sample index, family key, algorithm
  * version) only, so sample i is the same whatever count or start a request uses.
+ * (`new SampleStreams(familyKey).source(seed, index)`; keep the SampleStreams when drawing
+ * many samples of one family.)
+ */
+export function sampleSource(seed: string, index: number, familyKey: string): RandomSource {
+  return new SampleStreams(familyKey).source(seed, index);
+}
+
+/**
+ * The random streams of one family's samples.
  *
  * The stream key `partsmith/v<version>|<family key>|<seed>|<index>` joins the fields with a
  * separator that occurs in none of them, so distinct tuples have distinct keys. MurmurHash3
@@ -35,17 +44,30 @@ const TWO_TO_MINUS_32 = 2 ** -32;
  * c = 2091638. Distinct keys share a stream only if 96 hash bits collide (probability ~2^-96 per
  * pair). The generator is seedrandom's Alea (Baagøe), restored through its documented `state`
  * option: pure JavaScript, identical streams on every runtime.
+ *
+ * The key's prefix `partsmith/v<version>|<family key>|` is the same for every sample of the
+ * family, and most of the key: it is hashed once, here (Murmur3x86_128Prefix); the hash of a
+ * key is the same either way.
  */
-export function sampleSource(seed: string, index: number, familyKey: string): RandomSource {
-  if (!SEED_PATTERN.test(seed)) {
-    throw new RangeError(`seed must be 1-64 characters of A-Z a-z 0-9 . _ ~ : -, got ${JSON.stringify(seed)}`);
+export class SampleStreams {
+  private readonly prefix: Murmur3x86_128Prefix;
+
+  constructor(readonly familyKey: string) {
+    this.prefix = new Murmur3x86_128Prefix(`partsmith/v${ALGORITHM_VERSION}|${familyKey}|`);
   }
-  if (!Number.isSafeInteger(index) || index < 0) {
-    throw new RangeError(`sample index must be a non-negative safe integer, got ${index}`);
+
+  /** The stream of sample `index` of `seed`. */
+  source(seed: string, index: number): RandomSource {
+    if (!SEED_PATTERN.test(seed)) {
+      throw new RangeError(`seed must be 1-64 characters of A-Z a-z 0-9 . _ ~ : -, got ${JSON.stringify(seed)}`);
+    }
+    if (!Number.isSafeInteger(index) || index < 0) {
+      throw new RangeError(`sample index must be a non-negative safe integer, got ${index}`);
+    }
+    const [h1, h2, h3] = this.prefix.hash(`${seed}|${index}`);
+    const state = { c: 1, s0: h1 * TWO_TO_MINUS_32, s1: h2 * TWO_TO_MINUS_32, s2: h3 * TWO_TO_MINUS_32 };
+    return new AleaSource(seedrandom.alea('', { state }));
   }
-  const [h1, h2, h3] = murmur3x86_128(`partsmith/v${ALGORITHM_VERSION}|${familyKey}|${seed}|${index}`);
-  const state = { c: 1, s0: h1 * TWO_TO_MINUS_32, s1: h2 * TWO_TO_MINUS_32, s2: h3 * TWO_TO_MINUS_32 };
-  return new AleaSource(seedrandom.alea('', { state }));
 }
 
 /**

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
+import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
 
@@ -8,10 +9,16 @@ export interface AppContext {
   readonly limits: Limits;
   /** Draws a seed for requests that give none. */
   readonly drawSeed: () => string;
-  /** Planned partition samplers by family key. */
-  readonly partitionSamplers: LruCache<PartitionSampler>;
-  /** Planned composition samplers by family key. */
-  readonly compositionSamplers: LruCache<CompositionSampler>;
+  /** Planned partition samplers (with their families' streams) by family key. */
+  readonly partitionSamplers: LruCache<PlannedFamily<PartitionSampler>>;
+  /** Planned composition samplers (with their families' streams) by family key. */
+  readonly compositionSamplers: LruCache<PlannedFamily<CompositionSampler>>;
+}
+
+/** What is prepared once per family and reused by every request for it. */
+export interface PlannedFamily<S> {
+  readonly sampler: S;
+  readonly streams: SampleStreams;
 }
 
 export interface ResponseDoc {

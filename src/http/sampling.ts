@@ -1,6 +1,6 @@
 import type { Family } from '../core/family.js';
 import type { RandomSource } from '../core/random.js';
-import { sampleSource } from '../core/seeding.js';
+import type { SampleStreams } from '../core/seeding.js';
 import type { SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
@@ -11,8 +11,8 @@ import type { SampleFormat } from './schemas/common.js';
 export interface SamplingJob<S> {
   /** The family, canonical (see canonicalFamily). */
   readonly family: Family;
-  /** familyKey(family): echoed in the body and part of every sample's stream. */
-  readonly familyKey: string;
+  /** The family's random streams; their familyKey is echoed in the body. */
+  readonly streams: SampleStreams;
   readonly sampler: { readonly method: string; readonly expectedWork: number; sample(source: RandomSource): S };
   readonly encoder: SampleEncoder<S>;
   /** Expected numbers one sample adds to the body (parts, or 2 per multiplicity pair). */
@@ -102,14 +102,14 @@ function wholeBody<S>(job: SamplingJob<S>, deadline?: Deadline): string {
 
 /** `{"family":…,"seed":…,"start":…,"method":…,"samples":[` — the family is its key, already JSON. */
 function jsonHead(job: SamplingJob<unknown>): string {
-  return `{"family":${job.familyKey},"seed":${JSON.stringify(job.seed)},"start":${job.start},"method":${JSON.stringify(job.sampler.method)},"samples":[`;
+  return `{"family":${job.streams.familyKey},"seed":${JSON.stringify(job.seed)},"start":${job.start},"method":${JSON.stringify(job.sampler.method)},"samples":[`;
 }
 
 const JSON_TAIL = ']}';
 
 /** Sample i of the job, encoded for its format (with its separator or line end). */
 function samplePiece<S>(job: SamplingJob<S>, i: number): string {
-  const sample = job.sampler.sample(sampleSource(job.seed, i, job.familyKey));
+  const sample = job.sampler.sample(job.streams.source(job.seed, i));
   switch (job.format) {
     case 'json':
       return (i > job.start ? ',' : '') + JSON.stringify(job.encoder.json(sample));

@@ -4,6 +4,7 @@ import { bodyPieces, startBody, type SamplingJob } from '../../src/http/sampling
 import { Deadline } from '../../src/http/deadline.js';
 import { partitionAsParts } from '../../src/http/encode.js';
 import { partitionFromParts, type Partition } from '../../src/core/partition.js';
+import { SampleStreams } from '../../src/core/seeding.js';
 
 /** A clock that reads `start` for the first `reads` readings and far in the future after. */
 function clockExpiringAfter(reads: number): { clock: () => number; readings: () => number } {
@@ -93,7 +94,7 @@ describe('errors inside a stream', () => {
     let drawn = 0;
     return {
       family: { kind: 'partition', n: 3 },
-      familyKey: '{"kind":"partition","n":3}',
+      streams: new SampleStreams('{"kind":"partition","n":3}'),
       sampler: {
         method: 'failing/1',
         expectedWork: 1,

@@ -1,6 +1,6 @@
 import reference from 'murmurhash3js-revisited';
 import { describe, expect, it } from 'vitest';
-import { murmur3Hex, murmur3x86_128 } from '../../src/core/murmur3.js';
+import { murmur3Hex, murmur3x86_128, Murmur3x86_128Prefix } from '../../src/core/murmur3.js';
 
 /**
  * Outside check: murmurhash3js-revisited (npm), whose x86.hash128 "matches the reference
@@ -21,6 +21,41 @@ describe('MurmurHash3 x86_128', () => {
       }
     }
     expect(mismatches).toBe(0);
+  });
+
+  it('hashes one non-ASCII character at any position of a block or tail as the reference does', () => {
+    // The ASCII fast path must notice every kind of character: 2-byte (é, U+0100 whose low byte
+    // is 0), 3-byte (€, U+FFFF) and 4-byte (a surrogate pair), in each of the 16 byte positions.
+    let mismatches = 0;
+    for (const odd of ['\u0080', 'é', '\u00ff', '\u0100', '\u0180', '€', '\uffff', '😀']) {
+      for (let at = 0; at < 40; at++) {
+        const text = 'partsmith/v2|{"kind":"partition"}|seed|12'.slice(0, at) + odd + 'x'.repeat(at % 7);
+        if (murmur3Hex(text, 42) !== referenceHex(text, 42)) mismatches++;
+      }
+    }
+    expect(mismatches).toBe(0);
+  });
+
+  it('a prefix hashed once, then each suffix, equals hashing the whole text (every split, ASCII and not)', () => {
+    const texts = ['partsmith/v2|{"kind":"partition","n":1000}|seed-7|123', 'ab', '', 'é€😀 and more ASCII after it, past two blocks', 'x'.repeat(47) + 'é'];
+    let mismatches = 0;
+    for (const text of texts) {
+      for (let cut = 0; cut <= text.length; cut++) {
+        const high = text.charCodeAt(cut - 1);
+        if (high >= 0xd800 && high <= 0xdbff) continue; // a cut inside a surrogate pair leaves two lone halves
+        for (const seed of [0, 0x9747b28c]) {
+          const whole = murmur3x86_128(text, seed);
+          const split = new Murmur3x86_128Prefix(text.slice(0, cut), seed).hash(text.slice(cut));
+          if (whole.join() !== split.join()) mismatches++;
+        }
+      }
+    }
+    expect(mismatches).toBe(0);
+    // And one prefix serves many suffixes.
+    const prefix = new Murmur3x86_128Prefix('partsmith/v2|{"kind":"partition","n":10}|');
+    for (const suffix of ['a|0', 'a|1', 'seed-é|2', 'x'.repeat(40)]) {
+      expect(murmur3Hex(`partsmith/v2|{"kind":"partition","n":10}|${suffix}`)).toBe(prefix.hash(suffix).map((w) => w.toString(16).padStart(8, '0')).join(''));
+    }
   });
 
   it('hashes a long non-ASCII text (UTF-8 longer than one 4096-byte slice) as the reference does', () => {

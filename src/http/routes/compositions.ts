@@ -1,5 +1,6 @@
 import { planCompositionSampler, countCompositions } from '../../core/compositions/plan.js';
 import { canonicalFamily, type CompositionFamily } from '../../core/family.js';
+import { SampleStreams } from '../../core/seeding.js';
 import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
@@ -33,12 +34,12 @@ export const compositionsEndpoint = defineEndpoint({
     const seed = query.seed ?? context.drawSeed();
     const family = compositionFamilyOf(query);
     const key = JSON.stringify(family); // = familyKey(family): compositionFamilyOf already returns the canonical form
-    const sampler = context.compositionSamplers.getOrCreate(key, () => planCompositionSampler(family));
+    const { sampler, streams } = context.compositionSamplers.getOrCreate(key, () => ({ sampler: planCompositionSampler(family), streams: new SampleStreams(key) }));
     return respondWithSamples(
       request,
       COMPOSITIONS_PATH,
-      { ...query, seed },
-      { family, familyKey: key, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
+      seeded ? query : { ...query, seed },
+      { family, streams, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
       seeded,
       context.limits,
     );

@@ -1,6 +1,7 @@
 import { canonicalFamily, type PartitionFamily } from '../../core/family.js';
 import { countPartitions } from '../../core/counting/partition-counts.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
+import { SampleStreams } from '../../core/seeding.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
@@ -36,15 +37,15 @@ export const partitionsEndpoint = defineEndpoint({
     const seed = query.seed ?? context.drawSeed();
     const family = partitionFamilyOf(query);
     const key = JSON.stringify(family); // = familyKey(family): partitionFamilyOf already returns the canonical form
-    const sampler = context.partitionSamplers.getOrCreate(key, () => planPartitionSampler(family));
+    const { sampler, streams } = context.partitionSamplers.getOrCreate(key, () => ({ sampler: planPartitionSampler(family), streams: new SampleStreams(key) }));
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
       request,
       PARTITIONS_PATH,
-      { ...query, seed },
+      seeded ? query : { ...query, seed },
       {
         family,
-        familyKey: key,
+        streams,
         sampler,
         encoder: multiplicities ? partitionAsMultiplicities : partitionAsParts,
         numbersPerSample: multiplicities ? 2 * sampler.expectedDistinct : sampler.expectedLength,
