@@ -5,7 +5,7 @@ import { hardening, otherMethods, oversizedUrlProblem } from './middleware/index
 import type { AppContext, Endpoint } from './endpoint.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
 import { ProblemError, problemResponse } from './problem.js';
-import { parseQuery } from './query.js';
+import { QueryReader } from './query.js';
 import { LruCache } from './lru-cache.js';
 import { compositionsCountEndpoint, compositionsEndpoint } from './routes/compositions.js';
 import { healthEndpoint, openApiEndpoint } from './routes/meta.js';
@@ -63,13 +63,14 @@ export function createApp(options: AppOptions = {}): Hono {
   const harden = hardening();
   for (const endpoint of endpoints) {
     const other = otherMethods(endpoint.path);
+    const queries = new QueryReader(endpoint.query);
     // One handler per path for every method, so Hono calls it directly (see Hardening.route).
     app.all(
       endpoint.path,
       harden.route((c) => {
         const method = c.req.method;
         if (method !== 'GET' && method !== 'HEAD') return other(c, async () => {}) as Response;
-        const query = parseQuery(c.req.url, endpoint.query);
+        const query = queries.read(c.req.url);
         let response: Response | Promise<Response>;
         try {
           response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock));
