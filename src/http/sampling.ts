@@ -112,9 +112,9 @@ function samplePiece<S>(job: SamplingJob<S>, i: number): string {
   const sample = job.sampler.sample(job.streams.source(job.seed, i));
   switch (job.format) {
     case 'json':
-      return (i > job.start ? ',' : '') + JSON.stringify(job.encoder.json(sample));
+      return (i > job.start ? ',' : '') + job.encoder.json(sample);
     case 'ndjson':
-      return `{"index":${i},"${job.encoder.field}":${JSON.stringify(job.encoder.json(sample))}}\n`;
+      return `{"index":${i},"${job.encoder.field}":${job.encoder.json(sample)}}\n`;
     default:
       return `${job.encoder.text(sample)}\n`;
   }
