@@ -124,32 +124,47 @@ function readQuery<S extends z.ZodType>(
 }
 
 /**
- * Characters that decode to themselves in a query: no '%' escapes, no '+' (a space), nothing
- * outside printable ASCII. Every query partsmith's own clients write is made of these.
- */
-const PLAIN_QUERY = /^[A-Za-z0-9._~:,=&-]*$/;
-
-/**
  * The name/value pairs of a query string, decoded as URLSearchParams does
- * (application/x-www-form-urlencoded). A plain query is split directly, with the same result:
- * pieces between '&', empty ones skipped, each split at its first '=' (none: the value is '').
+ * (application/x-www-form-urlencoded). A plain query — printable ASCII without '%' escapes or
+ * '+' (a space), as every query partsmith's own clients write — decodes to itself, so it is
+ * split directly, with the same result: pieces between '&', empty ones skipped, each split at
+ * its first '=' (none: the value is '').
  */
 export function queryPairs(query: string): Iterable<readonly [string, string]> {
-  if (PLAIN_QUERY.test(query)) {
-    const pairs: [string, string][] = [];
-    for (const piece of query.split('&')) {
-      if (piece === '') continue;
-      const equals = piece.indexOf('=');
-      pairs.push(equals < 0 ? [piece, ''] : [piece.slice(0, equals), piece.slice(equals + 1)]);
+  return plainPairs(query) ?? decodedPairs(query);
+}
+
+function plainPairs(query: string): [string, string][] | undefined {
+  const pairs: [string, string][] = [];
+  let start = 0; // of the current piece
+  let equals = -1; // first '=' in the current piece
+  for (let at = 0; at <= query.length; at++) {
+    const code = at < query.length ? query.charCodeAt(at) : AMPERSAND;
+    if (code === AMPERSAND) {
+      if (at > start) pairs.push(equals < 0 ? [query.slice(start, at), ''] : [query.slice(start, equals), query.slice(equals + 1, at)]);
+      start = at + 1;
+      equals = -1;
+    } else if (code === EQUALS) {
+      if (equals < 0) equals = at;
+    } else if (code === PERCENT || code === PLUS || code < 0x21 || code > 0x7e) {
+      return undefined;
     }
-    return pairs;
   }
+  return pairs;
+}
+
+function decodedPairs(query: string): Iterable<readonly [string, string]> {
   try {
     return new URLSearchParams(query);
   } catch {
     throw new ProblemError(400, 'The query string could not be decoded.');
   }
 }
+
+const AMPERSAND = 0x26;
+const EQUALS = 0x3d;
+const PERCENT = 0x25;
+const PLUS = 0x2b;
 
 /** Freezes a parsed query and the arrays in it (a remembered answer must not be changed by a request). */
 function deepFreeze<T extends Record<string, unknown>>(value: T): Readonly<T> {
