@@ -9,7 +9,7 @@
  * digits, h1 first (the form other implementations print).
  */
 export function murmur3x86_128(text: string, seed = 0): [number, number, number, number] {
-  const h = seed >>> 0;
+  const h = seed | 0; // the same 32 bits as seed >>> 0, kept a small integer (int32) for the JIT
   // Every stream key and ETag input is ASCII, which is its own UTF-8: hash the text as it is,
   // and only if a character turns out to be non-ASCII hash its UTF-8 bytes instead.
   return hashBytes(text, h, h, h, h, 0, true) ?? hashBytes(utf8Bytes(text), h, h, h, h, 0, false)!;
@@ -38,7 +38,7 @@ export class Murmur3x86_128Prefix {
     const bytes = this.asciiPrefix ? prefix : utf8Bytes(prefix);
     this.mixed = bytes.length - (bytes.length % 16);
     this.rest = bytes.slice(this.mixed);
-    const h = seed >>> 0;
+    const h = seed | 0; // the same 32 bits as seed >>> 0, kept a small integer (int32) for the JIT
     const state = [h, h, h, h];
     mixBlocks(bytes, this.mixed, state);
     [this.h1, this.h2, this.h3, this.h4] = state;
