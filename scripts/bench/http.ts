@@ -97,7 +97,7 @@ export async function benchHttp(): Promise<void> {
     ['app.fetch + body read, n = 1000, 1 sample', await microseconds(fetchOnce(1000))],
     ['new Request(url) only', await microseconds((i) => new Request(url(1000, i)))],
     ['parseQuery (zod, whole query)', await microseconds((i) => parseQuery(url(1000, i), partitionsQuery))],
-    ['QueryReader.read (zod: the seed; the rest remembered)', await microseconds((i) => reader.read(url(1000, i)))],
+    ['QueryReader.read (zod: the seed; the rest remembered)', await microseconds((i) => reader.read(url(1000, i)).query)],
     ['familyKey(partitionFamilyOf(query))', await microseconds(() => familyKey(partitionFamilyOf({ n: 1000 } as never)))],
     ['strongEtag(parsed query)', await microseconds((i) => strongEtag('/v1/partitions', { n: 1000, count: 1, seed: `a64-${i}`, start: 0, format: 'json', as: 'parts' }))],
     ['sampleSource (stream seeding, whole key)', await microseconds((i) => sampleSource(`a64-${i}`, 0, key))],

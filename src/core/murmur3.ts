@@ -157,7 +157,11 @@ function mixLane4(h4: number, h1: number, k4: number): number {
 
 /** The hash as 32 lowercase hex digits, h1 first. */
 export function murmur3Hex(text: string, seed = 0): string {
-  const [h1, h2, h3, h4] = murmur3x86_128(text, seed);
+  return wordsToHex(murmur3x86_128(text, seed));
+}
+
+/** Four 32-bit words as 32 lowercase hex digits, the first word first (the form of murmur3Hex). */
+export function wordsToHex([h1, h2, h3, h4]: readonly [number, number, number, number]): string {
   return hex8(h1) + hex8(h2) + hex8(h3) + hex8(h4);
 }
 

@@ -70,10 +70,10 @@ export function createApp(options: AppOptions = {}): Hono {
       harden.route((c) => {
         const method = c.req.method;
         if (method !== 'GET' && method !== 'HEAD') return other(c, async () => {}) as Response;
-        const query = queries.read(c.req.url);
+        const { query, memo } = queries.read(c.req.url);
         let response: Response | Promise<Response>;
         try {
-          response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock));
+          response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock), memo);
         } catch (error) {
           throw familyProblem(error, query);
         }

@@ -1,5 +1,5 @@
 import { APP_VERSION } from '../version.js';
-import { murmur3Hex, murmur3x86_128 } from '../core/murmur3.js';
+import { murmur3Hex, murmur3x86_128, Murmur3x86_128Prefix, wordsToHex } from '../core/murmur3.js';
 import { ALGORITHM_VERSION } from '../core/seeding.js';
 
 /**
@@ -17,6 +17,34 @@ import { ALGORITHM_VERSION } from '../core/seeding.js';
 export function strongEtag(path: string, parsedQuery: unknown): string {
   return `"${murmur3Hex(JSON.stringify(parsedQuery), etagNamespace(path))}"`;
 }
+
+/**
+ * The ETags of one parsed query for every seed: `etag(seed)` equals
+ * `strongEtag(path, { ...query, seed })` (the same text is hashed), but the part of the query's
+ * JSON before the seed is serialised and hashed once.
+ */
+export class SeedEtags {
+  private readonly before: Murmur3x86_128Prefix;
+  private readonly after: string;
+
+  constructor(path: string, parsedQuery: Readonly<Record<string, unknown>>) {
+    if (!Object.hasOwn(parsedQuery, 'seed')) throw new RangeError('SeedEtags needs a parsed query with a seed');
+    // A marker no other value can contain: the parsed values are numbers, booleans, words and
+    // lists of numbers. Setting the existing key keeps its place in the JSON.
+    const marker = JSON.stringify(SEED_MARKER);
+    const text = JSON.stringify({ ...parsedQuery, seed: SEED_MARKER });
+    const at = text.indexOf(marker);
+    if (at < 0 || text.indexOf(marker, at + 1) >= 0) throw new RangeError('the seed must appear exactly once in the parsed query');
+    this.before = new Murmur3x86_128Prefix(text.slice(0, at), etagNamespace(path));
+    this.after = text.slice(at + marker.length);
+  }
+
+  etag(seed: string): string {
+    return `"${wordsToHex(this.before.hash(JSON.stringify(seed) + this.after))}"`;
+  }
+}
+
+const SEED_MARKER = '\u0000seed\u0000';
 
 /**
  * The hash seed for one path's ETags: a hash of the versions and the path, so the ETag depends

@@ -3,6 +3,7 @@ import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
 import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
+import type { QueryMemo } from './query.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
@@ -36,7 +37,8 @@ export interface Endpoint<S extends z.ZodObject = z.ZodObject> {
   readonly description: string;
   readonly query: S;
   readonly responses: Readonly<Record<string, ResponseDoc>>;
-  handle(request: Request, query: z.output<S>, context: AppContext): Promise<Response> | Response;
+  /** `memo` is shared with every request whose query differs from this one only in its seed. */
+  handle(request: Request, query: z.output<S>, context: AppContext, memo: QueryMemo): Promise<Response> | Response;
 }
 
 /** Keeps the schema's type attached to the handler's query argument. */

@@ -42,34 +42,66 @@ const SEED_STAND_IN = 'stand-in';
  */
 export class QueryReader<S extends z.ZodObject> {
   private readonly seedField: z.ZodType | undefined;
-  /** Parsed query with the stand-in seed (frozen: shared by every request that sends it), by raw rest. */
-  private readonly remembered = new LruCache<Readonly<Record<string, unknown>>>(REMEMBERED_QUERIES);
+  /** Per distinct rest of a query: its parse with the stand-in seed (frozen: shared by every request that sends it) and its memo. */
+  private readonly remembered = new LruCache<{ readonly parsed: Readonly<Record<string, unknown>>; readonly memo: QueryMemo }>(REMEMBERED_QUERIES);
 
   constructor(private readonly schema: S) {
     this.seedField = schema.shape[PER_REQUEST_PARAM] as z.ZodType | undefined;
   }
 
-  read(url: string): z.output<S> {
-    return readQuery(url, this.schema, (raw, repeats) => this.validate(raw, repeats));
+  /** The parsed query, and a memo shared with every request whose query differs only in its seed. */
+  read(url: string): ReadQuery<z.output<S>> {
+    let memo: QueryMemo | undefined;
+    const query = readQuery(url, this.schema, (raw, repeats) => {
+      const result = this.validate(raw, repeats);
+      memo = result.memo;
+      return result.parsed;
+    });
+    return { query, memo: memo ?? new QueryMemo() };
   }
 
-  private validate(raw: Record<string, string>, repeats: boolean): z.ZodSafeParseResult<z.output<S>> {
+  private validate(raw: Record<string, string>, repeats: boolean): { parsed: z.ZodSafeParseResult<z.output<S>>; memo?: QueryMemo } {
     const seedField = this.seedField;
-    if (seedField === undefined || repeats || !Object.hasOwn(raw, PER_REQUEST_PARAM)) return this.schema.safeParse(raw);
+    if (seedField === undefined || repeats || !Object.hasOwn(raw, PER_REQUEST_PARAM)) return { parsed: this.schema.safeParse(raw) };
     const { [PER_REQUEST_PARAM]: seed, ...rest } = raw;
     const restKey = JSON.stringify(rest);
-    let parsedWithStandIn = this.remembered.get(restKey);
-    if (parsedWithStandIn === undefined) {
+    let entry = this.remembered.get(restKey);
+    if (entry === undefined) {
       const result = this.schema.safeParse({ ...rest, [PER_REQUEST_PARAM]: SEED_STAND_IN });
-      if (!result.success) return this.schema.safeParse(raw);
-      parsedWithStandIn = this.remembered.set(restKey, deepFreeze(result.data as Record<string, unknown>));
+      if (!result.success) return { parsed: this.schema.safeParse(raw) };
+      entry = this.remembered.set(restKey, { parsed: deepFreeze(result.data as Record<string, unknown>), memo: new QueryMemo() });
     }
     const parsedSeed = seedField.safeParse(seed);
-    if (!parsedSeed.success) return this.schema.safeParse(raw);
+    if (!parsedSeed.success) return { parsed: this.schema.safeParse(raw) };
     // A copy keeps the schema's key order; the seed replaces the stand-in in its place.
-    const data: Record<string, unknown> = Object.assign({}, parsedWithStandIn);
+    const data: Record<string, unknown> = Object.assign({}, entry.parsed);
     data[PER_REQUEST_PARAM] = parsedSeed.data;
-    return { success: true, data: data as z.output<S> };
+    return { parsed: { success: true, data: data as z.output<S> }, memo: entry.memo };
+  }
+}
+
+export interface ReadQuery<Q> {
+  readonly query: Q;
+  /** Shared by every request whose query differs from this one only in its seed (see QueryMemo). */
+  readonly memo: QueryMemo;
+}
+
+/**
+ * Values an endpoint derives from a query without its seed (the family and its key, the ETag's
+ * fixed part), kept for as long as QueryReader remembers the query. Only small values belong
+ * here: samplers live in their own, smaller cache, which bounds the memory they hold.
+ */
+export class QueryMemo {
+  private readonly values = new Map<string, unknown>();
+
+  /** The value stored under `name`, made by `make` the first time. */
+  get<T>(name: string, make: () => T): T {
+    let value = this.values.get(name) as T | undefined;
+    if (value === undefined) {
+      value = make();
+      this.values.set(name, value);
+    }
+    return value;
   }
 }
 

@@ -1,21 +1,24 @@
-import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, strongEtag } from './caching.js';
+import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, SeedEtags, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
 import { deadlineOf } from './deadline.js';
+import type { QueryMemo } from './query.js';
 import { completeResponse } from './middleware/complete-response.js';
 import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sampling.js';
 
 /**
  * Answers a sampling request: limits first, then caching headers, then the streamed body.
- * `query` is the parsed query with the seed filled in (drawn or given). Synchronous on purpose:
- * a small answer then reaches the Node adapter without a promise turn (see Hardening.route).
+ * `query` is the parsed query with the seed filled in (drawn or given); `memo` is the query's
+ * (see QueryMemo), which keeps the ETag's seed-independent part. Synchronous on purpose: a small
+ * answer then reaches the Node adapter without a promise turn (see Hardening.route).
  */
 export function respondWithSamples<S>(
   request: Request,
   path: string,
-  query: Record<string, unknown>,
+  query: Readonly<Record<string, unknown>>,
   job: SamplingJob<S>,
   seeded: boolean,
   limits: Limits,
+  memo: QueryMemo,
 ): Response {
   checkJobLimits(job as SamplingJob<unknown>, limits);
   const headers: Record<string, string> = {
@@ -24,7 +27,7 @@ export function respondWithSamples<S>(
     'partsmith-method': job.sampler.method,
   };
   if (seeded) {
-    const etag = strongEtag(path, query);
+    const etag = memo.get('etags', () => new SeedEtags(path, query)).etag(job.seed);
     headers.etag = etag;
     headers['cache-control'] = IMMUTABLE;
     if (matchesIfNoneMatch(request, etag)) {

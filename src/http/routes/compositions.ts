@@ -29,11 +29,13 @@ export const compositionsEndpoint = defineEndpoint({
     'Compositions are ordered: 1+2 and 2+1 are different. Each sample is drawn exactly uniformly from the compositions of n that satisfy the constraints; sample i of a seed is the same whatever start and count are.',
   query: compositionsQuery,
   responses: SAMPLE_RESPONSES,
-  handle(request, query, context) {
+  handle(request, query, context, memo) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
-    const family = compositionFamilyOf(query);
-    const key = JSON.stringify(family); // = familyKey(family): compositionFamilyOf already returns the canonical form
+    const { family, key } = memo.get('family', () => {
+      const canonical = compositionFamilyOf(query);
+      return { family: canonical, key: JSON.stringify(canonical) }; // = familyKey(family): compositionFamilyOf returns the canonical form
+    });
     const { sampler, streams } = context.compositionSamplers.getOrCreate(key, () => ({ sampler: planCompositionSampler(family), streams: new SampleStreams(key) }));
     return respondWithSamples(
       request,
@@ -42,6 +44,7 @@ export const compositionsEndpoint = defineEndpoint({
       { family, streams, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
       seeded,
       context.limits,
+      memo,
     );
   },
 });

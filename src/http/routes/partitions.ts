@@ -32,11 +32,13 @@ export const partitionsEndpoint = defineEndpoint({
     'Each sample is drawn exactly uniformly from the partitions of n that satisfy the constraints. Sample i of a seed is the same whatever start and count are, on every runtime.',
   query: partitionsQuery,
   responses: SAMPLE_RESPONSES,
-  handle(request, query, context) {
+  handle(request, query, context, memo) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
-    const family = partitionFamilyOf(query);
-    const key = JSON.stringify(family); // = familyKey(family): partitionFamilyOf already returns the canonical form
+    const { family, key } = memo.get('family', () => {
+      const canonical = partitionFamilyOf(query);
+      return { family: canonical, key: JSON.stringify(canonical) }; // = familyKey(family): partitionFamilyOf returns the canonical form
+    });
     const { sampler, streams } = context.partitionSamplers.getOrCreate(key, () => ({ sampler: planPartitionSampler(family), streams: new SampleStreams(key) }));
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
@@ -56,6 +58,7 @@ export const partitionsEndpoint = defineEndpoint({
       },
       seeded,
       context.limits,
+      memo,
     );
   },
 });
