@@ -15,14 +15,27 @@ export interface SampleEncoder<S> {
 export const partitionAsParts: SampleEncoder<Partition> = {
   field: 'parts',
   // JSON.stringify(partsOf(p)), written from the (size, multiplicity) pairs without building the
-  // list of parts: each distinct size is written once and repeated, instead of once per part.
+  // list of parts: each distinct size's text is repeated, instead of written once per part.
   json: (p) => {
-    let items = '';
-    for (let i = 0; i < p.sizes.length; i++) items += `${p.sizes[i]},`.repeat(p.multiplicities[i]);
-    return `[${items.slice(0, -1)}]`;
+    const last = p.sizes.length - 1;
+    if (last < 0) return '[]';
+    let text = '[';
+    for (let i = 0; i < last; i++) text += repeated(partWithComma(p.sizes[i]), p.multiplicities[i]);
+    return `${text}${repeated(partWithComma(p.sizes[last]), p.multiplicities[last] - 1)}${p.sizes[last]}]`;
   },
   text: (p) => partsOf(p).join(' '),
 };
+
+/** `${size},` for sizes below 4096, made once each: a number's decimal text never changes. */
+const PART_WITH_COMMA: (string | undefined)[] = new Array<string | undefined>(4096).fill(undefined);
+
+function partWithComma(size: number): string {
+  return size < 4096 ? (PART_WITH_COMMA[size] ??= `${size},`) : `${size},`;
+}
+
+function repeated(text: string, times: number): string {
+  return times === 1 ? text : text.repeat(times);
+}
 
 export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   field: 'multiplicities',

@@ -10,6 +10,7 @@ describe('sample encoders', () => {
     { sizes: [], multiplicities: [] },
     { sizes: [1], multiplicities: [1] },
     { sizes: [7, 1], multiplicities: [1, 40000] },
+    { sizes: [123456, 4096, 4095, 3], multiplicities: [2, 1, 3, 1] }, // past the cached texts
     ...[1, 2, 10, 100, 1000, 5000].flatMap((n) => [0, 1, 2].map((i) => unrestrictedPartitionSampler(n).sample(sampleSource('encode', i, `n=${n}`)))),
   ];
 
