@@ -39,6 +39,10 @@ const SEED_STAND_IN = 'stand-in';
  * given (GET /v1/partitions/diagram refuses one with parts), never at its value. Any query that
  * fails is parsed again whole, so the errors are exactly the schema's. Tested against parseQuery
  * on the fuzz corpus and well-formed queries (test/http/query.test.ts).
+ *
+ * Each remembered query also has a QueryMemo, handed to every request that sends it, for what
+ * the endpoint derives from the query without its seed. Memory: at most REMEMBERED_QUERIES
+ * entries per endpoint, each a few times the size of its query (at most MAX_QUERY_LENGTH characters).
  */
 export class QueryReader<S extends z.ZodObject> {
   private readonly seedField: z.ZodType | undefined;
@@ -50,7 +54,7 @@ export class QueryReader<S extends z.ZodObject> {
   }
 
   /** The parsed query, and a memo shared with every request whose query differs only in its seed. */
-  read(url: string): ReadQuery<z.output<S>> {
+  read(url: string): QueryAndMemo<z.output<S>> {
     let memo: QueryMemo | undefined;
     const query = readQuery(url, this.schema, (raw, repeats) => {
       const result = this.validate(raw, repeats);
@@ -80,7 +84,7 @@ export class QueryReader<S extends z.ZodObject> {
   }
 }
 
-export interface ReadQuery<Q> {
+export interface QueryAndMemo<Q> {
   readonly query: Q;
   /** Shared by every request whose query differs from this one only in its seed (see QueryMemo). */
   readonly memo: QueryMemo;
