@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { SEED_PATTERN } from '../core/seeding.js';
 
 /**
  * Builders for query parameters. Query values arrive as strings; each builder checks the raw
@@ -40,6 +41,14 @@ export function sizeListParam(min: number, max: number, maxItems: number, descri
       z.array(z.number().int().min(min, { error: message }).max(max, { error: message }), { error: message }).min(1, { error: message }).max(maxItems, { error: message }),
     )
     .describe(description);
+}
+
+/**
+ * A seed: 1 to 64 URL-safe characters (SEED_PATTERN), optional. Every endpoint that draws samples
+ * takes it under the name `seed` (QueryReader parses it on its own; see query.ts).
+ */
+export function seedParam(description: string) {
+  return z.string().regex(SEED_PATTERN, { error: 'must be 1 to 64 characters from A-Z a-z 0-9 . _ ~ : -' }).optional().describe(description);
 }
 
 /** One of a fixed set of words. */

@@ -1,7 +1,6 @@
 import { z } from 'zod';
-import { SEED_PATTERN } from '../../core/seeding.js';
 import { MAX_N } from '../limits.js';
-import { choiceParam, integerParam } from '../params.js';
+import { choiceParam, integerParam, seedParam } from '../params.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
 
 /** Most samples one check may draw (the work limit may allow fewer for large n). */
@@ -12,11 +11,7 @@ export const checkQuery = z
   .strictObject({
     n: integerParam(1, MAX_N, 'The size of the partitions checked.'),
     samples: integerParam(1, MAX_CHECK_SAMPLES, `How many samples to draw (samples 0, 1, ... of the seed, the same as GET /v1/partitions returns). At most ${MAX_CHECK_SAMPLES}.`).default(1000),
-    seed: z
-      .string()
-      .regex(SEED_PATTERN, { error: 'must be 1 to 64 characters from A-Z a-z 0-9 . _ ~ : -' })
-      .optional()
-      .describe('The seed of the samples checked. When absent the server draws one (body field `seed`, header `Partsmith-Seed`).'),
+    seed: seedParam('The seed of the samples checked. When absent the server draws one (body field `seed`, header `Partsmith-Seed`).'),
     format: choiceParam(['json', 'svg'], 'json: the statistics; svg: the plots (largest part against its law, mean boundary against the limit curve).').default('json'),
     ...partitionConstraints,
   })

@@ -1,7 +1,6 @@
 import { z } from 'zod';
-import { SEED_PATTERN } from '../../core/seeding.js';
 import { DEFAULT_LIMITS, MAX_N } from '../limits.js';
-import { booleanParam, choiceParam, integerParam } from '../params.js';
+import { booleanParam, choiceParam, integerParam, seedParam } from '../params.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
 
 /** At most this many numbers in `parts` (the query-string limit bounds it too). */
@@ -23,11 +22,7 @@ export const diagramQuery = z
   .strictObject({
     parts: partsListParam('The partition to draw, e.g. 5,4,1,1 (any order). Give either parts or n.').optional(),
     n: integerParam(0, MAX_N, 'Draw a random partition of n: sample `index` of `seed`, exactly as GET /v1/partitions returns it. Give either parts or n.').optional(),
-    seed: z
-      .string()
-      .regex(SEED_PATTERN, { error: 'must be 1 to 64 characters from A-Z a-z 0-9 . _ ~ : -' })
-      .optional()
-      .describe('With n: the seed of the sample to draw. When absent the server draws one (header `Partsmith-Seed`).'),
+    seed: seedParam('With n: the seed of the sample to draw. When absent the server draws one (header `Partsmith-Seed`).'),
     index: integerParam(0, DEFAULT_LIMITS.maxIndex, 'With n: which sample of the seed to draw (the same as start=index&count=1 on GET /v1/partitions).').default(0),
     style: choiceParam(['svg', 'text'], 'svg: an SVG picture, one square per unit; text: one line of # per part.').default('svg'),
     conjugate: booleanParam('Draw the conjugate partition (the diagram reflected in its diagonal: rows become columns).').default(false),
