@@ -1,4 +1,4 @@
-import { el, FONT, PALETTE, svgRoot } from './svg.js';
+import { cellGrid, el, FONT, PALETTE, svgRoot } from './svg.js';
 
 export interface CompositionSvgOptions {
   /** Accessible name; defaults to "Composition 3 + 1 + 2 (n = 6), one column per part in order". */
@@ -21,14 +21,8 @@ export function compositionSvg(parts: readonly number[], options: CompositionSvg
   const tallest = Math.max(0, ...parts);
   const n = parts.reduce((a, b) => a + b, 0);
   const label = options.label ?? (columns > 0 ? `Composition ${shortSum(parts)} (n = ${n}), one column per part in order` : 'The empty composition (n = 0)');
-  const longest = Math.max(columns, tallest, 1);
-  const unit = Math.max(4, Math.min(26, Math.floor((options.fit ?? 320) / longest)));
-  const gap = Math.max(1, Math.round(unit * 0.14));
-  const radius = Math.max(0, Math.round(unit * 0.2 * 10) / 10);
-  const labels = unit >= 14 && columns > 0;
-  const fontSize = Math.round(unit * 0.55);
+  const { unit, gap, radius, labels, fontSize, pad } = cellGrid(Math.max(columns, tallest), options.fit ?? 320, columns > 0);
   const footer = labels ? Math.round(fontSize * 1.6) : 0;
-  const pad = Math.max(2, Math.round(unit * 0.25));
   const baseline = pad + tallest * unit;
   const pieces: string[] = [];
   for (let i = 0; i < columns; i++) {

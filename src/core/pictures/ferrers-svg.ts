@@ -1,5 +1,5 @@
 import { durfeeSide } from './ferrers.js';
-import { el, FONT, PALETTE, svgRoot } from './svg.js';
+import { cellGrid, el, FONT, PALETTE, svgRoot } from './svg.js';
 
 export interface FerrersSvgOptions {
   /** Accessible name; defaults to "Ferrers diagram of 5 + 4 + 1 + 1 (n = 11)". */
@@ -18,14 +18,8 @@ export function ferrersSvg(parts: readonly number[], options: FerrersSvgOptions 
   const columns = rows > 0 ? parts[0] : 0;
   const n = parts.reduce((a, b) => a + b, 0);
   const label = options.label ?? (rows > 0 ? `Ferrers diagram of ${shortSum(parts)} (n = ${n})` : 'Ferrers diagram of the empty partition (n = 0)');
-  const longest = Math.max(rows, columns, 1);
-  const unit = Math.max(4, Math.min(26, Math.floor((options.fit ?? 320) / longest)));
-  const gap = Math.max(1, Math.round(unit * 0.14));
-  const radius = Math.max(0, Math.round(unit * 0.2 * 10) / 10);
-  const labels = unit >= 14 && rows > 0;
-  const fontSize = Math.round(unit * 0.55);
+  const { unit, gap, radius, labels, fontSize, pad } = cellGrid(Math.max(rows, columns), options.fit ?? 320, rows > 0);
   const gutter = labels ? Math.ceil(String(columns).length * fontSize * 0.62) + Math.round(unit * 0.5) : 0;
-  const pad = Math.max(2, Math.round(unit * 0.25));
   const durfee = durfeeSide(parts);
   const pieces: string[] = [];
   for (let i = 0; i < rows; i++) {

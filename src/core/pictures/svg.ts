@@ -18,6 +18,23 @@ export const PALETTE = {
 
 export const FONT = 'system-ui, -apple-system, Segoe UI, Roboto, sans-serif';
 
+/**
+ * The grid of unit cells shared by the partition and composition drawings: the cell size that
+ * fits `longest` cells in `fit` pixels (4 to 26), the gap between cells, their corner radius,
+ * the label font size, the padding, and whether cells are large enough to label.
+ */
+export function cellGrid(longest: number, fit: number, hasCells: boolean) {
+  const unit = Math.max(4, Math.min(26, Math.floor(fit / Math.max(longest, 1))));
+  return {
+    unit,
+    gap: Math.max(1, Math.round(unit * 0.14)),
+    radius: Math.max(0, Math.round(unit * 0.2 * 10) / 10),
+    labels: unit >= 14 && hasCells,
+    fontSize: Math.round(unit * 0.55),
+    pad: Math.max(2, Math.round(unit * 0.25)),
+  };
+}
+
 /** Escapes text for XML character data and attribute values. */
 export function escapeXml(text: string): string {
   return text.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[ch]!);
