@@ -1,10 +1,10 @@
 import { EmptyFamilyError, LimitExceededError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
-import type { Partition } from '../../partition.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
+import { lengthCandidates, lengthShape } from './plan-length.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -15,7 +15,6 @@ import {
 } from './spec.js';
 import { lengthTableSampler, sizeLengthTableSampler, sizeTableSampler, type TableSampler } from './table-sampler.js';
 import { solveTilt, tiltMoments } from './tilt.js';
-import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
 
 /**
  * Planner for constrained partition families: lists the exact methods that apply, estimates
@@ -120,7 +119,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   const open = sizes.kind === 'interval' && sizes.hi >= n;
   const lo = sizes.kind === 'interval' ? sizes.lo : 0;
   const r = sizeCount(sizes);
-  const shape = estimateShape(spec);
+  const shape = hasLength ? lengthShape(spec) : estimateShape(spec);
   const out: PlanCandidate[] = [];
   const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler) =>
     out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build });
@@ -160,52 +159,25 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
   }
-  if (!distinct && open && lo === 1 && spec.length === undefined && hasLength) {
-    // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
-    boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: kMax }, n), conjugate, kMax, shape));
-  }
-  if (open && spec.length !== undefined && spec.length >= 1) {
-    // Exactly k parts >= lo (distinct: subtract the staircase) <-> parts of N into exactly k
-    // parts <-> (conjugate) N - k into parts <= k, plus one part k.
-    const k = spec.length;
-    const N = n - k * (lo - 1) - (distinct ? (k * (k - 1)) / 2 : 0);
-    const back = (p: Partition) => {
-      const q = shiftParts(conjugate(addPart(p, k)), lo - 1);
-      return distinct ? addStaircase(q) : q;
-    };
-    if (N - k >= 1) {
-      boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape));
-    } else if (N === k) {
-      // A single member: k equal parts before the maps.
-      const only = back({ sizes: [], multiplicities: [] });
-      const single: PartitionSampler = {
-        method: 'single-member/1',
-        expectedLength: k,
-        expectedDistinct: only.sizes.length,
-        expectedWork: only.sizes.length,
-        sample: () => ({ sizes: only.sizes.slice(), multiplicities: only.multiplicities.slice() }),
-      };
-      out.push({ method: single.method, setupWork: 0, sampleWork: single.expectedWork, fits: true, build: () => single });
-    }
+  if (hasLength) {
+    out.push(
+      ...lengthCandidates({
+        spec,
+        shape,
+        feasible,
+        fits: (setup, work) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT,
+        withoutLength: () => cheapestWithoutLength(family),
+      }),
+    );
   }
   return out;
 }
 
-/** Wraps a sampler of the conjugate family. */
-function conjugated(
-  inner: MultisetBoltzmann,
-  map: (p: Partition) => Partition,
-  length: number,
-  shape: { expectedDistinct: number },
-): PartitionSampler {
-  return {
-    method: `${inner.method}+conjugate`,
-    expectedLength: length,
-    // Conjugation keeps the number of distinct sizes (corners of the Ferrers diagram).
-    expectedDistinct: Math.min(length, Math.max(inner.expectedDistinct, shape.expectedDistinct)),
-    expectedWork: inner.expectedWork + inner.expectedDistinct + length,
-    sample: (source) => map(inner.sample(source)),
-  };
+/** The cheapest fitting method for the family with its length constraint dropped (for length filters). */
+function cheapestWithoutLength(family: PartitionFamily): PlanCandidate | null {
+  const { length: _length, maxLength: _maxLength, ...rest } = family;
+  const fitting = planCandidates(rest).filter((c) => c.fits);
+  return fitting.length === 0 ? null : fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
 }
 
 /**

@@ -173,12 +173,12 @@ export function designMoments(k: number, b: number, s: number): DesignMoments {
  * s >= 0 with design mean = m (0 < m <= k b / 2 for a finite box, so that x <= 1), by Newton
  * steps on s (d mean / ds = -variance) inside a bisection bracket. Only speed depends on it.
  */
-export function solveDesignTilt(k: number, b: number, m: number): number {
+export function solveDesignTilt(k: number, b: number, m: number, start?: number): number {
   if (b !== Infinity && m >= (k * b) / 2 - 0.25) return 0;
   let lo = 0;
   let hi = 60;
-  // A start from the continuum limit: k values of a geometric law with mean m / k.
-  let s = Math.min(hi / 2, Math.max(1e-12, Math.log1p(k / Math.max(m, 1e-9))));
+  // Default start: k values of a geometric law with mean m / k.
+  let s = start !== undefined && start > 0 && start < hi ? start : Math.min(hi / 2, Math.max(1e-12, Math.log1p(k / Math.max(m, 1e-9))));
   for (let iter = 0; iter < 200; iter++) {
     const { mean, variance } = designMoments(k, b, s);
     if (mean > m) lo = s;
@@ -190,4 +190,47 @@ export function solveDesignTilt(k: number, b: number, m: number): number {
     s = next;
   }
   return s;
+}
+
+/**
+ * ln [N choose j]_x at x = e^(-s) (N may be Infinity), from the product
+ * prod_(i=1..j) (1 - x^(N-j+i)) / (1 - x^i) (Andrews 1976, (3.3.1)); the binomial coefficient at s = 0.
+ */
+export function logGaussianBinomial(N: number, j: number, s: number): number {
+  let total = 0;
+  for (let i = 1; i <= j; i++) {
+    if (s === 0) total += Math.log((N - j + i) / i);
+    else {
+      if (N !== Infinity) total += Math.log(-Math.expm1(-s * (N - j + i)));
+      total -= Math.log(-Math.expm1(-s * i));
+    }
+  }
+  return total;
+}
+
+/**
+ * designMoments and ln [Infinity choose k-1]_x for open boxes (b = Infinity) at a fixed tilt,
+ * advanced one row at a time: the sums run over i = 1..k, so adding a row adds one term
+ * (box-mixture.ts walks k = 1, 2, ... this way).
+ */
+export class OpenDesignSums {
+  k = 0;
+  mean = 0;
+  variance = 0;
+  /** ln [Infinity choose k-1]_x = -sum_(i<k) ln(1 - x^i). */
+  logBinomial = 0;
+
+  constructor(readonly s: number) {
+    if (!(s > 0)) throw new RangeError('an open box needs a tilt s > 0');
+  }
+
+  /** Moves to k + 1 rows. */
+  advance(): void {
+    const s = this.s;
+    if (this.k >= 1) this.logBinomial -= Math.log(-Math.expm1(-s * this.k));
+    this.k++;
+    const z = this.k * s;
+    this.mean += (1 - z / 2 + c1(z)) / s;
+    this.variance += (1 - e2(z)) / (s * s);
+  }
 }

@@ -1,0 +1,347 @@
+import type { Partition } from '../../partition.js';
+import type { RandomSource } from '../../random.js';
+import type { PartitionSampler } from '../../sampler.js';
+import { unrestrictedPartitionSampler } from '../unrestricted.js';
+import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
+import { BoxMixture, type MixtureEntry } from './box-mixture.js';
+import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
+import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
+import { MultisetBoltzmann } from './multiset-boltzmann.js';
+import type { PlanCandidate } from './plan.js';
+import { sizeCount, type ConstrainedSpec } from './spec.js';
+import { tiltMoments } from './tilt.js';
+import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
+
+/**
+ * The length branch of the constrained planner: exact methods for families with `length`
+ * (exactly k parts) or `maxLength` (at most K parts), combined with any of distinct, minPart,
+ * maxPart and allowed. Tables stay in plan.ts; this file lists the Boltzmann-type methods with
+ * their estimated costs:
+ *
+ * - "box-subset/1" (box-subset.ts): a part bound with exactly k parts (distinct or not) or with
+ *   at most K parts >= 1 is a partition in a box (Andrews 1976, ch. 3) after the maps below;
+ * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
+ *   union over k of boxes;
+ * - "bounded-boltzmann/1+conjugate": no upper bound on the parts, by conjugation (parts <= k);
+ * - "<method>+length-filter": the family without its length constraint, keeping the samples that
+ *   satisfy it, when that constraint rarely binds (restriction of a uniform law is uniform).
+ *
+ * Maps (all bijections, Andrews 1976, §1.3): k parts in [lo, hi] <-> the k x (hi - lo) box by
+ * subtracting lo from every part (zero rows are parts equal to lo); k distinct parts in [lo, hi]
+ * <-> the k x (hi - lo - k + 1) box by subtracting lo and the staircase (k-1, ..., 1, 0); at most K
+ * parts <= hi is the K x hi box itself.
+ */
+
+/** What the length branch needs from the planner. */
+export interface LengthPlanInput {
+  readonly spec: ConstrainedSpec;
+  readonly shape: { readonly expectedLength: number; readonly expectedDistinct: number; readonly tilt?: number };
+  /** isFeasible's answer: methods that cannot detect an empty family need true. */
+  readonly feasible: boolean | undefined;
+  /** The cheapest fitting candidate for the same family without its length constraint. */
+  readonly withoutLength: () => PlanCandidate | null;
+  /** Whether a sampler's figures are within the planner's limits. */
+  readonly fits: (setupWork: number, sampleWork: number) => boolean;
+}
+
+/** Setup steps per row of a box design (tilt solving by Newton steps, normaliser). */
+const SETUP_STEPS_PER_ROW = 12;
+/** Setup steps a box mixture may take (tilts and normalisers: transcendental functions, ~0.1 us each). */
+const MIXTURE_SETUP_LIMIT = 2e6;
+/** Length filters are offered only when the condition holds with at least this probability (estimate). */
+const FILTER_MIN_ACCEPTANCE = 0.02;
+
+export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
+  const { spec } = input;
+  const out: PlanCandidate[] = [];
+  const { n, distinct, sizes } = spec;
+  if (sizes.kind === 'interval') {
+    const { lo } = sizes;
+    const hi = Math.min(sizes.hi, n);
+    if (spec.length !== undefined) {
+      const k = spec.length;
+      const box = exactBox(n, lo, hi, distinct, k);
+      if (box !== null) {
+        const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
+        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
+        if (box.cols === Infinity && box.rows >= box.size) out.push(freeCandidate(input, box.size, map, k, distinct ? k : undefined));
+      }
+      if (hi >= n) out.push(...openExactCandidates(input, k));
+    } else if (spec.maxLength !== undefined) {
+      const K = spec.maxLength;
+      if (!distinct && lo === 1) {
+        const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
+        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
+        if (hi >= n) {
+          // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
+          out.push(samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: K }, n), conjugate, K, input.shape)));
+        }
+      } else {
+        const mixture = mixtureCandidate(input, lo, hi, K);
+        if (mixture !== null) out.push(mixture);
+      }
+    }
+  }
+  if (sizes.kind === 'list' && input.feasible === true) {
+    const parts = spec.length ?? spec.maxLength!;
+    if (sizes.values.length === 1) out.push(samplerCandidate(input, singleSize(sizes.values[0], n)));
+    else if (!distinct) out.push(samplerCandidate(input, new AllowedLengthBoltzmann(sizes.values, n, parts, spec.length === undefined)));
+  }
+  const filter = filterCandidate(input);
+  if (filter !== null) out.push(filter);
+  return out;
+}
+
+/**
+ * Mean length and number of distinct sizes of a length-constrained family (as plan.ts
+ * estimateShape, with the tilt of the family without its length constraint solved by Newton steps).
+ */
+export function lengthShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
+  let length = 1;
+  let distinctSizes = 1;
+  let tilt: number | undefined;
+  if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
+    tilt = solveTiltNewton(spec.sizes, spec.n, spec.distinct);
+    const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
+    length = moments.parts;
+    distinctSizes = moments.distinctSizes;
+  }
+  if (spec.length !== undefined) length = spec.length;
+  if (spec.maxLength !== undefined) length = Math.min(length, spec.maxLength);
+  return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes), tilt };
+}
+
+/** The only member when a single size is allowed: n / s parts equal to s. */
+function singleSize(s: number, n: number): PartitionSampler {
+  return {
+    method: 'single-member/1',
+    expectedLength: n / s,
+    expectedDistinct: 1,
+    expectedWork: 1,
+    sample: () => ({ sizes: [s], multiplicities: [n / s] }),
+  };
+}
+
+/** The box of "exactly k parts in [lo, hi]" (distinct or not), or null when there is no member. */
+export function exactBox(n: number, lo: number, hi: number, distinct: boolean, k: number): Box | null {
+  const cols = distinct ? hi - lo - (k - 1) : hi - lo;
+  const size = n - k * lo - (distinct ? (k * (k - 1)) / 2 : 0);
+  if (k < 1 || cols < 0 || size < 0 || size > k * cols) return null;
+  // More rows or columns than the size can fill bind nothing.
+  return { rows: Math.min(k, Math.max(size, 1)), cols: cols >= size ? Infinity : cols, size };
+}
+
+/** k parts: the box rows plus lo, zero rows becoming parts equal to lo. */
+function shiftMap(lo: number, k: number): (rows: Partition) => Partition {
+  return (rows) => {
+    let used = 0;
+    for (const m of rows.multiplicities) used += m;
+    const sizes = rows.sizes.map((s) => s + lo);
+    const multiplicities = rows.multiplicities.slice();
+    if (used < k) {
+      sizes.push(lo);
+      multiplicities.push(k - used);
+    }
+    return { sizes, multiplicities };
+  };
+}
+
+/** k distinct parts: the box rows (zeros included) plus lo and the staircase k-1, ..., 0. */
+function staircaseMap(lo: number, k: number): (rows: Partition) => Partition {
+  return (rows) => {
+    const sizes: number[] = [];
+    let rank = k - 1;
+    for (let i = 0; i < rows.sizes.length; i++) {
+      for (let j = 0; j < rows.multiplicities[i]; j++) sizes.push(rows.sizes[i] + lo + rank--);
+    }
+    while (rank >= 0) sizes.push(lo + rank--);
+    return { sizes, multiplicities: sizes.map(() => 1) };
+  };
+}
+
+/** An upper bound on the number of distinct part sizes of a box partition. */
+function distinctBound(box: Box): number {
+  return Math.min(box.rows, box.cols, Math.floor(Math.sqrt(2 * box.size)) + 1);
+}
+
+function samplerCandidate(input: LengthPlanInput, sampler: PartitionSampler, setupWork = 0): PlanCandidate {
+  return {
+    method: sampler.method,
+    setupWork,
+    sampleWork: sampler.expectedWork,
+    fits: input.fits(setupWork, sampler.expectedWork),
+    build: () => sampler,
+  };
+}
+
+function boxCandidate(
+  input: LengthPlanInput,
+  box: Box,
+  map: (rows: Partition) => Partition,
+  expectedLength: number,
+  expectedDistinct: number,
+): PlanCandidate {
+  const design = new BoxDesign(box);
+  const subset = new BoxSubset(design);
+  const sampler: PartitionSampler = {
+    method: 'box-subset/1',
+    expectedLength,
+    expectedDistinct,
+    expectedWork: design.expectedProposals * design.proposalCost + expectedLength,
+    sample: (source: RandomSource) => map(subset.sample(source)),
+  };
+  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k);
+}
+
+/** A box neither of whose sides binds: all partitions of its size, drawn by the unrestricted sampler. */
+function freeCandidate(
+  input: LengthPlanInput,
+  size: number,
+  map: (rows: Partition) => Partition,
+  expectedLength: number,
+  expectedDistinct?: number,
+): PlanCandidate {
+  const inner = unrestrictedPartitionSampler(size);
+  const sampler: PartitionSampler = {
+    method: `${inner.method}+shift`,
+    expectedLength,
+    expectedDistinct: expectedDistinct ?? inner.expectedDistinct + 1,
+    expectedWork: inner.expectedWork + expectedLength,
+    sample: (source) => map(inner.sample(source)),
+  };
+  return samplerCandidate(input, sampler);
+}
+
+/**
+ * Exactly k parts >= lo with no upper bound (distinct: subtract the staircase) <-> partitions of
+ * N into exactly k parts <-> (conjugate) N - k into parts <= k, plus one part k.
+ */
+function openExactCandidates(input: LengthPlanInput, k: number): PlanCandidate[] {
+  const { spec, shape } = input;
+  const { n, distinct } = spec;
+  const lo = spec.sizes.kind === 'interval' ? spec.sizes.lo : 1;
+  if (k < 1) return [];
+  const N = n - k * (lo - 1) - (distinct ? (k * (k - 1)) / 2 : 0);
+  const back = (p: Partition) => {
+    const q = shiftParts(conjugate(addPart(p, k)), lo - 1);
+    return distinct ? addStaircase(q) : q;
+  };
+  if (N - k >= 1) {
+    return [samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape))];
+  }
+  if (N === k) {
+    // A single member: k equal parts before the maps.
+    const only = back({ sizes: [], multiplicities: [] });
+    const single: PartitionSampler = {
+      method: 'single-member/1',
+      expectedLength: k,
+      expectedDistinct: only.sizes.length,
+      expectedWork: only.sizes.length,
+      sample: () => ({ sizes: only.sizes.slice(), multiplicities: only.multiplicities.slice() }),
+    };
+    return [samplerCandidate(input, single)];
+  }
+  return [];
+}
+
+/** Wraps a sampler of the conjugate family. */
+function conjugated(
+  inner: MultisetBoltzmann,
+  map: (p: Partition) => Partition,
+  length: number,
+  shape: { expectedDistinct: number },
+): PartitionSampler {
+  return {
+    method: `${inner.method}+conjugate`,
+    expectedLength: length,
+    // Conjugation keeps the number of distinct sizes (corners of the Ferrers diagram).
+    expectedDistinct: Math.min(length, Math.max(inner.expectedDistinct, shape.expectedDistinct)),
+    expectedWork: inner.expectedWork + inner.expectedDistinct + length,
+    sample: (source) => map(inner.sample(source)),
+  };
+}
+
+/** At most K parts in [lo, hi] (distinct or lo > 1): the union over k of exact-k boxes. */
+function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: number): PlanCandidate | null {
+  const { n, distinct } = input.spec;
+  const entries: MixtureEntry[] = [];
+  let rows = 0;
+  for (let k = 1; k <= K; k++) {
+    if (k * lo + (distinct ? (k * (k - 1)) / 2 : 0) > n) break;
+    const box = exactBox(n, lo, hi, distinct, k);
+    if (box === null) continue;
+    entries.push({ parts: k, box });
+    rows += Math.min(box.rows, box.cols);
+  }
+  if (entries.length === 0) return null;
+  // Boxes with a bound solve one tilt each; open ones are advanced a row at a time (box-mixture.ts).
+  const open = entries.every((e) => e.box.cols === Infinity);
+  const bound = open ? 4 * entries.length + 8 * rows : SETUP_STEPS_PER_ROW * rows;
+  if (bound > MIXTURE_SETUP_LIMIT && !open) {
+    return { method: 'box-mixture/1', setupWork: bound, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('box mixture over its setup limit'); } };
+  }
+  const mixture = new BoxMixture(
+    entries,
+    (k, box) => (distinct ? staircaseMap(lo, k) : shiftMap(lo, k))(box),
+    (k) => (distinct ? k : Math.min(k, Math.floor(Math.sqrt(2 * n)) + 2)),
+  );
+  const setupWork = mixture.estimates.setupWork;
+  const candidate = samplerCandidate(input, mixture, setupWork);
+  return { ...candidate, fits: candidate.fits && setupWork <= MIXTURE_SETUP_LIMIT };
+}
+
+/**
+ * The family without its length constraint, keeping the samples that satisfy it: exact
+ * (a uniform law restricted to a subset is uniform on it), and cheap when the constraint rarely
+ * binds. The acceptance rate is estimated from the normal law of the number of parts
+ * (length-law.ts); the filter is offered only where that estimate is not in a far tail.
+ */
+function filterCandidate(input: LengthPlanInput): PlanCandidate | null {
+  const { spec, shape } = input;
+  if (input.feasible !== true) return null;
+  let acceptance: number;
+  if (sizeCount(spec.sizes) <= 1 || shape.tilt === undefined) acceptance = 1;
+  else {
+    const law = lengthLaw(spec.sizes, shape.tilt, spec.distinct);
+    if (!(law.sd > 0)) return null;
+    if (spec.length !== undefined) {
+      const z = (spec.length - law.mean) / law.sd;
+      if (Math.abs(z) > 2) return null;
+      acceptance = Math.min(1, Math.exp((-z * z) / 2) / (Math.sqrt(2 * Math.PI) * law.sd));
+    } else {
+      const z = (spec.maxLength! + 0.5 - law.mean) / law.sd;
+      if (z < -2) return null;
+      acceptance = normalCdf(z);
+    }
+  }
+  if (acceptance < FILTER_MIN_ACCEPTANCE) return null;
+  const inner = input.withoutLength();
+  if (inner === null) return null;
+  const sampleWork = inner.sampleWork / acceptance;
+  const exact = spec.length;
+  const most = spec.maxLength ?? Infinity;
+  const length = exact ?? Math.min(most, shape.expectedLength);
+  return {
+    method: `${inner.method}+length-filter`,
+    setupWork: inner.setupWork,
+    sampleWork,
+    fits: input.fits(inner.setupWork, sampleWork),
+    build: () => {
+      const sampler = inner.build();
+      return {
+        method: `${sampler.method}+length-filter`,
+        expectedLength: length,
+        expectedDistinct: Math.min(length, sampler.expectedDistinct),
+        expectedWork: sampleWork,
+        sample: (source: RandomSource) => {
+          for (;;) {
+            const p = sampler.sample(source);
+            let parts = 0;
+            for (const m of p.multiplicities) parts += m;
+            if (exact !== undefined ? parts === exact : parts <= most) return p;
+          }
+        },
+      };
+    },
+  };
+}
