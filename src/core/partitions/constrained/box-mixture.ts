@@ -2,7 +2,7 @@ import type { Partition } from '../../partition.js';
 import type { RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { BoxDesign, BoxSubset, logSuccessFromBinomial, type Box } from './box-subset.js';
-import { OpenDesignSums, solveDesignTilt } from './subset-design.js';
+import { designTermMean, designTermVariance, logQPochhammer, openMomentsApprox, PowerSums } from './subset-design.js';
 
 /** One value of the number of parts: its box and the map from the box onto the family. */
 export interface MixtureEntry {
@@ -17,6 +17,13 @@ export interface MixtureEstimates {
   readonly expectedParts: number;
   /** Setup steps: tilt solving and normalisers, about 12 per row of every box. */
   readonly setupWork: number;
+}
+
+/** The power sums at j (advanced; rebuilt when j went back). */
+function advanceTo(sums: PowerSums, j: number): PowerSums {
+  if (sums.j > j) return sums; // logQPochhammer then sums directly
+  while (sums.j < j) sums.advance();
+  return sums;
 }
 
 /**
@@ -53,33 +60,42 @@ export class BoxMixture implements PartitionSampler {
     const designs: BoxDesign[] = [];
     let start: number | undefined;
     let widest = 1;
-    let open: OpenDesignSums | null = null;
+    // Open boxes (no upper bound) with k = 1, 2, ... rows: the tilt is kept while the design's
+    // mean stays within 0.75 sd of the target, the moments advanced a row at a time (exact terms
+    // on an O(1) quadrature start, openMomentsApprox: they only steer the tilt), and the exact
+    // normaliser ln [Infinity choose k-1]_x = -ln (x; x)_(k-1) taken in O(1) (logQPochhammer).
+    type OpenState = { s: number; k: number; mean: number; variance: number };
+    let open: OpenState | null = null as OpenState | null;
     let setup = 0;
+    const sums = new PowerSums();
     for (const entry of entries) {
       const { box } = entry;
       let design: BoxDesign;
       if (box.cols === Infinity && box.rows >= 2 && box.size > 0) {
-        // Open boxes with k = 1, 2, ... rows: one tilt for a run of k, moments and normaliser
-        // advanced a row at a time; the tilt is solved again once the design's mean is half a
-        // standard deviation off the target (only speed depends on the tilts).
         const k = box.rows;
-        if (open === null || open.k > k - 1 || k - open.k > 64) {
-          open = new OpenDesignSums(solveDesignTilt(k, Infinity, box.size, start));
-          setup += 8 * k;
+        if (open !== null && open.k === k - 1) {
+          const z = k * open.s;
+          open.mean += (1 - z / 2 + designTermMean(z)) / open.s;
+          open.variance += (1 - designTermVariance(z)) / (open.s * open.s);
+          open.k = k;
+          setup += 4;
+        } else {
+          const s0: number = open !== null ? open.s : (start ?? Math.log1p(k / box.size));
+          open = { s: s0, k, ...openMomentsApprox(k, s0) };
+          setup += 200;
         }
-        while (open.k < k) open.advance();
-        if (Math.abs(open.mean - box.size) > 0.75 * Math.sqrt(open.variance)) {
-          // One Newton step from the running moments (d mean / ds = -variance), then the sums again.
-          const next = open.s + (open.mean - box.size) / open.variance;
-          open = new OpenDesignSums(next > 0 ? next : open.s / 2);
-          while (open.k < k) open.advance();
-          setup += 4 * k;
+        for (let step = 0; step < 30 && Math.abs(open.mean - box.size) > 0.75 * Math.sqrt(open.variance); step++) {
+          // Newton step (d mean / ds = -variance), halved towards 0 if it overshoots.
+          let next: number = open.s + (open.mean - box.size) / open.variance;
+          if (!(next > 0)) next = open.s / 4;
+          open = { s: Math.min(next, 60), k, ...openMomentsApprox(k, Math.min(next, 60)) };
+          setup += 200;
         }
-        setup += 4;
         design = new BoxDesign(box, open.s, {
           variance: open.variance,
-          logSuccess: logSuccessFromBinomial(k, box.size, open.s, open.logBinomial),
+          logSuccess: logSuccessFromBinomial(k, box.size, open.s, -logQPochhammer(open.s, k - 1, advanceTo(sums, k - 1))),
         });
+        setup += 60;
       } else {
         design = new BoxDesign(box, start);
         setup += 12 * design.k;

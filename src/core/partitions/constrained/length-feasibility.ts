@@ -37,7 +37,8 @@ export function listLengthFeasible(
     if (N < 0) return false;
     return fewestAtMost(values.slice(1).map((s) => s - values[0]), N, k, workLimit);
   }
-  if (kMin > 0) return undefined; // not needed by the planner (length or maxLength only)
+  // At most kMax parts (a partition of n > 0 has at least one part anyway).
+  if (kMin > 1 || (kMin === 1 && n === 0)) return undefined; // not needed by the planner
   return fewestAtMost(values, n, kMax, workLimit);
 }
 

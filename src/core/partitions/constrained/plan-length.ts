@@ -46,10 +46,14 @@ export interface LengthPlanInput {
 
 /** Setup steps per row of a box design (tilt solving by Newton steps, normaliser). */
 const SETUP_STEPS_PER_ROW = 12;
+/** No box design is solved whose work per sample would certainly exceed this (the planner's limit). */
+const SAMPLE_WORK_CEILING = 1e7;
 /** Setup steps a box mixture may take (tilts and normalisers: transcendental functions, ~0.1 us each). */
 const MIXTURE_SETUP_LIMIT = 2e6;
 /** Length filters are offered only when the condition holds with at least this probability (estimate). */
 const FILTER_MIN_ACCEPTANCE = 0.02;
+/** ... and, when another method fits, only at this estimated acceptance rate or above. */
+const FILTER_SLACK_ACCEPTANCE = 0.5;
 
 export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
   const { spec } = input;
@@ -64,7 +68,7 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       if (box !== null) {
         const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
         out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
-        if (box.cols === Infinity && box.rows >= box.size) out.push(freeCandidate(input, box.size, map, k, distinct ? k : undefined));
+        out.push(...boxFilterCandidates(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
       }
       if (hi >= n) out.push(...openExactCandidates(input, k));
     } else if (spec.maxLength !== undefined) {
@@ -72,6 +76,7 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       if (!distinct && lo === 1) {
         const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
         out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
+        out.push(...boxFilterCandidates(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
           out.push(samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: K }, n), conjugate, K, input.shape)));
@@ -87,7 +92,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
     if (sizes.values.length === 1) out.push(samplerCandidate(input, singleSize(sizes.values[0], n)));
     else if (!distinct) out.push(samplerCandidate(input, new AllowedLengthBoltzmann(sizes.values, n, parts, spec.length === undefined)));
   }
-  const filter = filterCandidate(input);
+  // A length filter plans the family without the length constraint (tables, tilts): only worth
+  // it when that constraint rarely binds or nothing else fits.
+  const filter = filterCandidate(input, out.some((c) => c.fits) ? FILTER_SLACK_ACCEPTANCE : FILTER_MIN_ACCEPTANCE);
   if (filter !== null) out.push(filter);
   return out;
 }
@@ -109,6 +116,29 @@ export function lengthShape(spec: ConstrainedSpec): { expectedLength: number; ex
   if (spec.length !== undefined) length = spec.length;
   if (spec.maxLength !== undefined) length = Math.min(length, spec.maxLength);
   return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes), tilt };
+}
+
+/**
+ * The most parts a member can have: n / (smallest size), or for distinct parts the largest k
+ * whose k smallest sizes sum to at most n.
+ */
+export function mostParts(spec: ConstrainedSpec): number {
+  const { n, sizes } = spec;
+  if (sizeCount(sizes) === 0) return 0;
+  if (!spec.distinct) return Math.floor(n / (sizes.kind === 'list' ? sizes.values[0] : sizes.lo));
+  if (sizes.kind === 'list') {
+    let sum = 0;
+    let k = 0;
+    while (k < sizes.values.length && sum + sizes.values[k] <= n) sum += sizes.values[k++];
+    return k;
+  }
+  // k lo + k(k-1)/2 <= n and k <= hi - lo + 1.
+  const { lo, hi } = sizes;
+  const b = lo - 0.5;
+  let k = Math.floor(-b + Math.sqrt(b * b + 2 * n));
+  while (k * lo + (k * (k - 1)) / 2 > n) k--;
+  while ((k + 1) * lo + ((k + 1) * k) / 2 <= n) k++;
+  return Math.max(0, Math.min(k, hi - lo + 1));
 }
 
 /** The only member when a single size is allowed: n / s parts equal to s. */
@@ -181,6 +211,11 @@ function boxCandidate(
   expectedLength: number,
   expectedDistinct: number,
 ): PlanCandidate {
+  // At least ~0.7 sqrt(k) proposals of 3k steps (x = 1; box-subset.ts): skip hopeless designs unsolved.
+  const k = Math.min(box.rows, box.cols);
+  if (k > 64 && 0.5 * k * Math.sqrt(k) > SAMPLE_WORK_CEILING) {
+    return { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: 0.5 * k * Math.sqrt(k), fits: false, build: () => { throw new RangeError('box design over the work limit'); } };
+  }
   const design = new BoxDesign(box);
   const subset = new BoxSubset(design);
   const sampler: PartitionSampler = {
@@ -193,23 +228,72 @@ function boxCandidate(
   return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k);
 }
 
-/** A box neither of whose sides binds: all partitions of its size, drawn by the unrestricted sampler. */
-function freeCandidate(
+/**
+ * Boxes one or both of whose sides rarely bind: an exact sampler of the partitions of the box's
+ * size under the binding side only, keeping the samples that fit the other (a uniform law
+ * restricted to a subset is uniform on it):
+ * - neither side binds: the unrestricted sampler; the acceptance rate is estimated with the
+ *   Erdős–Lehner law of the largest part and, by conjugation, of the number of parts (Erdős &
+ *   Lehner 1941: (lambda_1 - a ln a) / a tends to Gumbel, a = sqrt(6m) / pi);
+ * - only "at most `rows` parts" binds: parts <= rows by conjugation, keep those with at most
+ *   `cols` parts before conjugating; only "parts <= cols" binds: keep those with at most `rows`
+ *   parts. Acceptance from the normal law of the number of parts (length-law.ts).
+ * Offered only where the estimate is well inside the bulk of the law.
+ */
+function boxFilterCandidates(
   input: LengthPlanInput,
-  size: number,
+  box: Box,
   map: (rows: Partition) => Partition,
   expectedLength: number,
-  expectedDistinct?: number,
-): PlanCandidate {
-  const inner = unrestrictedPartitionSampler(size);
-  const sampler: PartitionSampler = {
-    method: `${inner.method}+shift`,
-    expectedLength,
-    expectedDistinct: expectedDistinct ?? inner.expectedDistinct + 1,
-    expectedWork: inner.expectedWork + expectedLength,
-    sample: (source) => map(inner.sample(source)),
+  expectedDistinct: number,
+): PlanCandidate[] {
+  const { rows, cols, size } = box;
+  if (size < 2 || rows < 1 || cols < 1) return [];
+  const out: PlanCandidate[] = [];
+  const fitsBox = (p: Partition) => p.sizes[0] <= cols && lengthOfParts(p) <= rows;
+  const wrap = (method: string, inner: PartitionSampler, accept: number, transform: (p: Partition) => Partition, keep: (p: Partition) => boolean) => {
+    const sampler: PartitionSampler = {
+      method,
+      expectedLength,
+      expectedDistinct: Math.min(expectedDistinct, inner.expectedDistinct + 1),
+      expectedWork: inner.expectedWork / accept + expectedLength,
+      sample: (source) => {
+        for (;;) {
+          const p = inner.sample(source);
+          if (keep(p)) return map(transform(p));
+        }
+      },
+    };
+    out.push(samplerCandidate(input, sampler));
   };
-  return samplerCandidate(input, sampler);
+  const a = Math.sqrt(6 * size) / Math.PI;
+  const gumbel = (r: number) => (r === Infinity ? 1 : Math.exp(-Math.exp(-(r - a * Math.log(a)) / a)));
+  const free = gumbel(rows) * gumbel(cols);
+  if (free >= 0.5) {
+    const inner = unrestrictedPartitionSampler(size);
+    wrap(`${inner.method}+box-filter`, inner, free, (p) => p, fitsBox);
+  }
+  const oneSided = (binding: number, slack: number, conjugateFirst: boolean) => {
+    if (slack === Infinity || binding >= size) return;
+    const sizes = { kind: 'interval', lo: 1, hi: binding } as const;
+    const tilt = solveTiltNewton(sizes, size, false);
+    const law = lengthLaw(sizes, tilt, false);
+    const z = (slack + 0.5 - law.mean) / law.sd;
+    if (!(z >= 2.5)) return;
+    const inner = new MultisetBoltzmann(sizes, size, tilt);
+    // The inner partition has parts <= binding; its number of parts must be <= slack.
+    const keep = (p: Partition) => lengthOfParts(p) <= slack;
+    wrap(`${inner.method}+${conjugateFirst ? 'conjugate+' : ''}box-filter`, inner, normalCdf(z), conjugateFirst ? conjugate : (p) => p, keep);
+  };
+  oneSided(rows, cols, true);
+  oneSided(cols, rows, false);
+  return out;
+}
+
+function lengthOfParts(p: Partition): number {
+  let total = 0;
+  for (const m of p.multiplicities) total += m;
+  return total;
 }
 
 /**
@@ -296,7 +380,7 @@ function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: num
  * binds. The acceptance rate is estimated from the normal law of the number of parts
  * (length-law.ts); the filter is offered only where that estimate is not in a far tail.
  */
-function filterCandidate(input: LengthPlanInput): PlanCandidate | null {
+function filterCandidate(input: LengthPlanInput, minAcceptance: number): PlanCandidate | null {
   const { spec, shape } = input;
   if (input.feasible !== true) return null;
   let acceptance: number;
@@ -314,7 +398,7 @@ function filterCandidate(input: LengthPlanInput): PlanCandidate | null {
       acceptance = normalCdf(z);
     }
   }
-  if (acceptance < FILTER_MIN_ACCEPTANCE) return null;
+  if (acceptance < minAcceptance) return null;
   const inner = input.withoutLength();
   if (inner === null) return null;
   const sampleWork = inner.sampleWork / acceptance;

@@ -4,7 +4,7 @@ import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
-import { lengthCandidates, lengthShape } from './plan-length.js';
+import { lengthCandidates, lengthShape, mostParts } from './plan-length.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -48,7 +48,10 @@ export const NOMINAL_SAMPLES = 100;
 const BOLTZMANN_CONSIDERED_ABOVE = 2e5;
 
 export interface PlanOptions {
-  /** Force a method by id without version, e.g. "distinct-boltzmann" (tests and benchmarks). */
+  /**
+   * Force a method by id without versions, e.g. "distinct-boltzmann" or "box-subset"; composite
+   * ids spelled out ("bounded-boltzmann+conjugate") or by their first part (tests and benchmarks).
+   */
   readonly method?: string;
 }
 
@@ -66,7 +69,9 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
   const spec = toSpec(family);
   let chosen: PlanCandidate | undefined;
   if (options.method !== undefined) {
-    chosen = candidates.find((c) => c.method.split('/')[0] === options.method);
+    // The id without versions ("bounded-boltzmann+length-filter"), else the first with that base name.
+    const bare = (id: string) => id.replace(/\/\d+/g, '');
+    chosen = candidates.find((c) => bare(c.method) === options.method) ?? candidates.find((c) => c.method.split('/')[0] === options.method);
     if (chosen === undefined) {
       throw new RangeError(`method ${options.method} does not apply to this family (applicable: ${candidates.map((c) => c.method).join(', ')})`);
     }
@@ -113,7 +118,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     };
     return [{ method: 'trivial/1', setupWork: 0, sampleWork: 1, fits: true, build: () => empty }];
   }
-  const hasLength = spec.length !== undefined || (spec.maxLength !== undefined && spec.maxLength < n);
+  // A maxLength no member can reach binds nothing: such a family is planned without it.
+  const hasLength = spec.length !== undefined || (spec.maxLength !== undefined && spec.maxLength < mostParts(spec));
   const kMin = spec.length ?? 0;
   const kMax = Math.min(spec.length ?? spec.maxLength ?? n, n);
   const open = sizes.kind === 'interval' && sizes.hi >= n;

@@ -115,6 +115,14 @@ export function drawDesign(
 }
 
 /** Stable pieces of z / (e^z - 1) and z^2 e^z / (e^z - 1)^2 near 0 (Bernoulli-number series). */
+export function designTermMean(z: number): number {
+  return c1(z);
+}
+
+export function designTermVariance(z: number): number {
+  return e2(z);
+}
+
 function c1(z: number): number {
   // z / (e^z - 1) - 1 + z / 2 = z^2/12 - z^4/720 + z^6/30240 - ...
   if (z < 1e-2) {
@@ -208,29 +216,118 @@ export function logGaussianBinomial(N: number, j: number, s: number): number {
   return total;
 }
 
+/** ln Γ(z) for z >= 1: exact log-factorial sums below 16, Stirling's series above (error < 1e-15). */
+function logGamma(z: number): number {
+  let shift = 0;
+  while (z < 16) {
+    shift -= Math.log(z);
+    z += 1;
+  }
+  const inv = 1 / z;
+  const inv2 = inv * inv;
+  // Bernoulli terms B_2k / (2k (2k-1) z^(2k-1)), k = 1..6 (Abramowitz & Stegun 6.1.40).
+  const series = inv * (1 / 12 + inv2 * (-1 / 360 + inv2 * (1 / 1260 + inv2 * (-1 / 1680 + inv2 * (1 / 1188 + inv2 * (-691 / 360360))))));
+  return shift + (z - 0.5) * Math.log(z) - z + 0.5 * Math.log(2 * Math.PI) + series;
+}
+
+/** Bernoulli numbers B_0..B_24 (B_1 = -1/2), for the series below (DLMF Table 24.2.1). */
+const BERNOULLI = [
+  1, -1 / 2, 1 / 6, 0, -1 / 30, 0, 1 / 42, 0, -1 / 30, 0, 5 / 66, 0, -691 / 2730, 0, 7 / 6, 0, -3617 / 510, 0, 43867 / 798, 0,
+  -174611 / 330, 0, 854513 / 138, 0, -236364091 / 2730,
+];
+
 /**
- * designMoments and ln [Infinity choose k-1]_x for open boxes (b = Infinity) at a fixed tilt,
- * advanced one row at a time: the sums run over i = 1..k, so adding a row adds one term
- * (box-mixture.ts walks k = 1, 2, ... this way).
+ * ln (x; x)_j = sum_(i=1..j) ln(1 - x^i), x = e^(-s), s > 0, in O(1) operations, relative error
+ * ~1e-15 (checked against the direct sum in test/constrained/subset-design.test.ts):
+ * - s >= 1: the direct sum of the terms with x^i above 2^-60;
+ * - (j + 1) s >= 1: ln (x; x)_inf - sum_(i>j) ln(1 - x^i); the first by the modular
+ *   transformation of Dedekind's eta (Apostol 1976, "Modular functions and Dirichlet series",
+ *   Thm 3.1): (x; x)_inf = sqrt(2 pi / s) exp(s/24 - pi^2/(6s)) (x'; x')_inf, x' = e^(-4 pi^2 / s);
+ *   the tail as -sum_(m>=1) x^(m(j+1)) / (m (1 - x^m)) (ratio x^(j+1) <= 1/e);
+ * - (j + 1) s < 1: sum ln(i s) + sum h(i s) with h(z) = ln((1 - e^-z)/z) = sum_(n>=1) B_n z^n / (n n!)
+ *   (radius 2 pi), i.e. j ln s + ln j! + sum_n B_n s^n S_n(j) / (n n!), S_n(j) = sum_(i<=j) i^n
+ *   by Faulhaber's formula.
  */
-export class OpenDesignSums {
-  k = 0;
-  mean = 0;
-  variance = 0;
-  /** ln [Infinity choose k-1]_x = -sum_(i<k) ln(1 - x^i). */
-  logBinomial = 0;
-
-  constructor(readonly s: number) {
-    if (!(s > 0)) throw new RangeError('an open box needs a tilt s > 0');
+export function logQPochhammer(s: number, j: number, sums?: PowerSums): number {
+  if (j <= 0) return 0;
+  if (s >= 1 || j <= 32) {
+    let total = 0;
+    const top = Math.min(j, Math.ceil(42 / s));
+    for (let i = 1; i <= top; i++) total += Math.log(-Math.expm1(-s * i));
+    return total;
   }
+  if ((j + 1) * s >= 1) {
+    // ln (x; x)_inf by the eta transformation; (x'; x')_inf with x' <= e^-(4 pi^2) is 1 - x' - ...
+    const xp = Math.exp((-4 * Math.PI * Math.PI) / s);
+    const full = 0.5 * Math.log((2 * Math.PI) / s) + s / 24 - (Math.PI * Math.PI) / (6 * s) + Math.log1p(-xp) + Math.log1p(-xp * xp);
+    let tail = 0;
+    for (let m = 1; m < 200; m++) {
+      const term = Math.exp(-s * m * (j + 1)) / (m * -Math.expm1(-s * m));
+      tail += term;
+      if (term < 1e-17 * tail) break;
+    }
+    return full + tail;
+  }
+  // Small j s: sum_i ln(i s) + sum_n B_n s^n S_n(j) / (n n!).
+  let total = j * Math.log(s) + logGamma(j + 1);
+  let factorial = 1;
+  for (let n = 1; n < BERNOULLI.length; n++) {
+    factorial *= n;
+    if (BERNOULLI[n] === 0) continue;
+    const term = (BERNOULLI[n] * Math.pow(s, n) * (sums !== undefined && sums.j === j ? sums.values[n] : powerSum(n, j))) / (n * factorial);
+    total += term;
+    if (Math.abs(term) < 1e-18 * Math.abs(total) && n > 4) break;
+  }
+  return total;
+}
 
-  /** Moves to k + 1 rows. */
+/** The power sums S_n(j) = sum_(i<=j) i^n, n < 25, advanced with j (they do not depend on s). */
+export class PowerSums {
+  j = 0;
+  readonly values = new Float64Array(BERNOULLI.length);
+
+  /** Moves to j + 1. */
   advance(): void {
-    const s = this.s;
-    if (this.k >= 1) this.logBinomial -= Math.log(-Math.expm1(-s * this.k));
-    this.k++;
-    const z = this.k * s;
-    this.mean += (1 - z / 2 + c1(z)) / s;
-    this.variance += (1 - e2(z)) / (s * s);
+    this.j++;
+    let power = 1;
+    for (let n = 0; n < this.values.length; n++) {
+      this.values[n] += power;
+      power *= this.j;
+    }
   }
+}
+
+/** sum_(i=1..j) i^n by Faulhaber's formula (1/(n+1)) sum_k C(n+1, k) B+_k j^(n+1-k), B+_1 = +1/2. */
+function powerSum(n: number, j: number): number {
+  let total = 0;
+  let binomial = 1; // C(n+1, k)
+  for (let k = 0; k <= n; k++) {
+    const b = k === 1 ? 0.5 : BERNOULLI[k];
+    if (b !== 0) total += binomial * b * Math.pow(j, n + 1 - k);
+    binomial = (binomial * (n + 1 - k)) / (k + 1);
+  }
+  return total / (n + 1);
+}
+
+/**
+ * designMoments for an open box (b = Infinity) in O(1): the first 32 terms summed, the rest by
+ * Simpson's rule (smooth integrands). Only tilts and estimates depend on it.
+ */
+export function openMomentsApprox(k: number, s: number): DesignMoments {
+  const head = Math.min(k, 32);
+  let mean = 0;
+  let variance = 0;
+  const add = (i: number, weight: number) => {
+    const z = i * s;
+    mean += (weight * (1 - z / 2 + c1(z))) / s;
+    variance += (weight * (1 - e2(z))) / (s * s);
+  };
+  for (let i = 1; i <= head; i++) add(i, 1);
+  if (k > head) {
+    const panels = 64;
+    const a = head + 0.5;
+    const h = (k + 0.5 - a) / panels;
+    for (let p = 0; p <= panels; p++) add(a + p * h, ((p === 0 || p === panels ? 1 : p % 2 === 1 ? 4 : 2) * h) / 3);
+  }
+  return { mean, variance };
 }
