@@ -8,6 +8,7 @@ import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
 import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import type { PlanCandidate } from './plan.js';
+import { about } from './refusal.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
 import { tiltMoments } from './tilt.js';
 import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
@@ -67,7 +68,7 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const box = exactBox(n, lo, hi, distinct, k);
       if (box !== null) {
         const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
-        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
+        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0)));
         out.push(...boxFilterCandidates(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
       }
       if (hi >= n) out.push(...openExactCandidates(input, k));
@@ -75,7 +76,7 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const K = spec.maxLength;
       if (!distinct && lo === 1) {
         const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
-        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
+        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols));
         out.push(...boxFilterCandidates(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
@@ -90,7 +91,11 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
   if (sizes.kind === 'list' && input.feasible === true) {
     const parts = spec.length ?? spec.maxLength!;
     if (sizes.values.length === 1) out.push(samplerCandidate(input, singleSize(sizes.values[0], n)));
-    else if (!distinct) out.push(samplerCandidate(input, new AllowedLengthBoltzmann(sizes.values, n, parts, spec.length === undefined)));
+    else if (!distinct) {
+      // Proposals grow about linearly with the number of parts (2-D local limit).
+      const sampler = new AllowedLengthBoltzmann(sizes.values, n, parts, spec.length === undefined);
+      out.push(samplerCandidate(input, sampler, 0, (work) => partsHint((parts * SAMPLE_WORK_CEILING) / work)));
+    }
   }
   // A length filter plans the family without the length constraint (tables, tilts): only worth
   // it when that constraint rarely binds or nothing else fits.
@@ -194,14 +199,26 @@ function distinctBound(box: Box): number {
   return Math.min(box.rows, box.cols, Math.floor(Math.sqrt(2 * box.size)) + 1);
 }
 
-function samplerCandidate(input: LengthPlanInput, sampler: PartitionSampler, setupWork = 0): PlanCandidate {
+function samplerCandidate(input: LengthPlanInput, sampler: PartitionSampler, setupWork = 0, hint?: (work: number) => string): PlanCandidate {
+  const fits = input.fits(setupWork, sampler.expectedWork);
   return {
     method: sampler.method,
     setupWork,
     sampleWork: sampler.expectedWork,
-    fits: input.fits(setupWork, sampler.expectedWork),
+    fits,
     build: () => sampler,
+    ...(fits || hint === undefined ? {} : { hint: hint(sampler.expectedWork) }),
   };
+}
+
+/** "at this n the family fits with at most about 24000 parts". */
+function partsHint(parts: number): string {
+  return `at this n the family fits with at most about ${about(parts)} parts`;
+}
+
+/** "... when maxPart is at most about 24000". */
+function maxPartHint(maxPart: number): string {
+  return `at this n the family fits with maxPart at most about ${about(maxPart)}`;
 }
 
 function boxCandidate(
@@ -210,11 +227,19 @@ function boxCandidate(
   map: (rows: Partition) => Partition,
   expectedLength: number,
   expectedDistinct: number,
+  /** The maxPart whose box has this many columns. */
+  maxPartOf: (cols: number) => number,
 ): PlanCandidate {
+  // The work grows like k^1.5 in the short side k of the box: the side to shrink, and by how much.
+  const hint = (work: number) => {
+    const fit = Math.min(box.rows, box.cols) * Math.pow(SAMPLE_WORK_CEILING / work, 2 / 3);
+    return box.cols < box.rows ? maxPartHint(maxPartOf(fit)) : partsHint(fit);
+  };
   // At least ~0.7 sqrt(k) proposals of 3k steps (x = 1; box-subset.ts): skip hopeless designs unsolved.
   const k = Math.min(box.rows, box.cols);
   if (k > 64 && 0.5 * k * Math.sqrt(k) > SAMPLE_WORK_CEILING) {
-    return { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: 0.5 * k * Math.sqrt(k), fits: false, build: () => { throw new RangeError('box design over the work limit'); } };
+    const work = 0.5 * k * Math.sqrt(k);
+    return { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: work, fits: false, build: () => { throw new RangeError('box design over the work limit'); }, hint: hint(work) };
   }
   const design = new BoxDesign(box);
   const subset = new BoxSubset(design);
@@ -225,7 +250,7 @@ function boxCandidate(
     expectedWork: design.expectedProposals * design.proposalCost + expectedLength,
     sample: (source: RandomSource) => map(subset.sample(source)),
   };
-  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k);
+  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k, hint);
 }
 
 /**
@@ -362,7 +387,9 @@ function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: num
   const open = entries.every((e) => e.box.cols === Infinity);
   const bound = open ? 4 * entries.length + 8 * rows : SETUP_STEPS_PER_ROW * rows;
   if (bound > MIXTURE_SETUP_LIMIT && !open) {
-    return { method: 'box-mixture/1', setupWork: bound, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('box mixture over its setup limit'); } };
+    // Setup grows like K^2 (one tilt per k, each over k rows).
+    const hint = partsHint(K * Math.sqrt(MIXTURE_SETUP_LIMIT / bound));
+    return { method: 'box-mixture/1', setupWork: bound, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('box mixture over its setup limit'); }, hint };
   }
   const mixture = new BoxMixture(
     entries,
@@ -370,8 +397,10 @@ function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: num
     (k) => (distinct ? k : Math.min(k, Math.floor(Math.sqrt(2 * n)) + 2)),
   );
   const setupWork = mixture.estimates.setupWork;
-  const candidate = samplerCandidate(input, mixture, setupWork);
-  return { ...candidate, fits: candidate.fits && setupWork <= MIXTURE_SETUP_LIMIT };
+  // Work per sample grows like K^1.5 (box-subset per k), setup like K.
+  const candidate = samplerCandidate(input, mixture, setupWork, (work) => partsHint(K * Math.pow(SAMPLE_WORK_CEILING / work, 2 / 3)));
+  if (setupWork <= MIXTURE_SETUP_LIMIT) return candidate;
+  return { ...candidate, fits: false, hint: partsHint((K * MIXTURE_SETUP_LIMIT) / setupWork) };
 }
 
 /**

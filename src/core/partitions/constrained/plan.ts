@@ -1,10 +1,11 @@
-import { EmptyFamilyError, LimitExceededError } from '../../errors.js';
+import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import { lengthCandidates, lengthShape, mostParts } from './plan-length.js';
+import { refusal } from './refusal.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -61,6 +62,8 @@ export interface PlanCandidate {
   readonly sampleWork: number;
   readonly fits: boolean;
   readonly build: () => PartitionSampler;
+  /** When it does not fit: what would, in the family's terms (for the refusal message). */
+  readonly hint?: string;
 }
 
 /** An exact uniform sampler for a constrained partition family (see the limits above). */
@@ -79,12 +82,10 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
     const fitting = candidates.filter((c) => c.fits);
     if (fitting.length === 0) {
       const least = candidates.reduce((a, b) => (cost(b) < cost(a) ? b : a));
-      throw new LimitExceededError(
-        `no exact method samples this family within the limits (table <= ${TABLE_CELL_LIMIT.toExponential(0)} cells, ` +
-          `<= ${SAMPLE_WORK_LIMIT.toExponential(0)} steps per sample); the cheapest, ${least.method}, needs ` +
-          `${least.setupWork.toExponential(1)} cells and ${least.sampleWork.toExponential(1)} steps per sample`,
-        `table cells <= ${TABLE_CELL_LIMIT.toExponential(0)}, work per sample <= ${SAMPLE_WORK_LIMIT.toExponential(0)}`,
-      );
+      // The hint of the method closest to fitting that knows what would fit.
+      const hinted = candidates.filter((c) => c.hint !== undefined);
+      const hint = hinted.length === 0 ? undefined : hinted.reduce((a, b) => (b.sampleWork < a.sampleWork ? b : a)).hint;
+      throw refusal(family, { setupWork: least.setupWork, sampleWork: least.sampleWork, hint }, TABLE_CELL_LIMIT, SAMPLE_WORK_LIMIT);
     }
     chosen = fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
   }
