@@ -1,15 +1,17 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, http) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, http) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
 import { benchHttp } from './bench/http.js';
+import { benchShapes } from './bench/shapes.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
   unrestricted: benchUnrestricted,
   constrained: benchConstrained,
+  shapes: benchShapes,
   compositions: benchCompositions,
   http: benchHttp,
 };
