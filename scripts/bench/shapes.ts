@@ -24,8 +24,11 @@ type Shape = (n: number) => Omit<PartitionFamily, 'kind' | 'n'>;
 
 const root = (n: number) => Math.ceil(Math.sqrt(n));
 const COINS = [1, 2, 5, 10, 20, 50];
-/** 1000 sizes spread over [1, 4n/1000] (sum about 2n): distinct parts from a list can reach n. */
-const spread = (n: number) => Array.from({ length: 1000 }, (_, i) => 1 + Math.floor((i * 4 * n) / 1e6));
+/** 1000 sizes 1 + floor(i d), d = max(1, 4n / 1e6): their sum (about 2n or 500500) reaches n with distinct parts. */
+const spread = (n: number) => {
+  const d = Math.max(1, (4 * n) / 1e6);
+  return Array.from({ length: 1000 }, (_, i) => 1 + Math.floor(i * d));
+};
 
 /** [name, family] — the constraint values used at each n. */
 export const SHAPES: Array<[string, Shape]> = [

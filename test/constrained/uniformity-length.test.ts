@@ -45,6 +45,8 @@ describe('box-mixture (restart the number of parts after each failed proposal) i
     ['at most K parts >= lo', { n: 34, minPart: 3, maxLength: 5 }, 'box-mixture'],
     ['at most K parts in [lo, hi]', { n: 38, minPart: 2, maxPart: 11, maxLength: 6 }, 'box-mixture'],
     ['at most K distinct parts in [lo, hi]', { n: 40, distinct: true, minPart: 2, maxPart: 15, maxLength: 4 }, 'box-mixture'],
+    ['distinct parts >= lo, no length constraint (at most n / lo parts fit)', { n: 40, distinct: true, minPart: 4 }, 'box-mixture'],
+    ['parts >= lo, no length constraint', { n: 40, minPart: 6 }, 'box-mixture'],
   ];
   for (const c of cases) check(c);
 });

@@ -133,7 +133,7 @@ export class BoxMixture implements PartitionSampler {
     };
     this.expectedLength = this.estimates.expectedParts;
     this.expectedDistinct = Math.min(this.expectedLength, distinctParts(Math.round(this.expectedLength)));
-    this.expectedWork = expectedProposals * this.estimates.proposalCost + this.expectedLength;
+    this.expectedWork = expectedProposals * this.estimates.proposalCost + this.expectedDistinct;
   }
 
   sample(source: RandomSource): Partition {

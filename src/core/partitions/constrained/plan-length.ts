@@ -104,6 +104,23 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
   return out;
 }
 
+/** Families with at most this many parts possible get the length branch's methods without a length constraint. */
+const IMPLICIT_LENGTH_CAP = 20_000;
+
+/**
+ * A family without a length constraint in which few parts fit (distinct parts or minPart > 1 over
+ * an interval of sizes): it equals "at most mostParts parts", which box-mixture samples. Offered
+ * when no method of the no-length branch fits.
+ */
+export function implicitLengthCandidates(input: LengthPlanInput): PlanCandidate[] {
+  const { spec } = input;
+  if (spec.sizes.kind !== 'interval' || (!spec.distinct && spec.sizes.lo <= 1)) return [];
+  const most = mostParts(spec);
+  if (most < 1 || most > IMPLICIT_LENGTH_CAP) return [];
+  const mixture = mixtureCandidate({ ...input, spec: { ...spec, maxLength: most } }, spec.sizes.lo, Math.min(spec.sizes.hi, spec.n), most);
+  return mixture === null ? [] : [mixture];
+}
+
 /**
  * Mean length and number of distinct sizes of a length-constrained family (as plan.ts
  * estimateShape, with the tilt of the family without its length constraint solved by Newton steps).
@@ -247,7 +264,8 @@ function boxCandidate(
     method: 'box-subset/1',
     expectedLength,
     expectedDistinct,
-    expectedWork: design.expectedProposals * design.proposalCost + expectedLength,
+    // The maps write the multiplicity form: O(distinct sizes), not O(parts).
+    expectedWork: design.expectedProposals * design.proposalCost + expectedDistinct,
     sample: (source: RandomSource) => map(subset.sample(source)),
   };
   return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k, hint);
@@ -281,7 +299,7 @@ function boxFilterCandidates(
       method,
       expectedLength,
       expectedDistinct: Math.min(expectedDistinct, inner.expectedDistinct + 1),
-      expectedWork: inner.expectedWork / accept + expectedLength,
+      expectedWork: inner.expectedWork / accept + expectedDistinct,
       sample: (source) => {
         for (;;) {
           const p = inner.sample(source);
@@ -365,7 +383,7 @@ function conjugated(
     expectedLength: length,
     // Conjugation keeps the number of distinct sizes (corners of the Ferrers diagram).
     expectedDistinct: Math.min(length, Math.max(inner.expectedDistinct, shape.expectedDistinct)),
-    expectedWork: inner.expectedWork + inner.expectedDistinct + length,
+    expectedWork: inner.expectedWork + 2 * inner.expectedDistinct,
     sample: (source) => map(inner.sample(source)),
   };
 }

@@ -4,7 +4,7 @@ import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
-import { lengthCandidates, lengthShape, mostParts } from './plan-length.js';
+import { implicitLengthCandidates, lengthCandidates, lengthShape, mostParts } from './plan-length.js';
 import { refusal } from './refusal.js';
 import {
   contradiction,
@@ -36,7 +36,9 @@ import { solveTilt, tiltMoments } from './tilt.js';
  *   (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); minPart = 7 up to n ~ 5e8 (2.2e6 steps, 0.6 s per sample at n = 1e8); allowed
- *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms).
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
+ *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
+ *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
  * A family no method fits throws LimitExceededError naming the limit. Empty families throw
  * EmptyFamilyError; contradictory bounds (minPart > maxPart, length > n) throw RangeError.
@@ -166,16 +168,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
   }
+  const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
-    out.push(
-      ...lengthCandidates({
-        spec,
-        shape,
-        feasible,
-        fits: (setup, work) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT,
-        withoutLength: () => cheapestWithoutLength(family),
-      }),
-    );
+    out.push(...lengthCandidates({ spec, shape, feasible, fits, withoutLength: () => cheapestWithoutLength(family) }));
+  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits))) {
+    // Few parts fit (large minPart, or distinct parts) and no method above fits: the family is the
+    // union over k <= mostParts of boxes, which the length branch samples too (plan-length.ts).
+    out.push(...implicitLengthCandidates({ spec, shape, feasible, fits, withoutLength: () => null }));
   }
   return out;
 }
