@@ -24,6 +24,8 @@ export function listLengthFeasible(
   kMax: number,
   distinct: boolean,
   workLimit = 3e7,
+  /** Skip the table of fewest elements (tests use it to exercise the residue shortest paths). */
+  pathsOnly = false,
 ): boolean | undefined {
   const r = values.length;
   if (r === 0) return n === 0 && kMin === 0;
@@ -35,21 +37,21 @@ export function listLengthFeasible(
     if (k === 0) return n === 0;
     const N = n - k * values[0];
     if (N < 0) return false;
-    return fewestAtMost(values.slice(1).map((s) => s - values[0]), N, k, workLimit);
+    return fewestAtMost(values.slice(1).map((s) => s - values[0]), N, k, workLimit, pathsOnly);
   }
   // At most kMax parts (a partition of n > 0 has at least one part anyway).
   if (kMin > 1 || (kMin === 1 && n === 0)) return undefined; // not needed by the planner
-  return fewestAtMost(values, n, kMax, workLimit);
+  return fewestAtMost(values, n, kMax, workLimit, pathsOnly);
 }
 
 /** Is N a sum of at most c elements of D (positive, ascending)? */
-function fewestAtMost(D: readonly number[], N: number, c: number, workLimit: number): boolean | undefined {
+function fewestAtMost(D: readonly number[], N: number, c: number, workLimit: number, pathsOnly: boolean): boolean | undefined {
   if (N === 0) return true;
   if (D.length === 0 || c === 0) return false;
   const d = D[D.length - 1];
   if (N > c * d) return false;
   // Small N: the fewest elements for every value up to N.
-  if (D.length * N <= workLimit && N <= 5e6) return fewestTable(D, N) <= c;
+  if (!pathsOnly && D.length * N <= workLimit && N <= 5e6) return fewestTable(D, N) <= c;
   if (d * D.length * 20 > workLimit) return undefined;
   const { cost, value } = residuePaths(D, d);
   const rho = N % d;
