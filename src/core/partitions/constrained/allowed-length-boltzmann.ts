@@ -1,6 +1,7 @@
 import type { Partition } from '../../partition.js';
 import { nextBelow, nextOpenDouble, type RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { PairSolutions } from './multiset-boltzmann.js';
 import { countsToPartition } from './size-table.js';
 import { gcd } from './spec.js';
 
@@ -52,7 +53,7 @@ export class AllowedLengthBoltzmann implements PartitionSampler {
   /** ln U (at most K only). */
   private readonly logBound: number;
   private readonly atMost: boolean;
-  private readonly pair: ResidueClass;
+  private readonly pair: PairSolutions;
 
   constructor(
     values: readonly number[],
@@ -81,7 +82,7 @@ export class AllowedLengthBoltzmann implements PartitionSampler {
       this.others.push(values[i]);
       this.logQ.push(logQ[i]);
     }
-    this.pair = new ResidueClass(this.a, this.b);
+    this.pair = new PairSolutions(this.a, this.b);
     if (atMost) {
       // max over 0 <= M <= n of tau M + ln(M / lcm + 1), tau = ln(x y^(1/b)).
       const tau = this.t + this.u / this.b;
@@ -157,60 +158,6 @@ export class AllowedLengthBoltzmann implements PartitionSampler {
       return countsToPartition(counts);
     }
   }
-}
-
-/**
- * The j >= 0 with a i + b j = M for some integer i >= 0, a < b: with g = gcd(a, b), they form
- * one residue class modulo a / g (empty unless g divides M).
- */
-class ResidueClass {
-  private readonly g: number;
-  private readonly a1: number;
-  private readonly inverse: number;
-
-  constructor(
-    readonly a: number,
-    readonly b: number,
-  ) {
-    this.g = gcd(a, b);
-    this.a1 = a / this.g;
-    this.inverse = this.a1 === 1 ? 0 : modInverse((b / this.g) % this.a1, this.a1);
-  }
-
-  /** Smallest j >= 0 of the class, or -1. */
-  private first(M: number): number {
-    if (M < 0 || M % this.g !== 0) return -1;
-    if (this.a1 === 1) return 0;
-    const r = (M / this.g) % this.a1;
-    return this.a1 < 9e7 ? (r * this.inverse) % this.a1 : Number((BigInt(r) * BigInt(this.inverse)) % BigInt(this.a1));
-  }
-
-  /** Members of the class in [from, to]. */
-  countBetween(M: number, from: number, to: number): number {
-    const j0 = this.first(M);
-    if (j0 < 0 || to < from) return 0;
-    const start = j0 >= from ? j0 : j0 + Math.ceil((from - j0) / this.a1) * this.a1;
-    return start > to ? 0 : Math.floor((to - start) / this.a1) + 1;
-  }
-
-  /** The index-th member of the class in [from, ...). */
-  nthBetween(M: number, from: number, index: number): number {
-    const j0 = this.first(M);
-    const start = j0 >= from ? j0 : j0 + Math.ceil((from - j0) / this.a1) * this.a1;
-    return start + index * this.a1;
-  }
-}
-
-function modInverse(value: number, modulus: number): number {
-  // Extended Euclid; values below 1e9, so the coefficients stay exact in doubles.
-  let [r0, r1] = [modulus, value];
-  let [s0, s1] = [0, 1];
-  while (r1 !== 0) {
-    const q = Math.floor(r0 / r1);
-    [r0, r1] = [r1, r0 - q * r1];
-    [s0, s1] = [s1, s0 - q * s1];
-  }
-  return ((s0 % modulus) + modulus) % modulus;
 }
 
 interface Moments {

@@ -10,7 +10,6 @@ import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import type { PlanCandidate } from './plan.js';
 import { about } from './refusal.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
-import { tiltMoments } from './tilt.js';
 import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
 
 /**
@@ -119,25 +118,6 @@ export function implicitLengthCandidates(input: LengthPlanInput): PlanCandidate[
   if (most < 1 || most > IMPLICIT_LENGTH_CAP) return [];
   const mixture = mixtureCandidate({ ...input, spec: { ...spec, maxLength: most } }, spec.sizes.lo, Math.min(spec.sizes.hi, spec.n), most);
   return mixture === null ? [] : [mixture];
-}
-
-/**
- * Mean length and number of distinct sizes of a length-constrained family (as plan.ts
- * estimateShape, with the tilt of the family without its length constraint solved by Newton steps).
- */
-export function lengthShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
-  let length = 1;
-  let distinctSizes = 1;
-  let tilt: number | undefined;
-  if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
-    tilt = solveTiltNewton(spec.sizes, spec.n, spec.distinct);
-    const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
-    length = moments.parts;
-    distinctSizes = moments.distinctSizes;
-  }
-  if (spec.length !== undefined) length = spec.length;
-  if (spec.maxLength !== undefined) length = Math.min(length, spec.maxLength);
-  return { expectedLength: length, expectedDistinct: Math.min(length, distinctSizes), tilt };
 }
 
 /**

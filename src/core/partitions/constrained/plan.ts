@@ -4,7 +4,8 @@ import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
-import { implicitLengthCandidates, lengthCandidates, lengthShape, mostParts } from './plan-length.js';
+import { solveTiltNewton } from './length-law.js';
+import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
 import { refusal } from './refusal.js';
 import {
   contradiction,
@@ -128,7 +129,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   const open = sizes.kind === 'interval' && sizes.hi >= n;
   const lo = sizes.kind === 'interval' ? sizes.lo : 0;
   const r = sizeCount(sizes);
-  const shape = hasLength ? lengthShape(spec) : estimateShape(spec);
+  // The length branch solves its tilt by Newton steps (length-law.ts; only estimates depend on it).
+  const shape = estimateShape(spec, hasLength ? solveTiltNewton : solveTilt);
   const out: PlanCandidate[] = [];
   const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler) =>
     out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build });
@@ -190,12 +192,15 @@ function cheapestWithoutLength(family: PartitionFamily): PlanCandidate | null {
  * Mean length and number of distinct sizes, from the Boltzmann tilt of the family without its
  * length constraint (exact as n grows; an estimate at small n), then the length constraint.
  */
-function estimateShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
+function estimateShape(
+  spec: ConstrainedSpec,
+  solve: (sizes: ConstrainedSpec['sizes'], n: number, distinct: boolean) => number = solveTilt,
+): { expectedLength: number; expectedDistinct: number; tilt?: number } {
   let length = 1;
   let distinctSizes = 1;
   let tilt: number | undefined;
   if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
-    tilt = solveTilt(spec.sizes, spec.n, spec.distinct);
+    tilt = solve(spec.sizes, spec.n, spec.distinct);
     const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
     length = moments.parts;
     distinctSizes = moments.distinctSizes;
