@@ -79,6 +79,7 @@ describe('emptiness of allowed lists with a length constraint (length-feasibilit
     const source = sampleSource('list-feasibility', 0, 'test');
     let decided = 0;
     let paths = 0;
+    let shortcuts = 0;
     for (let trial = 0; trial < 400; trial++) {
       const n = 1 + nextBelow(source, 40);
       const allowed = [...new Set(Array.from({ length: 1 + nextBelow(source, 5) }, () => 1 + nextBelow(source, 15)))].sort((a, b) => a - b);
@@ -88,18 +89,33 @@ describe('emptiness of allowed lists with a length constraint (length-feasibilit
       const family: PartitionFamily = { kind: 'partition', n, allowed, distinct, ...(exact ? { length: k } : { maxLength: k }) };
       const truth = enumerateFamily(family).length > 0;
       const kMin = exact ? k : 1;
-      for (const pathsOnly of [false, true]) {
-        // pathsOnly: the residue shortest paths (undefined where they cannot decide).
-        const answer = listLengthFeasible(allowed, n, kMin, k, distinct, 3e7, pathsOnly);
+      for (const [workLimit, pathsOnly] of [
+        [3e7, false],
+        [3e7, true],
+        [1, false],
+      ] as const) {
+        // pathsOnly: the residue shortest paths; workLimit 1 (distinct): bounds, residues and the
+        // greedy witness only. Each may answer undefined; a definite answer must be right.
+        const answer = listLengthFeasible(allowed, n, kMin, k, distinct, workLimit, pathsOnly);
         if (answer !== undefined) {
-          expect(answer, `${JSON.stringify(family)} pathsOnly ${pathsOnly}`).toBe(truth);
+          expect(answer, `${JSON.stringify(family)} ${workLimit} ${pathsOnly}`).toBe(truth);
           if (pathsOnly && !distinct) paths++;
+          if (workLimit === 1 && distinct) shortcuts++;
           decided++;
         }
       }
     }
     expect(decided).toBeGreaterThan(500);
     expect(paths).toBeGreaterThan(150);
+    expect(shortcuts).toBeGreaterThan(50);
+  });
+
+  it('distinct sizes: residues and a constructive witness decide where the bit-set table would not fit', () => {
+    const odd = Array.from({ length: 500 }, (_, i) => 2 * i + 1);
+    expect(listLengthFeasible(odd, 40_000, 200, 200, true)).toBe(true); // 1 + 3 + ... + 399
+    expect(listLengthFeasible(odd, 40_001, 200, 200, true)).toBe(false); // 200 odd numbers: even sum
+    const spaced = Array.from({ length: 1000 }, (_, i) => 1 + 4000 * i);
+    expect(listLengthFeasible(spaced, 1_000_000_000, 500, 500, true)).toBe(false); // sum = 500 mod 4000
   });
 
   it('decides large families by residue shortest paths: 1000 parts from {3, 7, 11} sum to 10000, not to 10001', () => {

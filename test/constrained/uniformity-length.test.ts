@@ -62,6 +62,16 @@ describe('allowed-length-boltzmann (two tilts, two sizes determined) is exact', 
   for (const c of cases) check(c);
 });
 
+describe('allowed-subset (subset design over an allowed list, last element determined) is exact', () => {
+  const cases: Case[] = [
+    ['exactly k distinct parts from a list', { n: 38, distinct: true, allowed: [1, 2, 4, 5, 7, 9, 10, 12, 13, 15, 16, 18, 20], length: 4 }, 'allowed-subset'],
+    ['sum above the middle (reflected sizes)', { n: 38, distinct: true, allowed: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14], length: 4 }, 'allowed-subset'],
+    ['reflected, list with a gap', { n: 36, distinct: true, allowed: [2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 15, 16], length: 4 }, 'allowed-subset'],
+    ['odd sizes (span 2)', { n: 36, distinct: true, allowed: [1, 3, 5, 7, 9, 11, 13, 15, 17, 19, 21, 23], length: 4 }, 'allowed-subset'],
+  ];
+  for (const c of cases) check(c);
+});
+
 describe('samplers of the family without one constraint, with rejection, are exact', () => {
   const cases: Case[] = [
     ['exactly k parts, box with no binding side (unrestricted + shift)', { n: 40, length: 28 }, 'table-recursive+box-filter'],

@@ -132,3 +132,19 @@ describe('allowed-length-boltzmann: law of the multiplicity of the largest size'
     run(family, 'allowed-length-boltzmann', fifties, exact, 'allowed-fifties');
   });
 });
+
+describe('allowed-subset: law of the largest part', () => {
+  it('n = 1200, exactly 20 distinct odd parts below 120', () => {
+    const odd = Array.from({ length: 60 }, (_, i) => 2 * i + 1);
+    const family: PartitionFamily = { kind: 'partition', n: 1200, distinct: true, allowed: odd, length: 20 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    let below = 0n;
+    for (let j = 61; j <= 119; j += 2) {
+      const upTo = countPartitions({ ...family, allowed: odd.filter((v) => v <= j) });
+      if (upTo > below) exact.set(j, ratio(upTo - below, total));
+      below = upTo;
+    }
+    run(family, 'allowed-subset', (p) => p.sizes[0], exact, 'subset-largest');
+  });
+});

@@ -146,9 +146,20 @@ function distinctFeasible(values: readonly number[], n: number, kMin: number, kM
   }
   if (kMin === 0 && n === 0) return true;
   if (!possible) return false;
+  // k elements sum to k s_1 modulo g, the gcd of the differences.
+  let g = 0;
+  for (const v of values) g = gcdOf(g, v - values[0]);
+  if (g > 1) {
+    let some = false;
+    for (let k = Math.max(kMin, 1); k <= kMax && !some; k++) some = (((n - k * values[0]) % g) + g) % g === 0;
+    if (!some) return false;
+  }
   // Reachable sums per number of elements, as bit sets over 0..n.
   const words = Math.ceil((n + 1) / 32);
-  if (r * (kMax + 1) * words > workLimit) return undefined;
+  if (r * (kMax + 1) * words > workLimit) {
+    for (let k = Math.max(kMin, 1); k <= kMax; k++) if (greedyWitness(values, n, k)) return true;
+    return undefined;
+  }
   const rows: Uint32Array[] = [];
   for (let k = 0; k <= kMax; k++) rows.push(new Uint32Array(words));
   rows[0][0] = 1;
@@ -170,4 +181,39 @@ function orShifted(target: Uint32Array, source: Uint32Array, shift: number): voi
     if (bitShift !== 0 && j > 0) word |= source[j - 1] >>> (32 - bitShift);
     target[i] |= word;
   }
+}
+
+function gcdOf(a: number, b: number): number {
+  while (b !== 0) [a, b] = [b, a % b];
+  return Math.abs(a);
+}
+
+/**
+ * A k-subset of `values` (ascending) with sum n, found constructively, or false when this does not
+ * find one (which decides nothing): start from the k smallest and raise the largest chosen
+ * element, then the next, each as far as the remaining gap allows (binary search); a member
+ * exists when the gap closes. For lists with small gaps between sizes it lands exactly.
+ */
+function greedyWitness(values: readonly number[], n: number, k: number): boolean {
+  const r = values.length;
+  if (k > r) return false;
+  const chosen = Array.from({ length: k }, (_, i) => i);
+  let sum = 0;
+  for (let i = 0; i < k; i++) sum += values[i];
+  if (sum > n) return false;
+  for (let t = k - 1; t >= 0 && sum < n; t--) {
+    const ceiling = t === k - 1 ? r - 1 : chosen[t + 1] - 1;
+    // Largest q in [chosen[t], ceiling] with sum - values[chosen[t]] + values[q] <= n.
+    let lo = chosen[t];
+    let hi = ceiling;
+    const budget = n - sum + values[chosen[t]];
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (values[mid] <= budget) lo = mid;
+      else hi = mid - 1;
+    }
+    sum += values[lo] - values[chosen[t]];
+    chosen[t] = lo;
+  }
+  return sum === n;
 }

@@ -3,6 +3,7 @@ import type { RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { unrestrictedPartitionSampler } from '../unrestricted.js';
 import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
+import { AllowedSubset } from './allowed-subset.js';
 import { BoxMixture, type MixtureEntry } from './box-mixture.js';
 import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
 import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
@@ -22,6 +23,8 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *   at most K parts >= 1 is a partition in a box (Andrews 1976, ch. 3) after the maps below;
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
  *   union over k of boxes;
+ * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
+ *   (allowed lists, distinct parts, exactly k): the subset design over the list;
  * - "bounded-boltzmann/1+conjugate": no upper bound on the parts, by conjugation (parts <= k);
  * - "<method>+length-filter": the family without its length constraint, keeping the samples that
  *   satisfy it, when that constraint rarely binds (restriction of a uniform law is uniform).
@@ -90,7 +93,18 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
   if (sizes.kind === 'list' && input.feasible === true) {
     const parts = spec.length ?? spec.maxLength!;
     if (sizes.values.length === 1) out.push(samplerCandidate(input, singleSize(sizes.values[0], n)));
-    else if (!distinct) {
+    else if (distinct && spec.length !== undefined && spec.length <= sizes.values.length) {
+      // k-subsets of the list: a table of r x k weighted elementary symmetric functions.
+      const k = spec.length;
+      const v = sizes.values;
+      const cells = v.length * k;
+      const smallest = v.slice(0, k);
+      const largest = v.slice(v.length - k);
+      const edge = [smallest, largest].find((parts) => parts.reduce((a, b) => a + b, 0) === n);
+      // The k smallest or k largest sizes summing to n: the only member (the tilt would diverge).
+      if (edge !== undefined) out.push(samplerCandidate(input, singleMember(edge.slice().reverse())));
+      else if (input.fits(cells, 0)) out.push(samplerCandidate(input, new AllowedSubset(v, n, k), cells));
+    } else if (!distinct) {
       // Proposals grow about linearly with the number of parts (2-D local limit).
       const sampler = new AllowedLengthBoltzmann(sizes.values, n, parts, spec.length === undefined);
       out.push(samplerCandidate(input, sampler, 0, (work) => partsHint((parts * SAMPLE_WORK_CEILING) / work)));
@@ -151,6 +165,17 @@ function singleSize(s: number, n: number): PartitionSampler {
     expectedDistinct: 1,
     expectedWork: 1,
     sample: () => ({ sizes: [s], multiplicities: [n / s] }),
+  };
+}
+
+/** A family with one member, the given distinct parts (largest first). */
+function singleMember(parts: number[]): PartitionSampler {
+  return {
+    method: 'single-member/1',
+    expectedLength: parts.length,
+    expectedDistinct: parts.length,
+    expectedWork: parts.length,
+    sample: () => ({ sizes: parts.slice(), multiplicities: parts.map(() => 1) }),
   };
 }
 
