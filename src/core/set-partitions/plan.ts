@@ -1,0 +1,214 @@
+import { LimitExceededError } from '../errors.js';
+import type { SetPartitionFamily } from '../family.js';
+import { countBitsBound, MAX_COUNT_WORK } from './counts.js';
+import { poissonMode } from './log-poisson.js';
+import { poissonSizesSampler } from './poisson-sizes.js';
+import { poissonUrnsSampler } from './poisson-urns.js';
+import { assertNotEmpty, blockRange, isFree, resolveSetPartitions, type ResolvedSetPartitions } from './resolve.js';
+import type { SetPartitionSampler } from './sampler.js';
+import type { SizeLaw } from './size-law.js';
+import { stamSampler } from './stam.js';
+import { tableSampler } from './table-sampler.js';
+import { tiltForMeanSize, tiltForTotal } from './tilt.js';
+
+/**
+ * The planner for set partitions: lists the exact methods that apply to a family, estimates each
+ * one's cost as setup + NOMINAL_SAMPLES × expected work per sample, and builds the cheapest that
+ * fits the limits. The choice depends on the family only, so sample i stays a function of
+ * (seed, i, family, ALGORITHM_VERSION).
+ *
+ *  - stam/1           every set partition of n (no constraint): Stam's urn mixture, ~2n steps;
+ *  - table/1          any constraints, while the exact counting table is small
+ *                     (<= TABLE_BITS_LIMIT bits, <= MAX_COUNT_WORK word operations to build);
+ *  - poisson-urns/1   any constraints: block sizes as independent truncated Poisson variables,
+ *                     the blocks labelled urns, exact by rejection (cost ~ blocks × trials);
+ *  - poisson-sizes/1  no exact number of blocks: Poisson numbers of blocks of each size
+ *                     (cost ~ allowed sizes × trials).
+ * A family whose cheapest method needs more than SAMPLE_WORK_LIMIT steps per sample is refused
+ * (LimitExceededError naming the limit); so are tables past their limits, when nothing else
+ * applies. Empty families throw EmptyFamilyError, contradictions ContradictoryConstraintError.
+ */
+export const TABLE_BITS_LIMIT = 2 ** 27;
+export const SAMPLE_WORK_LIMIT = 1e8;
+export const NOMINAL_SAMPLES = 100;
+
+export type SetPartitionMethod = 'stam' | 'table' | 'poisson-urns' | 'poisson-sizes';
+
+export interface SetPartitionPlanOptions {
+  /** Force a method by name without version (tests and benchmarks). */
+  readonly method?: SetPartitionMethod;
+}
+
+export interface SetPartitionCandidate {
+  readonly method: string;
+  readonly setupWork: number;
+  readonly sampleWork: number;
+  readonly fits: boolean;
+  readonly build: () => SetPartitionSampler;
+}
+
+export function planSetPartitionSampler(family: SetPartitionFamily, options: SetPartitionPlanOptions = {}): SetPartitionSampler {
+  const candidates = setPartitionCandidates(family);
+  if (options.method !== undefined) {
+    const forced = candidates.find((c) => c.method.split('/')[0] === options.method);
+    if (!forced) throw new RangeError(`method ${options.method} does not apply to this family (applicable: ${candidates.map((c) => c.method).join(', ')})`);
+    return forced.build();
+  }
+  const fitting = candidates.filter((c) => c.fits);
+  if (fitting.length === 0) {
+    const least = candidates.reduce((x, y) => (cost(y) < cost(x) ? y : x));
+    throw new LimitExceededError(
+      `no exact method samples this family within the limits (tables <= ${TABLE_BITS_LIMIT / 8 / 2 ** 20} MiB, <= ${SAMPLE_WORK_LIMIT.toExponential(0)} steps per sample); ` +
+        `the cheapest, ${least.method}, needs about ${least.sampleWork.toExponential(1)} steps per sample. Fewer items, fewer blocks or wider block-size bounds fit`,
+      `work per sample <= ${SAMPLE_WORK_LIMIT.toExponential(0)}`,
+    );
+  }
+  return fitting.reduce((x, y) => (cost(y) < cost(x) ? y : x)).build();
+}
+
+function cost(c: SetPartitionCandidate): number {
+  return c.setupWork + NOMINAL_SAMPLES * c.sampleWork;
+}
+
+/** The applicable methods with their estimated costs (RangeError for contradictions, EmptyFamilyError for empty families). */
+export function setPartitionCandidates(family: SetPartitionFamily): SetPartitionCandidate[] {
+  const resolved = resolveSetPartitions(family);
+  assertNotEmpty(resolved);
+  const { n } = resolved;
+  if (n === 0) {
+    const empty: SetPartitionSampler = { method: 'trivial/1', expectedLength: 0, expectedBlocks: 0, expectedWork: 1, sample: () => ({ rgs: new Int32Array(0), blocks: 0 }) };
+    return [{ method: 'trivial/1', setupWork: 0, sampleWork: 1, fits: true, build: () => empty }];
+  }
+  const out: SetPartitionCandidate[] = [];
+  if (isFree(resolved)) {
+    const work = 2 * n + 20;
+    out.push({ method: 'stam/1', setupWork: 100, sampleWork: work, fits: work <= SAMPLE_WORK_LIMIT, build: () => stamSampler(n) });
+  }
+  out.push(tableCandidate(resolved));
+  if (resolved.fixed) out.push(fixedUrnsCandidate(resolved));
+  else out.push(...freeBoltzmannCandidates(resolved));
+  return out;
+}
+
+function tableCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate {
+  const { n, minSize: a, maxSize: b } = resolved;
+  const { hi } = blockRange(resolved);
+  const anyCount = !resolved.fixed && hi >= Math.floor(n / a);
+  const bits = countBitsBound(resolved);
+  const words = bits / 32 + 1;
+  const width = Math.min(b, n) - a + 1;
+  const cells = anyCount ? n + 1 : (n + 1) * (hi + 1);
+  // Building: the free recurrence costs a Pascal row and `width` products per item; the block
+  // table three products per cell.
+  const setupWork = anyCount ? n * (2 * width + Math.min(b, n) / 2) * words : cells * words * 4;
+  const tableBits = (cells * bits) / 2 + (anyCount ? Math.min(b, n) * n : 0);
+  const blocks = Math.max(1, Math.min(hi, n / Math.max(a, Math.min(b, Math.log(n + 1)))));
+  const sampleWork = 2 * n + blocks * (1 + words) * (1 + Math.min(width, n / blocks));
+  const fits = tableBits <= TABLE_BITS_LIMIT && setupWork <= MAX_COUNT_WORK && sampleWork <= SAMPLE_WORK_LIMIT;
+  return { method: 'table/1', setupWork, sampleWork, fits, build: () => tableSampler(resolved, { cells, bits }) };
+}
+
+/** Estimated share of kept draws when `count` sizes (variance, largest probability pmax) must sum to their mean. */
+function sumAcceptance(variance: number, count: number, pmax: number): number {
+  // Local limit theorem: P(sum of `count` sizes = its mean) ~ 1/sqrt(2π·count·variance).
+  const local = count * variance < 1 ? 1 : 1 / Math.sqrt(2 * Math.PI * count * variance);
+  return Math.min(1, local / pmax);
+}
+
+function fixedUrnsCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate {
+  const { n, kMin: k, minSize: a, maxSize: b } = resolved;
+  // The tilt is solved here (a few table builds), the sampler's setup.
+  const sizes = tiltForMeanSize(n / k, a, b);
+  const { law } = sizes;
+  const acceptance = k === 1 ? law.probability(n) / law.pmax : sumAcceptance(law.variance, k, law.pmax);
+  const trials = 1 / Math.max(acceptance, 1e-300);
+  const sampler = () => poissonUrnsSampler({ n, sizes, blocks: k, expectedTrials: trials, expectedBlocks: k });
+  const sampleWork = trials * (2 + k * (1 + Math.log2(law.pmf.length + 1) / 4)) + 3 * n;
+  return { method: 'poisson-urns/1', setupWork: 50 * law.pmf.length, sampleWork, fits: sampleWork <= SAMPLE_WORK_LIMIT, build: sampler };
+}
+
+/** The standard normal upper tail (Abramowitz & Stegun 7.1.26, |error| < 1.5e-7: for estimates only). */
+function upperTail(z: number): number {
+  if (z < 0) return 1 - upperTail(-z);
+  const t = 1 / (1 + 0.3275911 * (z / Math.SQRT2));
+  const poly = t * (0.254829592 + t * (-0.284496736 + t * (1.421413741 + t * (-1.453152027 + t * 1.061405429))));
+  return 0.5 * poly * Math.exp(-(z * z) / 2);
+}
+
+interface FreeTuning {
+  readonly sizes: SizeLaw;
+  readonly logY: number;
+  /** Expected blocks of the model (the Poisson mean y·G). */
+  readonly mean: number;
+  /** Probability that the block count passes the maxBlocks step. */
+  readonly blockAcceptance: number;
+  /** Variance of the model's size N. */
+  readonly sizeVariance: number;
+}
+
+/**
+ * Parameters of the free Boltzmann model: x with E[size] = n at y = 1; when that model's number
+ * of blocks would often pass maxBlocks = K, x with mean block size n/K and y = K/G(x) instead.
+ */
+function freeTuning(resolved: ResolvedSetPartitions): FreeTuning {
+  const { n, minSize: a, maxSize: b } = resolved;
+  const K = blockRange(resolved).hi;
+  const describe = (sizes: SizeLaw, logY: number) => {
+    const mean = Math.exp(logY + sizes.logBlockGf);
+    const { variance, mean: m } = sizes.law;
+    return { mean, sizeVariance: mean * (variance + m * m), blockSd: Math.sqrt(mean * (variance / (variance + m * m))) };
+  };
+  const free = tiltForTotal(n, a, b);
+  const base = describe(free, 0);
+  if (K >= Math.floor(n / a) || K >= base.mean + 6 * base.blockSd + 1) {
+    return { sizes: free, logY: 0, mean: base.mean, blockAcceptance: 1, sizeVariance: base.sizeVariance };
+  }
+  if (K >= base.mean) {
+    return { sizes: free, logY: 0, mean: base.mean, blockAcceptance: 1 - upperTail((K + 0.5 - base.mean) / Math.max(base.blockSd, 1e-9)), sizeVariance: base.sizeVariance };
+  }
+  const bounded = tiltForMeanSize(n / K, a, b);
+  const logY = Math.min(0, Math.log(K) - bounded.logBlockGf);
+  const tuned = describe(bounded, logY);
+  // Block count given the size ~ Normal(K, sd²); kept with probability y^(K−k) for k <= K:
+  // E = exp(sd²c²/2)·P(Z > sd·c), c = ln(1/y).
+  const sc = tuned.blockSd * -logY;
+  const keep = sc > 30 ? 1 / (sc * Math.sqrt(2 * Math.PI)) : Math.exp((sc * sc) / 2) * upperTail(sc);
+  return { sizes: bounded, logY, mean: tuned.mean, blockAcceptance: Math.min(1, Math.max(keep, 1e-300)), sizeVariance: tuned.sizeVariance };
+}
+
+function freeBoltzmannCandidates(resolved: ResolvedSetPartitions): SetPartitionCandidate[] {
+  const { n, minSize, maxSize } = resolved;
+  const { hi: K } = blockRange(resolved);
+  const tuning = freeTuning(resolved);
+  const { sizes, logY, mean } = tuning;
+  const law = sizes.law;
+  const local = 1 / Math.sqrt(2 * Math.PI * Math.max(tuning.sizeVariance, 1 / (2 * Math.PI)));
+  const nonEmpty = 1 - Math.exp(-mean);
+  const expectedBlocks = Math.min(mean, K);
+  const maxBlocks = K < n ? K : undefined;
+  const setupWork = 50 * law.pmf.length;
+
+  const urnsTrials = 1 / Math.max(Math.min(1, local / law.pmax) * tuning.blockAcceptance * nonEmpty, 1e-300);
+  const urnsWork = urnsTrials * (2 + mean * (1 + Math.log2(law.pmf.length + 1) / 4)) + 3 * n;
+  const urns: SetPartitionCandidate = {
+    method: 'poisson-urns/1',
+    setupWork,
+    sampleWork: urnsWork,
+    fits: urnsWork <= SAMPLE_WORK_LIMIT,
+    build: () => poissonUrnsSampler({ n, sizes, maxBlocks, logY, expectedTrials: urnsTrials, expectedBlocks }),
+  };
+
+  // The most frequent size has mean y·G·pmax blocks; its count's largest probability bounds the acceptance.
+  const top = Math.exp(poissonMode(mean * law.pmax).logPmf);
+  const sizesTrials = 1 / Math.max(Math.min(1, local / top) * tuning.blockAcceptance, 1e-300);
+  const width = law.pmf.length + 2;
+  const sizesWork = sizesTrials * (2 + 2 * width) + 3 * n;
+  const bySize: SetPartitionCandidate = {
+    method: 'poisson-sizes/1',
+    setupWork: setupWork + 20 * width,
+    sampleWork: sizesWork,
+    fits: sizesWork <= SAMPLE_WORK_LIMIT,
+    build: () => poissonSizesSampler({ n, sizes, minSize, maxSize, maxBlocks, logY, expectedTrials: sizesTrials, expectedBlocks }),
+  };
+  return [urns, bySize];
+}
