@@ -150,7 +150,7 @@ interface FreeTuning {
  * Parameters of the free Boltzmann model: x with E[size] = n at y = 1; when that model's number
  * of blocks would often pass maxBlocks = K, x with mean block size n/K and y = K/G(x) instead.
  */
-function freeTuning(resolved: ResolvedSetPartitions): FreeTuning {
+export function freeTuning(resolved: ResolvedSetPartitions): FreeTuning {
   const { n, minSize: a, maxSize: b } = resolved;
   const K = blockRange(resolved).hi;
   const describe = (sizes: SizeLaw, logY: number) => {
