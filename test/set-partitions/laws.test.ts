@@ -53,7 +53,7 @@ describe('exactly k blocks: the size of the block holding item 1 follows C(n−1
   const column = (m: number) => stirlingColumn(m, k - 1)[k - 1];
   const total = stirlingColumn(n, k)[k];
   const law = Array.from({ length: n - k + 2 }, (_, s) => (s === 0 ? 0 : ratio(binomial(n - 1, s - 1) * column(n - s), total)));
-  for (const method of ['poisson-urns', 'table'] as const) {
+  for (const method of ['uniform-maps', 'poisson-urns', 'table'] as const) {
     it(method, () => {
       const sampler = planSetPartitionSampler({ kind: 'set-partition', n, blocks: k }, { method });
       const observed = law.map(() => 0);

@@ -67,7 +67,7 @@ describe('set-partition samplers are uniform (chi-square over enumerated familie
 
   it('every method is reached by some shape above', () => {
     const reached = new Set(SHAPES.flatMap(([, shape]) => setPartitionCandidates({ kind: 'set-partition', ...shape }).map((c) => c.method)));
-    expect([...reached].sort()).toEqual(['poisson-sizes/1', 'poisson-urns/1', 'stam/1', 'table/1']);
+    expect([...reached].sort()).toEqual(['poisson-sizes/1', 'poisson-urns/1', 'stam/1', 'table/1', 'uniform-maps/1']);
   });
 
   it('the y-tuned bound on the number of blocks is exercised by "at most 2 blocks, n = 8" (below the free model\'s mean)', () => {

@@ -1,7 +1,7 @@
 import { LimitExceededError } from '../errors.js';
 import type { SetPartitionFamily } from '../family.js';
 import { countBitsBound, MAX_COUNT_WORK } from './counts.js';
-import { poissonMode } from './log-poisson.js';
+import { logPoissonPmf, poissonMode } from './log-poisson.js';
 import { poissonSizesSampler } from './poisson-sizes.js';
 import { poissonUrnsSampler } from './poisson-urns.js';
 import { assertNotEmpty, blockRange, isFree, resolveSetPartitions, type ResolvedSetPartitions } from './resolve.js';
@@ -10,6 +10,8 @@ import type { SizeLaw } from './size-law.js';
 import { stamSampler } from './stam.js';
 import { tableSampler } from './table-sampler.js';
 import { tiltForMeanSize, tiltForTotal } from './tilt.js';
+import { sizeLaw } from './size-law.js';
+import { uniformMapsSampler } from './uniform-maps.js';
 
 /**
  * The planner for set partitions: lists the exact methods that apply to a family, estimates each
@@ -20,6 +22,8 @@ import { tiltForMeanSize, tiltForTotal } from './tilt.js';
  *  - stam/1           every set partition of n (no constraint): Stam's urn mixture, ~2n steps;
  *  - table/1          any constraints, while the exact counting table is small
  *                     (<= TABLE_BITS_LIMIT bits, <= MAX_COUNT_WORK word operations to build);
+ *  - uniform-maps/1   exactly k blocks: uniform throws into k urns, kept when every urn's size
+ *                     fits (cost ~ n × trials; trials ~ 1 once n >> k·ln k without size bounds);
  *  - poisson-urns/1   any constraints: block sizes as independent truncated Poisson variables,
  *                     the blocks labelled urns, exact by rejection (cost ~ blocks × trials);
  *  - poisson-sizes/1  no exact number of blocks: Poisson numbers of blocks of each size
@@ -32,7 +36,7 @@ export const TABLE_BITS_LIMIT = 2 ** 27;
 export const SAMPLE_WORK_LIMIT = 1e8;
 export const NOMINAL_SAMPLES = 100;
 
-export type SetPartitionMethod = 'stam' | 'table' | 'poisson-urns' | 'poisson-sizes';
+export type SetPartitionMethod = 'stam' | 'table' | 'uniform-maps' | 'poisson-urns' | 'poisson-sizes';
 
 export interface SetPartitionPlanOptions {
   /** Force a method by name without version (tests and benchmarks). */
@@ -85,7 +89,7 @@ export function setPartitionCandidates(family: SetPartitionFamily): SetPartition
     out.push({ method: 'stam/1', setupWork: 100, sampleWork: work, fits: work <= SAMPLE_WORK_LIMIT, build: () => stamSampler(n) });
   }
   out.push(tableCandidate(resolved));
-  if (resolved.fixed) out.push(fixedUrnsCandidate(resolved));
+  if (resolved.fixed) out.push(uniformMapsCandidate(resolved), fixedUrnsCandidate(resolved));
   else out.push(...freeBoltzmannCandidates(resolved));
   return out;
 }
@@ -108,11 +112,37 @@ function tableCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate 
   return { method: 'table/1', setupWork, sampleWork, fits, build: () => tableSampler(resolved, { cells, bits }) };
 }
 
-/** Estimated share of kept draws when `count` sizes (variance, largest probability pmax) must sum to their mean. */
-function sumAcceptance(variance: number, count: number, pmax: number): number {
-  // Local limit theorem: P(sum of `count` sizes = its mean) ~ 1/sqrt(2π·count·variance).
-  const local = count * variance < 1 ? 1 : 1 / Math.sqrt(2 * Math.PI * count * variance);
-  return Math.min(1, local / pmax);
+/**
+ * The density of a sum of `count` sizes (mean m, variance v each) at n, by the local limit
+ * theorem: ~ exp(−(n − count·m)²/(2·count·v)) / sqrt(2π·count·v). For estimates only.
+ */
+function sumDensity(n: number, count: number, m: number, v: number): number {
+  const spread = count * v;
+  if (spread < 0.05) return Math.abs(n - count * m) < 0.5 ? 1 : 0;
+  return Math.min(1, Math.exp(-((n - count * m) ** 2) / (2 * spread)) / Math.sqrt(2 * Math.PI * spread));
+}
+
+/**
+ * Rejection from uniform maps keeps a throw when all k urn sizes are in [a, b]. Urn sizes of a
+ * uniform throw are independent Poisson(n/k) variables conditioned on their sum n, so
+ * P(kept) = q^k · P(sum of k Poisson(n/k) truncated to [a, b] = n) / P(Poisson(n) = n), q the
+ * mass of [a, b] under Poisson(n/k) (estimated with the local limit theorem).
+ */
+function uniformMapsCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate {
+  const { n, kMin: k, minSize: a, maxSize: b } = resolved;
+  const lambda = n / k;
+  const truncated = sizeLaw(Math.log(lambda), a, b);
+  const logQ = truncated.logBlockGf - lambda;
+  const logKept = k * logQ + Math.log(Math.max(sumDensity(n, k, truncated.law.mean, truncated.law.variance), 1e-300)) - logPoissonPmf(n, n);
+  const trials = Math.max(1, Math.exp(-Math.min(0, logKept)));
+  const sampleWork = Math.min(trials, 1e300) * (n + k) + n;
+  return {
+    method: 'uniform-maps/1',
+    setupWork: 20 * truncated.law.pmf.length,
+    sampleWork,
+    fits: k <= 2 ** 31 && sampleWork <= SAMPLE_WORK_LIMIT,
+    build: () => uniformMapsSampler(n, k, a, b, trials),
+  };
 }
 
 function fixedUrnsCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate {
@@ -120,75 +150,63 @@ function fixedUrnsCandidate(resolved: ResolvedSetPartitions): SetPartitionCandid
   // The tilt is solved here (a few table builds), the sampler's setup.
   const sizes = tiltForMeanSize(n / k, a, b);
   const { law } = sizes;
-  const acceptance = k === 1 ? law.probability(n) / law.pmax : sumAcceptance(law.variance, k, law.pmax);
+  const acceptance = k === 1 ? law.probability(n) / law.pmax : Math.min(1, sumDensity(n, k, law.mean, law.variance) / law.pmax);
   const trials = 1 / Math.max(acceptance, 1e-300);
   const sampler = () => poissonUrnsSampler({ n, sizes, blocks: k, expectedTrials: trials, expectedBlocks: k });
   const sampleWork = trials * (2 + k * (1 + Math.log2(law.pmf.length + 1) / 4)) + 3 * n;
   return { method: 'poisson-urns/1', setupWork: 50 * law.pmf.length, sampleWork, fits: sampleWork <= SAMPLE_WORK_LIMIT, build: sampler };
 }
 
-/** The standard normal upper tail (Abramowitz & Stegun 7.1.26, |error| < 1.5e-7: for estimates only). */
-function upperTail(z: number): number {
-  if (z < 0) return 1 - upperTail(-z);
-  const t = 1 / (1 + 0.3275911 * (z / Math.SQRT2));
-  const poly = t * (0.254829592 + t * (-0.284496736 + t * (1.421413741 + t * (-1.453152027 + t * 1.061405429))));
-  return 0.5 * poly * Math.exp(-(z * z) / 2);
-}
-
-interface FreeTuning {
+export interface FreeTuning {
   readonly sizes: SizeLaw;
   readonly logY: number;
   /** Expected blocks of the model (the Poisson mean y·G). */
   readonly mean: number;
-  /** Probability that the block count passes the maxBlocks step. */
-  readonly blockAcceptance: number;
-  /** Variance of the model's size N. */
-  readonly sizeVariance: number;
+  /**
+   * P(the model's size is n, and its k <= K blocks pass the y^(K−k) step): what both
+   * Boltzmann methods keep, before dividing by their own largest probability.
+   */
+  readonly keptMass: number;
 }
 
 /**
  * Parameters of the free Boltzmann model: x with E[size] = n at y = 1; when that model's number
- * of blocks would often pass maxBlocks = K, x with mean block size n/K and y = K/G(x) instead.
+ * of blocks would pass maxBlocks = K, x with mean block size n/K and y = K/G(x) instead (then
+ * k < K is kept with probability y^(K−k), which can be tiny: the family is then mostly k = K).
  */
 export function freeTuning(resolved: ResolvedSetPartitions): FreeTuning {
   const { n, minSize: a, maxSize: b } = resolved;
   const K = blockRange(resolved).hi;
-  const describe = (sizes: SizeLaw, logY: number) => {
-    const mean = Math.exp(logY + sizes.logBlockGf);
-    const { variance, mean: m } = sizes.law;
-    return { mean, sizeVariance: mean * (variance + m * m), blockSd: Math.sqrt(mean * (variance / (variance + m * m))) };
-  };
   const free = tiltForTotal(n, a, b);
-  const base = describe(free, 0);
-  if (K >= Math.floor(n / a) || K >= base.mean + 6 * base.blockSd + 1) {
-    return { sizes: free, logY: 0, mean: base.mean, blockAcceptance: 1, sizeVariance: base.sizeVariance };
+  const freeMean = Math.exp(free.logBlockGf);
+  let sizes = free;
+  let logY = 0;
+  if (K < Math.floor(n / a) && K < freeMean) {
+    sizes = tiltForMeanSize(n / K, a, b);
+    logY = Math.min(0, Math.log(K) - sizes.logBlockGf);
   }
-  if (K >= base.mean) {
-    return { sizes: free, logY: 0, mean: base.mean, blockAcceptance: 1 - upperTail((K + 0.5 - base.mean) / Math.max(base.blockSd, 1e-9)), sizeVariance: base.sizeVariance };
+  const mean = Math.exp(logY + sizes.logBlockGf);
+  // Sum over the likely numbers of blocks k ~ Poisson(mean): P(k)·P(sum of k sizes = n)·y^(K−k).
+  const { mean: m, variance: v } = sizes.law;
+  const spread = 12 * Math.sqrt(mean) + 12;
+  let keptMass = 0;
+  for (let k = Math.max(1, Math.floor(mean - spread)); k <= Math.min(K, Math.ceil(mean + spread)); k++) {
+    keptMass += Math.exp(logPoissonPmf(k, mean) + logY * (K - k)) * sumDensity(n, k, m, v);
   }
-  const bounded = tiltForMeanSize(n / K, a, b);
-  const logY = Math.min(0, Math.log(K) - bounded.logBlockGf);
-  const tuned = describe(bounded, logY);
-  // Block count given the size ~ Normal(K, sd²); kept with probability y^(K−k) for k <= K:
-  // E = exp(sd²c²/2)·P(Z > sd·c), c = ln(1/y).
-  const sc = tuned.blockSd * -logY;
-  const keep = sc > 30 ? 1 / (sc * Math.sqrt(2 * Math.PI)) : Math.exp((sc * sc) / 2) * upperTail(sc);
-  return { sizes: bounded, logY, mean: tuned.mean, blockAcceptance: Math.min(1, Math.max(keep, 1e-300)), sizeVariance: tuned.sizeVariance };
+  return { sizes, logY, mean, keptMass: Math.max(keptMass, 1e-300) };
 }
 
 function freeBoltzmannCandidates(resolved: ResolvedSetPartitions): SetPartitionCandidate[] {
   const { n, minSize, maxSize } = resolved;
   const { hi: K } = blockRange(resolved);
   const tuning = freeTuning(resolved);
-  const { sizes, logY, mean } = tuning;
+  const { sizes, logY, mean, keptMass } = tuning;
   const law = sizes.law;
-  const local = 1 / Math.sqrt(2 * Math.PI * Math.max(tuning.sizeVariance, 1 / (2 * Math.PI)));
-  const nonEmpty = 1 - Math.exp(-mean);
   const expectedBlocks = Math.min(mean, K);
   const maxBlocks = K < n ? K : undefined;
   const setupWork = 50 * law.pmf.length;
 
-  const urnsTrials = 1 / Math.max(Math.min(1, local / law.pmax) * tuning.blockAcceptance * nonEmpty, 1e-300);
+  const urnsTrials = Math.max(1, law.pmax / keptMass);
   const urnsWork = urnsTrials * (2 + mean * (1 + Math.log2(law.pmf.length + 1) / 4)) + 3 * n;
   const urns: SetPartitionCandidate = {
     method: 'poisson-urns/1',
@@ -200,7 +218,7 @@ function freeBoltzmannCandidates(resolved: ResolvedSetPartitions): SetPartitionC
 
   // The most frequent size has mean y·G·pmax blocks; its count's largest probability bounds the acceptance.
   const top = Math.exp(poissonMode(mean * law.pmax).logPmf);
-  const sizesTrials = 1 / Math.max(Math.min(1, local / top) * tuning.blockAcceptance, 1e-300);
+  const sizesTrials = Math.max(1, top / keptMass);
   const width = law.pmf.length + 2;
   const sizesWork = sizesTrials * (2 + 2 * width) + 3 * n;
   const bySize: SetPartitionCandidate = {
