@@ -3,6 +3,7 @@ import { planSetPartitionSampler } from '../../src/core/set-partitions/plan.js';
 import type { SetPartition } from '../../src/core/set-partitions/set-partition.js';
 import { SampleStreams } from '../../src/core/seeding.js';
 import { setPartitionAsRgs } from '../../src/http/set-partition-encode.js';
+import { assignByShuffle, assignSequentially } from '../../src/core/set-partitions/urns.js';
 
 /**
  * Milliseconds per set partition, after planning, beside the output-size floor: the time
@@ -71,6 +72,25 @@ export async function benchSetPartitions(): Promise<void> {
   });
   out.push('');
   out.push(`encoder, RGS of 10^6 items as JSON: ASCII bytes ${bytes.toFixed(1)} ms, string concatenation ${concat.toFixed(1)} ms (${(concat / bytes).toFixed(1)}x)`);
+  // The two ways urns.ts spreads n items over urns of given sizes, in interleaved rounds (median ratio).
+  for (const urns of [10, 1000, 100_000]) {
+    const n = 1e6;
+    const sizes = new Int32Array(urns).fill(Math.floor(n / urns));
+    sizes[0] += n - sizes.reduce((a, b) => a + b, 0);
+    const ratios: number[] = [];
+    let seq = 0;
+    let shuffle = 0;
+    for (let round = 0; round < 5; round++) {
+      const source = new SampleStreams('assign').source('bench', round);
+      const a = timeRow(() => assignSequentially(source, n, sizes, urns), 100);
+      const b = timeRow(() => assignByShuffle(source, n, sizes, urns), 100);
+      seq += a;
+      shuffle += b;
+      ratios.push(b / a);
+    }
+    ratios.sort((x, y) => x - y);
+    out.push(`assign 10^6 items to ${urns} urns: sequential (Fenwick) ${(seq / 5).toFixed(1)} ms, shuffle ${(shuffle / 5).toFixed(1)} ms, shuffle/sequential median ${ratios[2].toFixed(2)}`);
+  }
   console.log(out.join('\n'));
 }
 

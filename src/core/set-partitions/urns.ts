@@ -21,12 +21,25 @@ export function throwIntoUrns(source: RandomSource, n: number, urns: number): Se
 }
 
 /**
- * The items 1..n split into blocks of the given sizes uniformly at random: the urn labels,
- * each repeated as often as its size, in a uniformly random order (Fisher–Yates; Knuth TAOCP
- * vol. 2, §3.4.2, Algorithm P). Every assignment of items to labelled urns with these sizes
- * is equally likely, so every set partition with this multiset of block sizes is too.
+ * The items 1..n split into blocks of the given sizes uniformly at random: item after item goes
+ * to urn j with probability (room left in j) / (items left), i.e. the urn labels, each repeated
+ * as often as its size, in a uniformly random order (sequential sampling without replacement;
+ * Devroye 1986, §XI.1). Every assignment of items to labelled urns with these sizes is equally
+ * likely, so every set partition with this multiset of block sizes is too.
+ *
+ * Two ways to draw that order, by the number of urns k (measured at n = 10^6 on this machine):
+ * up to SEQUENTIAL_UP_TO urns, the urn of each item is found in a Fenwick tree of the room left
+ * (Fenwick 1994; O(log k) in a k-entry table, labels written in order): about 2x faster than a
+ * shuffle for k = 10; for more urns the tree's depth costs more than it saves, and the labels
+ * are shuffled instead (Fisher–Yates; Knuth TAOCP vol. 2, §3.4.2, Algorithm P) — the same law.
  */
 export function assignSizes(source: RandomSource, n: number, sizes: ArrayLike<number>, count = sizes.length): SetPartition {
+  return count <= SEQUENTIAL_UP_TO ? assignSequentially(source, n, sizes, count) : assignByShuffle(source, n, sizes, count);
+}
+
+const SEQUENTIAL_UP_TO = 4096;
+
+export function assignByShuffle(source: RandomSource, n: number, sizes: ArrayLike<number>, count: number): SetPartition {
   const labels = new Int32Array(n);
   let at = 0;
   for (let urn = 0; urn < count; urn++) {
@@ -45,4 +58,42 @@ export function assignSizes(source: RandomSource, n: number, sizes: ArrayLike<nu
     labels[j] = swap;
   }
   return relabelInPlace(labels, Math.max(count, 1));
+}
+
+export function assignSequentially(source: RandomSource, n: number, sizes: ArrayLike<number>, count: number): SetPartition {
+  const k = count;
+  const tree = new Int32Array(k + 1);
+  let total = 0;
+  for (let j = 0; j < k; j++) {
+    tree[j + 1] = sizes[j];
+    total += sizes[j];
+  }
+  if (total !== n) throw new Error(`block sizes sum to ${total}, not ${n} (bug)`);
+  // Fenwick tree: tree[j] holds the sum over the range (j − lowbit(j), j].
+  for (let j = 1; j <= k; j++) {
+    const parent = j + (j & -j);
+    if (parent <= k) tree[parent] += tree[j];
+  }
+  let top = 1;
+  while (top * 2 <= k) top *= 2;
+  const labels = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const left = n - i;
+    const limit = 2 ** 32 - (2 ** 32 % left);
+    let word = source.nextUint32();
+    while (word >= limit) word = source.nextUint32();
+    let u = word % left;
+    // The smallest urn whose cumulative room exceeds u.
+    let at = 0;
+    for (let step = top; step > 0; step >>= 1) {
+      const next = at + step;
+      if (next <= k && tree[next] <= u) {
+        at = next;
+        u -= tree[next];
+      }
+    }
+    labels[i] = at;
+    for (let j = at + 1; j <= k; j += j & -j) tree[j]--;
+  }
+  return relabelInPlace(labels, Math.max(k, 1));
 }
