@@ -26,7 +26,8 @@ import { logBellNumber } from './stam-law.js';
  * Limits, checked from estimates before computing (the same budgets as the composition counts):
  * the count has at most MAX_COUNT_BITS bits (~315,000 decimal digits), the computation takes at
  * most MAX_COUNT_WORK word operations (~0.5 s), and tables hold at most MAX_TABLE_BITS bits.
- * With them, B_n is exact up to n ≈ 2000, S(n, 10) up to n ≈ 90,000, S(n, 1000) up to n ≈ 6000.
+ * With them (planner estimates): B_n up to n ≈ 1750, S(n, 10) up to n ≈ 315,000 (the digits
+ * limit), S(n, 100) up to ≈ 41,000, S(n, 1000) up to ≈ 6500, no singletons up to n ≈ 930.
  */
 export const MAX_COUNT_BITS = 2 ** 20;
 export const MAX_COUNT_WORK = 4e8;
