@@ -12,7 +12,8 @@ import {
   stirlingColumn,
 } from '../../src/core/set-partitions/counts.js';
 import { logBellNumber, stamLaw } from '../../src/core/set-partitions/stam-law.js';
-import { enumerateSetPartitions, type SetPartitionConstraints } from '../support/enumerate-set-partitions.js';
+import { enumerateSetPartitions } from '../support/enumerate-set-partitions.js';
+import { CONSTRAINT_SHAPES } from './support.js';
 
 /** mathjs (test-only) with BigNumbers wide enough for B_50 (48 digits) and S(30, k). */
 const math = create(all, { number: 'BigNumber', precision: 120 });
@@ -128,22 +129,8 @@ describe('bounded block sizes', () => {
   });
 
   it('every constraint shape agrees with brute-force enumeration (n <= 9)', () => {
-    const shapes: Omit<SetPartitionConstraints, 'n'>[] = [
-      {},
-      { blocks: 3 },
-      { maxBlocks: 2 },
-      { minBlockSize: 2 },
-      { maxBlockSize: 2 },
-      { minBlockSize: 2, maxBlockSize: 3 },
-      { blocks: 3, minBlockSize: 2 },
-      { blocks: 4, maxBlockSize: 3 },
-      { blocks: 2, minBlockSize: 2, maxBlockSize: 5 },
-      { maxBlocks: 3, minBlockSize: 2, maxBlockSize: 4 },
-      { maxBlocks: 4, maxBlockSize: 2 },
-      { minBlockSize: 3 },
-    ];
     for (let n = 0; n <= 9; n++) {
-      for (const shape of shapes) {
+      for (const shape of CONSTRAINT_SHAPES) {
         const c = { n, ...shape };
         if (c.blocks !== undefined && c.blocks > n) continue;
         const expected = BigInt(enumerateSetPartitions(c).length);

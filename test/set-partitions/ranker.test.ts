@@ -4,22 +4,12 @@ import type { SetPartitionFamily } from '../../src/core/family.js';
 import { countSetPartitions } from '../../src/core/set-partitions/counts.js';
 import { NotAMemberError, setPartitionRanker } from '../../src/core/set-partitions/ranker.js';
 import { enumerateSetPartitions } from '../support/enumerate-set-partitions.js';
+import { CONSTRAINT_SHAPES } from './support.js';
 
 /** The brute-force enumeration visits restricted growth strings in lexicographic order. */
-const SHAPES: Omit<SetPartitionFamily, 'kind' | 'n'>[] = [
-  {},
-  { blocks: 3 },
-  { maxBlocks: 2 },
-  { minBlockSize: 2 },
-  { maxBlockSize: 2 },
-  { minBlockSize: 2, maxBlockSize: 3 },
-  { blocks: 3, minBlockSize: 2 },
-  { maxBlocks: 3, maxBlockSize: 3 },
-  { blocks: 2, minBlockSize: 2, maxBlockSize: 4 },
-];
 
 describe('set partitions in restricted-growth-string order', () => {
-  for (const shape of SHAPES) {
+  for (const shape of CONSTRAINT_SHAPES) {
     it(`rank, unrank and list agree with the enumeration: ${JSON.stringify(shape)}, n <= 8`, () => {
       for (let n = 0; n <= 8; n++) {
         if (shape.blocks !== undefined && shape.blocks > n) continue;

@@ -23,3 +23,19 @@ export function ratio(a: bigint, b: bigint): number {
   const shift = Math.max(0, b.toString(2).length - 60);
   return Number(a >> BigInt(shift)) / Number(b >> BigInt(shift));
 }
+
+/** Every constraint shape, alone and combined, for the brute-force comparisons (counts, ranks). */
+export const CONSTRAINT_SHAPES: { blocks?: number; maxBlocks?: number; minBlockSize?: number; maxBlockSize?: number }[] = [
+  {},
+  { blocks: 3 },
+  { maxBlocks: 2 },
+  { minBlockSize: 2 },
+  { maxBlockSize: 2 },
+  { minBlockSize: 2, maxBlockSize: 3 },
+  { blocks: 3, minBlockSize: 2 },
+  { blocks: 4, maxBlockSize: 3 },
+  { blocks: 2, minBlockSize: 2, maxBlockSize: 5 },
+  { maxBlocks: 3, minBlockSize: 2, maxBlockSize: 4 },
+  { maxBlocks: 4, maxBlockSize: 2 },
+  { minBlockSize: 3 },
+];
