@@ -6,6 +6,7 @@ import { sizeLaw } from '../../src/core/set-partitions/size-law.js';
 import { tiltForMeanSize, tiltForTotal } from '../../src/core/set-partitions/tilt.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { binnedChiSquare } from '../../src/core/pictures/statistics.js';
+import { fillUniformUrns } from '../../src/core/set-partitions/urns.js';
 
 /** ln of a positive BigInt to double precision: its top 53 bits, shifted. */
 function lnBig(x: bigint): number {
@@ -84,4 +85,25 @@ describe('block size laws and their tuning', () => {
     expect(Math.log(law.pmf[0] / law.pmax)).toBeGreaterThan(-46);
     expect(law.lo).toBeGreaterThan(1);
   });
+});
+
+describe('uniform urns (multiply-and-shift up to 2^21 urns, modulo above)', () => {
+  for (const urns of [3, 7, 1000, 2 ** 21, 2 ** 21 + 3]) {
+    it(`${urns} urns: chi-square against the uniform law (alpha = 1e-4)`, () => {
+      const cells = Math.min(urns, 1000);
+      const labels = new Int32Array(200_000);
+      fillUniformUrns(sampleSource('urns', 0, `u-${urns}`), labels, urns);
+      // More than 1000 urns are folded into 1000 cells, each with its exact probability.
+      const observed = new Array<number>(cells).fill(0);
+      const probabilities = new Array<number>(cells).fill(0);
+      for (let u = 0; u < urns; u++) probabilities[Math.floor((u * cells) / urns)] += 1 / urns;
+      let outside = 0;
+      for (const label of labels) {
+        if (label < 0 || label >= urns) outside++;
+        else observed[Math.floor((label * cells) / urns)]++;
+      }
+      expect(outside).toBe(0);
+      expect(binnedChiSquare(observed, probabilities).pValue).toBeGreaterThan(1e-4);
+    });
+  }
 });

@@ -1,6 +1,7 @@
 import type { RandomSource } from '../random.js';
 import type { SetPartitionSampler } from './sampler.js';
 import { relabelInPlace, type SetPartition } from './set-partition.js';
+import { fillUniformUrns } from './urns.js';
 
 /**
  * Exactly k blocks by rejection from uniform maps: throw the n items into k labelled urns
@@ -12,7 +13,6 @@ import { relabelInPlace, type SetPartition } from './set-partition.js';
  * and then this is the cheapest exact method — n uniform words and a pass to number blocks.
  */
 export function uniformMapsSampler(n: number, k: number, minSize: number, maxSize: number, expectedTrials: number): SetPartitionSampler {
-  const limit = 2 ** 32 - (2 ** 32 % k);
   return {
     method: 'uniform-maps/1',
     expectedLength: n,
@@ -22,13 +22,8 @@ export function uniformMapsSampler(n: number, k: number, minSize: number, maxSiz
       const labels = new Int32Array(n);
       const sizes = new Int32Array(k);
       for (;;) {
-        for (let i = 0; i < n; i++) {
-          let word = source.nextUint32();
-          while (word >= limit) word = source.nextUint32();
-          const urn = word % k;
-          labels[i] = urn;
-          sizes[urn]++;
-        }
+        fillUniformUrns(source, labels, k);
+        for (let i = 0; i < n; i++) sizes[labels[i]]++;
         let ok = true;
         for (let j = 0; j < k; j++) {
           if (sizes[j] < minSize || sizes[j] > maxSize) ok = false;
