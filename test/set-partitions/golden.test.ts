@@ -18,7 +18,7 @@ const GOLDEN: [Omit<SetPartitionFamily, 'kind'>, string, string[]][] = [
   [{"n":1000,"blocks":10}, 'uniform-maps/1', ["10:2173165","10:2253969","10:2285749"]],
   [{"n":3000,"blocks":1000}, 'poisson-urns/1', ["1000:2230235774","1000:2197045535","1000:2261627582"]],
   [{"n":3000,"minBlockSize":2}, 'poisson-sizes/1', ["469:1055873060","464:1035182623","485:1104841525"]],
-  [{"n":3000,"maxBlocks":5}, 'poisson-urns/1', ["5:9080470","5:8957993","5:9018897"]],
+  [{"n":3000,"maxBlocks":5}, 'poisson-urns/1', ["5:8989473","5:9058544","5:9148938"]],
 ];
 
 describe('set-partition samples are stable for a seed (algorithm version 2)', () => {
