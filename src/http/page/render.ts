@@ -238,20 +238,28 @@ function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
   <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}</figcaption>
 </figure></li>`;
   });
-  const permalink = permalinkOf(form, drawn.seed);
   return html`<section class="card" aria-labelledby="samples-title">
   <h2 id="samples-title">${query.count === 1 ? `One ${noun}` : `${query.count} ${noun}s`} of ${query.n}</h2>
-  <p class="summary">
-    <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
-    <span class="pill">method <code>${drawn.method}</code></span>
-    <a href="${permalink}">Permalink</a>
-  </p>
+  ${samplesSummary(form, drawn)}
   <ul class="diagrams" aria-label="${partitions ? 'Ferrers diagrams' : 'Bargraphs'}, one per sample">${figures}</ul>
-  ${query.count > drawn.samples.length ? html`<p class="note">The first ${drawn.samples.length} of ${query.count} samples are drawn; the snippets below fetch them all.</p>` : null}
+  ${shownNote(query.count, drawn.samples.length)}
   ${partitions
     ? html`<p class="note">One row per part, largest first; the highlighted square is the Durfee square. Each diagram links to its SVG.</p>`
     : html`<p class="note">One column per part, in the composition's order, the part's size written below it; neighbouring parts alternate colours. A part 0 is a mark on the baseline.</p>`}
 </section>`;
+}
+
+/** Seed, method and permalink of the samples shown. */
+function samplesSummary(form: FormState, drawn: Drawn): Html {
+  return html`<p class="summary">
+    <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
+    <span class="pill">method <code>${drawn.method}</code></span>
+    <a href="${permalinkOf(form, drawn.seed)}">Permalink</a>
+  </p>`;
+}
+
+function shownNote(count: number, shown: number): Html | null {
+  return count > shown ? html`<p class="note">The first ${shown} of ${count} samples are drawn; the snippets below fetch them all.</p>` : null;
 }
 
 /** The permalink of the page's current request, with the seed the samples used. */
@@ -275,13 +283,9 @@ function setPartitionsSection(form: FormState, drawn: Drawn, samples: number[][]
   });
   return html`<section class="card" aria-labelledby="samples-title">
   <h2 id="samples-title">${query.count === 1 ? 'One set partition' : `${query.count} set partitions`} of ${query.n} items</h2>
-  <p class="summary">
-    <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
-    <span class="pill">method <code>${drawn.method}</code></span>
-    <a href="${permalinkOf(form, drawn.seed)}">Permalink</a>
-  </p>
+  ${samplesSummary(form, drawn)}
   <ul class="diagrams" aria-label="Set partitions, one drawing per sample">${figures}</ul>
-  ${query.count > samples.length ? html`<p class="note">The first ${samples.length} of ${query.count} samples are drawn; the snippets below fetch them all.</p>` : null}
+  ${shownNote(query.count, samples.length)}
   <p class="note">One row per block (group), its items in increasing order; blocks from top to bottom by their smallest item, the numbering of the restricted growth string (as=rgs).</p>
 </section>`;
 }
