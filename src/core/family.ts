@@ -3,8 +3,9 @@ export const MAX_N = 1_000_000_000;
 
 /**
  * The families partsmith samples from. A family is a plain, normalised description of a set of
- * partitions or compositions of n, or of set partitions of n items; its canonical key seeds the random streams, so two requests
- * for the same family (however their parameters were spelled) get the same samples.
+ * partitions or compositions of n, or of set partitions of n items; its canonical key seeds the
+ * random streams, so two requests for the same family (however their parameters were spelled)
+ * get the same samples.
  */
 export interface PartitionFamily {
   readonly kind: 'partition';
