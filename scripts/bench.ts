@@ -1,16 +1,18 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, http) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
 import { benchHttp } from './bench/http.js';
+import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
   unrestricted: benchUnrestricted,
   constrained: benchConstrained,
   compositions: benchCompositions,
+  'set-partitions': benchSetPartitions,
   http: benchHttp,
 };
 

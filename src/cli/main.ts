@@ -19,16 +19,22 @@ const CLI_SWITCHES = new Set(['quiet']);
 const COMMANDS: Record<string, { path: string; usage: string }> = {
   partitions: { path: '/v1/partitions', usage: 'partsmith partitions --n 100 --count 5 --seed demo [--distinct --max-part 10 ...] [--format text|json|ndjson] [--out FILE]' },
   compositions: { path: '/v1/compositions', usage: 'partsmith compositions --n 10 --count 5 --seed demo [--length 3 ...] [--format text|json|ndjson] [--out FILE]' },
+  'set-partitions': { path: '/v1/set-partitions', usage: 'partsmith set-partitions --n 10 --count 5 --seed demo [--blocks 3 --min-block-size 2 ...] [--as blocks|rgs] [--format text|json|ndjson] [--out FILE]' },
   'count partitions': { path: '/v1/partitions/count', usage: 'partsmith count [partitions] --n 100 [--distinct ...]' },
   'count compositions': { path: '/v1/compositions/count', usage: 'partsmith count compositions --n 10 [--length 3 ...]' },
+  'count set-partitions': { path: '/v1/set-partitions/count', usage: 'partsmith count set-partitions --n 10 [--blocks 3 ...]' },
 };
 
-const OVERVIEW = `partsmith ${APP_VERSION}: exactly uniform random integer partitions and compositions of n, reproducible from a seed.
+/** The kinds `partsmith count` takes (partitions when none is given). */
+const COUNT_KINDS = ['partitions', 'compositions', 'set-partitions'];
+
+const OVERVIEW = `partsmith ${APP_VERSION}: exactly uniform random integer partitions and compositions of n, and set partitions of n items, reproducible from a seed.
 
 Commands:
   partsmith partitions ...      uniformly random partitions of n
   partsmith compositions ...    uniformly random compositions of n
-  partsmith count [partitions|compositions] ...   the exact number of members of a family
+  partsmith set-partitions ...  uniformly random set partitions of the items 1..n
+  partsmith count [partitions|compositions|set-partitions] ...   the exact number of members of a family
   partsmith serve [--port 8787] [--host 127.0.0.1]   run the HTTP service
 
 Every command takes --help. Flags are the API's query parameters in kebab case (maxPart is
@@ -78,13 +84,13 @@ export async function runCli(argv: readonly string[], io: CliIo = { stdout: proc
     let key = command;
     let rest = argv.slice(argv.indexOf(command) + 1);
     if (command === 'count') {
-      const kind = rest[0] === 'partitions' || rest[0] === 'compositions' ? rest[0] : 'partitions';
+      const kind = COUNT_KINDS.includes(rest[0]) ? rest[0] : 'partitions';
       if (rest[0] === kind) rest = rest.slice(1);
       key = `count ${kind}`;
     }
     label = `partsmith ${key === 'count partitions' && command === 'count' && !argv.includes('partitions') ? 'count' : key}`;
     const entry = COMMANDS[key];
-    if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, count, serve (see partsmith --help)`);
+    if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, set-partitions, count, serve (see partsmith --help)`);
 
     const specs = endpointSpecs((await (await createPartsmith().fetch('/openapi.json')).json()) as Record<string, unknown>);
     const spec = specs.get(entry.path);

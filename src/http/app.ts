@@ -14,6 +14,7 @@ import { checkEndpoint } from './routes/check.js';
 import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { PAGE_PATHS, registerPage } from './routes/page.js';
+import { setPartitionsCountEndpoint, setPartitionsEndpoint } from './routes/set-partitions.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -43,6 +44,7 @@ export function createApp(options: AppOptions = {}): Hono {
     drawSeed: options.drawSeed ?? drawRandomSeed,
     partitionSamplers: new LruCache(64),
     compositionSamplers: new LruCache(64),
+    setPartitionSamplers: new LruCache(64),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(
@@ -53,6 +55,8 @@ export function createApp(options: AppOptions = {}): Hono {
     compositionsEndpoint as unknown as Endpoint,
     compositionsCountEndpoint as unknown as Endpoint,
     compositionCheckEndpoint as unknown as Endpoint,
+    setPartitionsEndpoint as unknown as Endpoint,
+    setPartitionsCountEndpoint as unknown as Endpoint,
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
@@ -95,7 +99,7 @@ export function createApp(options: AppOptions = {}): Hono {
 }
 
 /** Parameters that define a family (as opposed to how many samples and in which form). */
-const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
 
 /**
  * An empty family or contradictory bounds (a core RangeError that is not about a limit) is
@@ -107,7 +111,7 @@ function familyProblem(error: unknown, query: Record<string, unknown>): unknown 
   return new ProblemError(
     422,
     error.message,
-    given.map((param) => ({ param, message: 'together with the other family parameters, describes no partition or composition (see detail)' })),
+    given.map((param) => ({ param, message: 'together with the other family parameters, describes no member (see detail)' })),
   );
 }
 

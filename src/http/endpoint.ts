@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
+import type { SetPartitionSampler } from '../core/set-partitions/sampler.js';
 import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
@@ -14,6 +15,8 @@ export interface AppContext {
   readonly partitionSamplers: LruCache<PlannedFamily<PartitionSampler>>;
   /** Planned composition samplers (with their families' streams) by family key. */
   readonly compositionSamplers: LruCache<PlannedFamily<CompositionSampler>>;
+  /** Planned set-partition samplers (with their families' streams) by family key. */
+  readonly setPartitionSamplers: LruCache<PlannedFamily<SetPartitionSampler>>;
 }
 
 /** What is prepared once per family and reused by every request for it. */

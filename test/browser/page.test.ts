@@ -150,6 +150,40 @@ describe.skipIf(!available)('the page in headless chromium', () => {
     await context.close();
   });
 
+  it('draws set partitions: one tray per block, one disc per item, the API\'s samples and the real CLI and client snippets', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchConsole(page);
+    await page.goto(`${base}/`);
+    await page.getByLabel('Family').selectOption('set-partitions');
+    await page.getByLabel('Size n').fill('10');
+    await page.getByLabel('Samples', { exact: true }).fill('4');
+    await page.getByLabel('Seed').fill('browser-sp');
+    await page.locator('details.constraints summary').click();
+    await page.getByLabel('Smallest block ≥').fill('2');
+    await page.getByRole('button', { name: 'Draw' }).click();
+    await page.waitForURL(/family=set-partitions/);
+    const json = JSON.parse((await page.locator('#json-body').textContent()) ?? '');
+    expect(json.family).toEqual({ kind: 'set-partition', n: 10, minBlockSize: 2 });
+    const api = await (await fetch(`${base}/v1/set-partitions?n=10&count=4&seed=browser-sp&minBlockSize=2`)).json();
+    expect(json.samples).toEqual(api.samples);
+    const figures = page.locator('.diagrams figure');
+    await expect(figures.count()).resolves.toBe(4);
+    for (let i = 0; i < 4; i++) {
+      await expect(figures.nth(i).locator('svg circle').count()).resolves.toBe(10);
+      await expect(figures.nth(i).locator('svg rect.block').count()).resolves.toBe(api.samples[i].length);
+    }
+    await expect(page.locator('#samples-title').textContent()).resolves.toBe('4 set partitions of 10 items');
+    await expect(page.locator('#snippet-cli').textContent()).resolves.toBe('partsmith set-partitions --n 10 --count 4 --min-block-size 2 --seed browser-sp');
+    await expect(page.locator('#snippet-client').textContent()).resolves.toContain(`await client.setPartitions({ n: 10, count: 4, minBlockSize: 2, seed: 'browser-sp' })`);
+    await page.screenshot({ path: join(ARTIFACTS, 'page-set-partitions.png'), fullPage: true });
+    // A set-partition constraint on partitions is reported, not ignored.
+    await page.goto(`${base}/?family=partitions&n=7&count=3&blocks=2`);
+    await expect(page.locator('#blocks-error').textContent()).resolves.toContain('applies to set-partitions only');
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
   it('is readable on a phone and reports form errors next to their fields', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
     const page = await context.newPage();

@@ -34,7 +34,7 @@ const NUMBER_LIKE = [
 ];
 
 const WORDS = [
-  'json', 'ndjson', 'text', 'JSON', 'xml', 'parts', 'multiplicities', 'true', 'false', 'TRUE', 'yes', 'no', '1', '0',
+  'json', 'ndjson', 'text', 'JSON', 'xml', 'parts', 'multiplicities', 'blocks', 'rgs', 'true', 'false', 'TRUE', 'yes', 'no', '1', '0',
   'demo', 'a', 'seed-with.ok_chars~:', 'x'.repeat(64), 'y'.repeat(65), 'white space', 'é', '😀', '\u0000', '\u202e',
   '<script>alert(1)</script>', '"quoted"', "'; DROP TABLE", '../../etc/passwd', '%', '%%', '%zz', '%E0%A4%A', '%00',
   '%FF', '%ED%A0%80', '%C0%AF', '%2e%2e%2f', '%u0041', '&', '=', '==', '+', '#frag',
@@ -69,7 +69,7 @@ function randomValue(rng: Rng, key: string): string {
   if (r < 0.1) return Array.from({ length: 1 + below(rng, 1200) }, () => String(1 + below(rng, 50))).join(',');
   if (r < 0.3) return pick(rng, WORDS);
   if (r < 0.35) return pick(rng, LISTS);
-  if (key === 'n' || key === 'count' || key === 'start' || key.endsWith('Part') || key.endsWith('ength')) {
+  if (key === 'n' || key === 'count' || key === 'start' || key.endsWith('Part') || key.endsWith('ength') || key.endsWith('locks') || key.endsWith('BlockSize')) {
     // Mostly small, plausible values so that a good share of requests succeed and get checked.
     if (r < 0.8) return String(below(rng, r < 0.7 ? 30 : 400));
   }
