@@ -15,7 +15,7 @@ import { runPartitionCheck, type PartitionCheck } from '../routes/check.js';
 import { runCompositionCheck, type CompositionCheck } from '../routes/composition-check.js';
 import { compositionFamilyOf } from '../routes/compositions.js';
 import { partitionFamilyOf } from '../routes/partitions.js';
-import type { PartitionsQuery } from '../schemas/partitions.js';
+import type { PartitionsQuery } from '../../schemas/partitions.js';
 import { compositionCheckSection, isUnrestricted } from './composition-check.js';
 import { PAGE_FAMILIES, PAGE_MAX_SHOWN, queryString, type FieldName, type FormState } from './form.js';
 import { html, trusted, type Html } from './html.js';

@@ -4,7 +4,7 @@ import { SampleStreams } from '../../core/seeding.js';
 import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
-import { compositionsCountQuery, compositionsQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
+import { compositionsCountQuery, compositionsQuery, type CompositionsCountQuery } from '../../schemas/compositions.js';
 import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 const COMPOSITIONS_PATH = '/v1/compositions';

@@ -5,7 +5,7 @@ import { SampleStreams } from '../../core/seeding.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
-import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
+import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../../schemas/partitions.js';
 import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 /** The family a query describes, normalised (the default minPart = 1 is dropped). */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { COMPOSITION_CHECK_MAX_N } from '../../core/pictures/composition-parts.js';
-import { choiceParam, integerParam, seedParam } from '../params.js';
+import { COMPOSITION_CHECK_MAX_N } from '../core/pictures/composition-parts.js';
+import { choiceParam, integerParam, seedParam } from './params.js';
 import { MAX_CHECK_SAMPLES } from './check.js';
 
 /**
