@@ -11,7 +11,7 @@ import { respondWithJson } from '../respond.js';
 import { checkQuery } from '../../schemas/check.js';
 import { PROBLEM_RESPONSES } from './docs.js';
 import { respondWithBody, SVG_CONTENT_TYPE } from './diagram.js';
-import { partitionFamilyOf } from './partitions.js';
+import { partitionFamilyOf } from '../../library/partitions.js';
 
 const CHECK_PATH = '/v1/partitions/check';
 

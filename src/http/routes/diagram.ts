@@ -10,7 +10,7 @@ import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { diagramQuery } from '../../schemas/diagram.js';
 import { PROBLEM_RESPONSES } from './docs.js';
-import { partitionFamilyOf } from './partitions.js';
+import { partitionFamilyOf } from '../../library/partitions.js';
 
 const DIAGRAM_PATH = '/v1/partitions/diagram';
 
