@@ -1,3 +1,4 @@
+import { LimitExceededError } from '../core/errors.js';
 import { SampleStreams, SEED_PATTERN } from '../core/seeding.js';
 import type { RandomSource } from '../core/random.js';
 import { MAX_INDEX } from '../schemas/bounds.js';
@@ -20,6 +21,8 @@ export interface SampledFamily<Member> {
   readonly method: string;
   /** The exact number of members (0n for an empty family). PartsmithError (422) past the counting limits. */
   readonly count: bigint;
+  /** Whether the family has no member, as the planner decides it (no counting); PartsmithError (422) when it cannot plan for a limit. */
+  readonly empty: boolean;
   /** Sample `index` of `seed`: the same member as sample `index` of the API for this family and seed. */
   sample(seed: string, index?: number): Member;
   /** Samples start, start + 1, ... of `seed` (count of them; without count, until the iterator is dropped). */
@@ -60,6 +63,7 @@ export abstract class FamilyBase<Member, Raw, S extends PlannedSampler<Raw>> imp
   readonly streams: SampleStreams;
   private planned: S | undefined;
   private planError: unknown;
+  private planFoundEmpty = false;
   private counted: bigint | undefined;
   private checkedSeed: string | undefined;
 
@@ -98,8 +102,18 @@ export abstract class FamilyBase<Member, Raw, S extends PlannedSampler<Raw>> imp
       return this.planned;
     } catch (error) {
       // Planning depends on the family only, so a refusal is remembered like a plan.
+      this.planFoundEmpty = error instanceof RangeError && !(error instanceof LimitExceededError);
       this.planError = familyError(error, this.query, this.familyParams, this.samplesPath);
       throw this.planError;
+    }
+  }
+
+  get empty(): boolean {
+    try {
+      return this.sampler === undefined;
+    } catch (error) {
+      if (this.planFoundEmpty) return true;
+      throw error;
     }
   }
 
