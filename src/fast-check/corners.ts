@@ -4,7 +4,7 @@ import type { CompositionFamily, PartitionFamily } from '../core/family.js';
  * Corner members of a family, for the opt-in `edgeCases` of the arbitraries: built from the
  * constraints — one part; all parts equal (the two smallest and two largest sizes dividing n);
  * as many of the smallest size as fit; the largest sizes first (greedy); for a length, parts
- * as equal as possible and one large part with the rest smallest — and kept only when they are
+ * as equal as possible and each part as large as the later ones allow — and kept only when they are
  * members (the caller checks). They are corners in the usual sense (fewest and most parts,
  * largest and smallest largest part, all parts equal), found by construction: for some
  * combinations of constraints the construction misses, and a family may have fewer corners.
@@ -75,9 +75,8 @@ function candidates(shape: Shape): number[][] {
     // k parts as equal as possible (the smallest largest part for k parts)...
     const q = Math.floor(n / k);
     push([...new Array<number>(n % k).fill(q + 1), ...new Array<number>(k - (n % k)).fill(q)]);
-    // ...and one large part, the rest the smallest size (the largest largest part).
-    const rest = shape.distinct ? Array.from({ length: k - 1 }, (_, i) => lo + i) : new Array<number>(k - 1).fill(smallest ?? lo);
-    push([n - rest.reduce((a, b) => a + b, 0), ...rest]);
+    // ...and the parts as large as they can be, first to last (the largest largest part for k parts).
+    push(largestFirstOfLength(shape, k));
   }
   if (shape.distinct) {
     // The staircase lo, lo + 1, ... as long as it fits, the remainder added to its largest part.
@@ -91,6 +90,26 @@ function candidates(shape: Shape): number[][] {
     push(stair);
   }
   return out;
+}
+
+/**
+ * The lexicographically first member with k parts from [lo, hi] (distinct: strictly decreasing):
+ * each part as large as the parts after it still allow. Undefined when there is none.
+ */
+function largestFirstOfLength(shape: Shape, k: number): number[] | undefined {
+  const { lo, hi, distinct } = shape;
+  const out: number[] = [];
+  let rest = shape.n;
+  for (let i = 0; i < k; i++) {
+    const after = k - i - 1;
+    const leastAfter = distinct ? after * lo + (after * (after - 1)) / 2 : after * lo;
+    const previous = i === 0 ? hi : distinct ? out[i - 1] - 1 : out[i - 1];
+    const part = Math.min(hi, previous, rest - leastAfter);
+    if (part < lo) return undefined;
+    out.push(part);
+    rest -= part;
+  }
+  return rest === 0 ? out : undefined;
 }
 
 /** The largest allowed size first, as many times as it fits, then the next (distinct: once each). */
