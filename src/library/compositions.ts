@@ -4,8 +4,8 @@ import type { CompositionSampler } from '../core/sampler.js';
 import type { CompositionsCountParams } from '../client/params.js';
 import { compositionsCountQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
 import { isCompositionMember } from './membership.js';
-import { FamilyBase, pickParams, type SampledFamily } from './sampled-family.js';
-import { parseParam, parseParams } from './validate.js';
+import { LibraryFamily, type FamilyKind } from './sampled-family.js';
+import { parseParams } from './validate.js';
 
 /** The constraints of a composition family: n and the parameters of GET /v1/compositions/count, typed from its schema. */
 export type CompositionConstraints = CompositionsCountParams;
@@ -22,41 +22,25 @@ export function compositionFamilyOf(query: CompositionsCountQuery): CompositionF
   });
 }
 
-const COMPOSITION_PARAMS = ['n', 'minPart', 'maxPart', 'length', 'allowed'] as const;
+/** The compositions of n with given constraints; members are their parts in order. */
+export type Compositions = LibraryFamily<CompositionFamily, number[], CompositionSampler>;
 
-/** The compositions of n with the given constraints; members are their parts in order. */
-export class Compositions extends FamilyBase<number[], number[], CompositionSampler> implements SampledFamily<number[]> {
-  readonly kind = 'composition';
-  declare readonly description: CompositionFamily;
-  protected readonly samplesPath = '/v1/compositions';
-  protected readonly countPath = '/v1/compositions/count';
-  protected readonly familyParams = COMPOSITION_PARAMS;
+const COMPOSITIONS: FamilyKind<CompositionFamily, number[], CompositionSampler> = {
+  kind: 'composition',
+  samplesPath: '/v1/compositions',
+  countPath: '/v1/compositions/count',
+  params: ['n', 'minPart', 'maxPart', 'length', 'allowed'],
+  nField: compositionsCountQuery.shape.n,
+  describe: (query) => compositionFamilyOf(query as CompositionsCountQuery),
+  plan: planCompositionSampler,
+  count: countCompositions,
+  member: (parts) => parts,
+  contains: isCompositionMember,
+};
 
-  /** From a query the count endpoint's schema has accepted, or a sampling endpoint's (only its family fields are kept). The HTTP app's way in; users call compositionFamily. */
-  constructor(query: CompositionsCountQuery) {
-    super(compositionFamilyOf(query), pickParams(query, COMPOSITION_PARAMS));
-  }
-
-  protected plan(): CompositionSampler {
-    return planCompositionSampler(this.description);
-  }
-
-  protected countMembers(): bigint {
-    return countCompositions(this.description);
-  }
-
-  protected member(parts: number[]): number[] {
-    return parts;
-  }
-
-  contains(value: unknown): value is number[] {
-    return isCompositionMember(this.description, value);
-  }
-
-  resize(n: number): Compositions {
-    const size = parseParam(compositionsCountQuery.shape.n, n, 'n', this.countPath);
-    return new Compositions({ ...(this.query as CompositionsCountQuery), n: size });
-  }
+/** The family of a query its schema has accepted (the HTTP app's way in; users call compositionFamily). */
+export function compositionsOf(query: CompositionsCountQuery): Compositions {
+  return new LibraryFamily(COMPOSITIONS, query);
 }
 
 /**
@@ -64,5 +48,5 @@ export class Compositions extends FamilyBase<number[], number[], CompositionSamp
  * /v1/compositions/count (the same rules and messages; PartsmithError when refused).
  */
 export function compositionFamily(constraints: CompositionConstraints): Compositions {
-  return new Compositions(parseParams(compositionsCountQuery, constraints, '/v1/compositions/count'));
+  return compositionsOf(parseParams(compositionsCountQuery, constraints, COMPOSITIONS.countPath));
 }

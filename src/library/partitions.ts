@@ -6,8 +6,8 @@ import type { PartitionSampler } from '../core/sampler.js';
 import type { PartitionsCountParams } from '../client/params.js';
 import { partitionsCountQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
 import { isPartitionMember } from './membership.js';
-import { FamilyBase, pickParams, type SampledFamily } from './sampled-family.js';
-import { parseParam, parseParams } from './validate.js';
+import { LibraryFamily, type FamilyKind } from './sampled-family.js';
+import { parseParams } from './validate.js';
 
 /** The constraints of a partition family: n and the parameters of GET /v1/partitions/count, typed from its schema. */
 export type PartitionConstraints = PartitionsCountParams;
@@ -26,44 +26,25 @@ export function partitionFamilyOf(query: PartitionsCountQuery): PartitionFamily 
   });
 }
 
-const PARTITION_PARAMS = ['n', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+/** The partitions of n with given constraints; members are their parts, largest first (the API's `as=parts`). */
+export type Partitions = LibraryFamily<PartitionFamily, Partition, PartitionSampler>;
 
-/**
- * The partitions of n with the given constraints. Members are written as their parts, largest
- * first (the API's `as=parts`).
- */
-export class Partitions extends FamilyBase<number[], Partition, PartitionSampler> implements SampledFamily<number[]> {
-  readonly kind = 'partition';
-  declare readonly description: PartitionFamily;
-  protected readonly samplesPath = '/v1/partitions';
-  protected readonly countPath = '/v1/partitions/count';
-  protected readonly familyParams = PARTITION_PARAMS;
+const PARTITIONS: FamilyKind<PartitionFamily, Partition, PartitionSampler> = {
+  kind: 'partition',
+  samplesPath: '/v1/partitions',
+  countPath: '/v1/partitions/count',
+  params: ['n', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'],
+  nField: partitionsCountQuery.shape.n,
+  describe: (query) => partitionFamilyOf(query as PartitionsCountQuery),
+  plan: planPartitionSampler,
+  count: (family) => countPartitions(family),
+  member: partsOf,
+  contains: isPartitionMember,
+};
 
-  /** From a query the count endpoint's schema has accepted, or a sampling endpoint's (only its family fields are kept). The HTTP app's way in; users call partitionFamily. */
-  constructor(query: PartitionsCountQuery) {
-    super(partitionFamilyOf(query), pickParams(query, PARTITION_PARAMS));
-  }
-
-  protected plan(): PartitionSampler {
-    return planPartitionSampler(this.description);
-  }
-
-  protected countMembers(): bigint {
-    return countPartitions(this.description);
-  }
-
-  protected member(partition: Partition): number[] {
-    return partsOf(partition);
-  }
-
-  contains(value: unknown): value is number[] {
-    return isPartitionMember(this.description, value);
-  }
-
-  resize(n: number): Partitions {
-    const size = parseParam(partitionsCountQuery.shape.n, n, 'n', this.countPath);
-    return new Partitions({ ...(this.query as PartitionsCountQuery), n: size });
-  }
+/** The family of a query its schema has accepted (the HTTP app's way in; users call partitionFamily). */
+export function partitionsOf(query: PartitionsCountQuery): Partitions {
+  return new LibraryFamily(PARTITIONS, query);
 }
 
 /**
@@ -77,5 +58,5 @@ export class Partitions extends FamilyBase<number[], Partition, PartitionSampler
  * ```
  */
 export function partitionFamily(constraints: PartitionConstraints): Partitions {
-  return new Partitions(parseParams(partitionsCountQuery, constraints, '/v1/partitions/count'));
+  return partitionsOf(parseParams(partitionsCountQuery, constraints, PARTITIONS.countPath));
 }

@@ -1,3 +1,4 @@
+import type { z } from 'zod';
 import { LimitExceededError } from '../core/errors.js';
 import { SampleStreams, SEED_PATTERN } from '../core/seeding.js';
 import type { RandomSource } from '../core/random.js';
@@ -50,44 +51,66 @@ export function pickParams(query: FamilyQuery, params: readonly string[]): Famil
 }
 
 /**
- * The shared machinery of the library's families: the canonical key and its random streams, the
- * sampler planned once (on first use, so an empty family can still be counted), the count
- * computed once, and the checks of seed and index. Subclasses say how the core describes,
- * plans, counts and writes their members.
+ * What differs between kinds of family (partitions, compositions; set partitions later): the
+ * API endpoints answering the same requests, the schema field of n, and how the core describes,
+ * plans, counts and writes the members. One object per kind.
+ */
+export interface FamilyKind<D extends { readonly kind: string; readonly n: number }, Raw, S extends PlannedSampler<Raw>> {
+  readonly kind: D['kind'];
+  /** The API endpoint answering the same request as a sample (for error URLs). */
+  readonly samplesPath: string;
+  /** The API endpoint answering the same request as `count`. */
+  readonly countPath: string;
+  /** The family parameters of its count endpoint's query (named by an empty-family error). */
+  readonly params: readonly string[];
+  /** The schema field that checks n (for resize). */
+  readonly nField: z.ZodType<number>;
+  /** The family a validated query describes, canonical (absent fields and defaults dropped). */
+  describe(query: FamilyQuery): D;
+  plan(description: D): S;
+  count(description: D): bigint;
+  member(raw: Raw): number[];
+  contains(description: D, value: unknown): boolean;
+}
+
+/**
+ * A family of the library: the canonical key and its random streams, the sampler planned once
+ * (on first use, so an empty family can still be counted), the count computed once, and the
+ * checks of seed and index; its kind says the rest.
  *
  * Also what the HTTP layer serves from (`sampler`, `streams`, `description`): one family object
  * per family key, cached by the app.
  */
-export abstract class FamilyBase<Member, Raw, S extends PlannedSampler<Raw>> implements SampledFamily<Member> {
+export class LibraryFamily<D extends { readonly kind: string; readonly n: number }, Raw, S extends PlannedSampler<Raw>> implements SampledFamily<number[]> {
+  readonly description: D;
   readonly key: string;
-  readonly streams: SampleStreams;
+  private hashedStreams: SampleStreams | undefined;
+  /** The family parameters of the query it came from (for error messages: which were given). */
+  private readonly query: FamilyQuery;
   private planned: S | undefined;
   private planError: unknown;
   private planFoundEmpty = false;
   private counted: bigint | undefined;
   private checkedSeed: string | undefined;
 
-  protected constructor(
-    readonly description: Readonly<{ kind: string; n: number }>,
-    /** The validated query the family came from (for error messages: which parameters were given). */
-    protected readonly query: FamilyQuery,
+  /** From a query its kind's count endpoint schema has accepted, or a sampling endpoint's (only the family fields are kept). */
+  constructor(
+    private readonly type: FamilyKind<D, Raw, S>,
+    query: FamilyQuery,
   ) {
-    this.key = JSON.stringify(description); // = familyKey(description): the description is canonical
-    this.streams = new SampleStreams(this.key);
+    this.query = pickParams(query, type.params);
+    this.description = type.describe(this.query);
+    this.key = JSON.stringify(this.description); // = familyKey(description): the description is canonical
   }
 
-  abstract readonly kind: string;
-  /** The API endpoint answering the same request as a sample (for error URLs). */
-  protected abstract readonly samplesPath: string;
-  /** The API endpoint answering the same request as `count`. */
-  protected abstract readonly countPath: string;
-  /** The family parameters an empty-family error names. */
-  protected abstract readonly familyParams: readonly string[];
-  protected abstract plan(): S;
-  protected abstract countMembers(): bigint;
-  protected abstract member(raw: Raw): Member;
-  abstract contains(value: unknown): boolean;
-  abstract resize(n: number): SampledFamily<Member>;
+  /** The family's random streams (the key's prefix hashed on first use: counting and membership need none). */
+  get streams(): SampleStreams {
+    return (this.hashedStreams ??= new SampleStreams(this.key));
+  }
+
+  get kind(): D['kind'] {
+    return this.type.kind;
+  }
 
   get n(): number {
     return this.description.n;
@@ -98,12 +121,12 @@ export abstract class FamilyBase<Member, Raw, S extends PlannedSampler<Raw>> imp
     if (this.planned !== undefined) return this.planned;
     if (this.planError !== undefined) throw this.planError;
     try {
-      this.planned = this.plan();
+      this.planned = this.type.plan(this.description);
       return this.planned;
     } catch (error) {
       // Planning depends on the family only, so a refusal is remembered like a plan.
       this.planFoundEmpty = error instanceof RangeError && !(error instanceof LimitExceededError);
-      this.planError = familyError(error, this.query, this.familyParams, this.samplesPath);
+      this.planError = familyError(error, this.query, this.type.params, this.type.samplesPath);
       throw this.planError;
     }
   }
@@ -124,38 +147,46 @@ export abstract class FamilyBase<Member, Raw, S extends PlannedSampler<Raw>> imp
   get count(): bigint {
     if (this.counted === undefined) {
       try {
-        this.counted = this.countMembers();
+        this.counted = this.type.count(this.description);
       } catch (error) {
-        throw familyError(error, this.query, this.familyParams, this.countPath);
+        throw familyError(error, this.query, this.type.params, this.type.countPath);
       }
     }
     return this.counted;
   }
 
-  sample(seed: string, index = 0): Member {
+  sample(seed: string, index = 0): number[] {
     if (seed !== this.checkedSeed) this.checkSeed(seed);
-    if (!isIndex(index)) index = parseParam(samplingFields.start, index, 'index', this.samplesPath);
+    if (!isIndex(index)) index = parseParam(samplingFields.start, index, 'index', this.type.samplesPath);
     return this.draw(seed, index);
   }
 
-  *samples(seed: string, start = 0, count = Infinity): IterableIterator<Member> {
+  *samples(seed: string, start = 0, count = Infinity): IterableIterator<number[]> {
     this.checkSeed(seed);
-    if (!isIndex(start)) start = parseParam(samplingFields.start, start, 'start', this.samplesPath);
-    const end = count === Infinity ? MAX_INDEX + 1 : start + checkedCount(count, start, this.samplesPath);
+    if (!isIndex(start)) start = parseParam(samplingFields.start, start, 'start', this.type.samplesPath);
+    const end = count === Infinity ? MAX_INDEX + 1 : start + checkedCount(count, start, this.type.samplesPath);
     for (let i = start; i < end; i++) yield this.draw(seed, i);
   }
 
-  private draw(seed: string, index: number): Member {
+  contains(value: unknown): value is number[] {
+    return this.type.contains(this.description, value);
+  }
+
+  resize(n: number): LibraryFamily<D, Raw, S> {
+    return new LibraryFamily(this.type, { ...this.query, n: parseParam(this.type.nField, n, 'n', this.type.countPath) });
+  }
+
+  private draw(seed: string, index: number): number[] {
     try {
-      return this.member(this.sampler.sample(this.streams.source(seed, index)));
+      return this.type.member(this.sampler.sample(this.streams.source(seed, index)));
     } catch (error) {
-      throw familyError(error, this.query, this.familyParams, this.samplesPath);
+      throw familyError(error, this.query, this.type.params, this.type.samplesPath);
     }
   }
 
   /** The seed checked by the API's seed field (SEED_PATTERN); the last good seed is remembered, as most callers keep one. */
   private checkSeed(seed: string): void {
-    if (typeof seed !== 'string' || !SEED_PATTERN.test(seed)) parseParam(samplingFields.seed.unwrap(), seed, 'seed', this.samplesPath);
+    if (typeof seed !== 'string' || !SEED_PATTERN.test(seed)) parseParam(samplingFields.seed.unwrap(), seed, 'seed', this.type.samplesPath);
     this.checkedSeed = seed;
   }
 }

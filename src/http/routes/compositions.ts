@@ -1,5 +1,5 @@
 import { familyKey } from '../../core/family.js';
-import { compositionFamilyOf, Compositions } from '../../library/compositions.js';
+import { compositionFamilyOf, compositionsOf } from '../../library/compositions.js';
 import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
@@ -20,7 +20,7 @@ export const compositionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const key = memo.get('family-key', () => familyKey(compositionFamilyOf(query)));
-    const family = context.compositionFamilies.getOrCreate(key, () => new Compositions(query));
+    const family = context.compositionFamilies.getOrCreate(key, () => compositionsOf(query));
     const { sampler, streams } = family;
     return respondWithSamples(
       request,
@@ -41,7 +41,7 @@ export const compositionsCountEndpoint = defineEndpoint({
   query: compositionsCountQuery,
   responses: COUNT_RESPONSES,
   handle(request, query) {
-    const family = new Compositions(query);
+    const family = compositionsOf(query);
     return respondWithJson(request, COMPOSITIONS_COUNT_PATH, query, { family: family.description, count: family.count.toString() });
   },
 });

@@ -1,5 +1,5 @@
 import { familyKey } from '../../core/family.js';
-import { partitionFamilyOf, Partitions } from '../../library/partitions.js';
+import { partitionFamilyOf, partitionsOf } from '../../library/partitions.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
@@ -20,7 +20,7 @@ export const partitionsEndpoint = defineEndpoint({
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
     const key = memo.get('family-key', () => familyKey(partitionFamilyOf(query)));
-    const family = context.partitionFamilies.getOrCreate(key, () => new Partitions(query));
+    const family = context.partitionFamilies.getOrCreate(key, () => partitionsOf(query));
     const { sampler, streams } = family;
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
@@ -52,7 +52,7 @@ export const partitionsCountEndpoint = defineEndpoint({
   query: partitionsCountQuery,
   responses: COUNT_RESPONSES,
   handle(request, query) {
-    const family = new Partitions(query);
+    const family = partitionsOf(query);
     return respondWithJson(request, PARTITIONS_COUNT_PATH, query, { family: family.description, count: family.count.toString() });
   },
 });
