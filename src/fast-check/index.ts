@@ -65,7 +65,10 @@ export function compositionArb(constraints: CompositionArbConstraints, options?:
 
 /** A family object of any kind as an arbitrary (for kinds added later), with its own shape. */
 export function familyArb(family: SampledFamily<number[]>, range: { min: number; max: number }, shape: MemberShape, options?: ArbitraryOptions): FamilyArbitrary {
-  return new FamilyArbitrary(family.resize(range.min), range.min, range.max, shape, options);
+  const first = family.resize(range.min);
+  const last = family.resize(range.max); // checks max like n
+  if (first.n > last.n) throw invalidParam('n.max', `must be at least n.min (${first.n})`, 'partsmith/fast-check', range.max);
+  return new FamilyArbitrary(first, first.n, last.n, shape, options);
 }
 
 /** n, or n.min and n.max, each checked by the count endpoints' n field (the same field for both kinds). */

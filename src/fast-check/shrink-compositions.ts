@@ -1,12 +1,13 @@
+import { spread } from './spread.js';
+
 /**
  * Shrink candidates of a composition (parts in order), most aggressive first, as for partitions
  * (shrink-partitions.ts) but keeping the order of the parts: drop a prefix, a suffix or a part,
  * lower a part; merge neighbours; even out neighbours, or swap a smaller part before a larger
- * one (lexicographically larger). Moves at single positions look at the first and last
- * POSITIONS parts only, so a composition of 10^5 parts gives a few dozen candidates, and the
- * halving moves shorten it in logarithmically many steps.
+ * one (lexicographically larger). Moves at single positions look at the positions `spread`
+ * picks (all of a short composition; about a hundred of a long one, which the halving moves
+ * shorten in logarithmically many steps), so a step proposes at most a few hundred candidates.
  */
-const POSITIONS = 16;
 
 export function* compositionShrinks(parts: readonly number[]): Generator<number[]> {
   const length = parts.length;
@@ -27,12 +28,6 @@ export function* compositionShrinks(parts: readonly number[]): Generator<number[
     yield replaced(parts, at, [Math.ceil(total / 2), Math.floor(total / 2)], 2);
     if (parts[at] < parts[at + 1]) yield replaced(parts, at, [parts[at + 1], parts[at]], 2);
   }
-}
-
-/** Positions 0..POSITIONS-1 and the last POSITIONS (all of them for a short composition). */
-function spread(length: number): number[] {
-  if (length <= 2 * POSITIONS) return Array.from({ length }, (_, i) => i);
-  return [...Array.from({ length: POSITIONS }, (_, i) => i), ...Array.from({ length: POSITIONS }, (_, i) => length - POSITIONS + i)];
 }
 
 function without(parts: readonly number[], at: number): number[] {

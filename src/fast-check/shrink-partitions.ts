@@ -1,14 +1,19 @@
+import { spread } from './spread.js';
+
 /**
  * Shrink candidates of a partition (parts largest first), most aggressive first: fewer parts and
  * a smaller n, then the same n with fewer parts, then moves that keep the number of parts and
  * even out or reorder the parts. Each candidate is written largest first; the arbitrary keeps
  * those that are strictly simpler (simplicity.ts) and members of their family, so the moves
- * themselves need not respect any constraint. About 8 candidates per distinct part size.
+ * themselves need not respect any constraint. About 8 candidates per distinct part size, for
+ * the sizes `spread` picks (all of them up to 128; a partition of 10^9 has ~2.5·10^4 sizes, and
+ * the halving moves shorten it in logarithmically many steps).
  */
 export function* partitionShrinks(parts: readonly number[]): Generator<number[]> {
   const length = parts.length;
   if (length === 0) return;
-  const sizes = distinctSizes(parts);
+  const all = distinctSizes(parts);
+  const sizes = spread(all.length).map((i) => all[i]);
   // A smaller n: drop half of the parts (the smaller ones, then the larger ones), one copy of a
   // size, or one unit of a part.
   if (length >= 4) {
@@ -35,7 +40,7 @@ export function* partitionShrinks(parts: readonly number[]): Generator<number[]>
   // ... or two neighbouring sizes, or the largest part with a copy of each other size.
   for (let i = 0; i + 1 < sizes.length; i++) {
     const at = parts.lastIndexOf(sizes[i]);
-    yield sorted(replaced(without(parts, at + 1), at, [parts[at] + parts[at + 1]]));
+    if (at + 1 < length) yield sorted(replaced(without(parts, at + 1), at, [parts[at] + parts[at + 1]]));
   }
   for (let i = 1; i < sizes.length; i++) {
     const at = parts.lastIndexOf(sizes[i]);
@@ -46,6 +51,7 @@ export function* partitionShrinks(parts: readonly number[]): Generator<number[]>
   for (let i = 0; i + 1 < sizes.length; i++) {
     const a = parts.lastIndexOf(sizes[i]);
     const b = a + 1;
+    if (b >= length) continue;
     const total = parts[a] + parts[b];
     yield sorted(replaced(replaced(parts, a, [Math.ceil(total / 2)]), b, [Math.floor(total / 2)]));
   }
