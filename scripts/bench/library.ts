@@ -25,7 +25,7 @@ import type { SampleStreams } from '../../src/core/seeding.js';
 /** Fresh processes per entry for import times. */
 const ROUNDS = 7;
 /** Short interleaved rounds per path for per-sample costs: many, so that a shared machine's drift hits every path alike. */
-const SAMPLE_ROUNDS = 25;
+const SAMPLE_ROUNDS = 101;
 const ROOT = resolve(import.meta.dirname, '../..');
 
 function median(values: number[]): number {
@@ -68,12 +68,12 @@ async function perSample(): Promise<void> {
   console.log('| family | core sampler | core + parts | library sample() | library / core | library / (core + parts) | 0.2 async path | async / core |');
   console.log('|---|---:|---:|---:|---:|---:|---:|---:|');
   const rows: [string, SampledFamily<number[]>, string, object, number][] = [
-    ['partitions n = 100', partitionFamily({ n: 100 }), '/v1/partitions', { n: 100 }, 1000],
-    ['partitions n = 1000', partitionFamily({ n: 1000 }), '/v1/partitions', { n: 1000 }, 500],
-    ['partitions n = 10^6', partitionFamily({ n: 1e6 }), '/v1/partitions', { n: 1e6 }, 10],
-    ['compositions n = 100', compositionFamily({ n: 100 }), '/v1/compositions', { n: 100 }, 1000],
-    ['compositions n = 1000', compositionFamily({ n: 1000 }), '/v1/compositions', { n: 1000 }, 500],
-    ['compositions n = 10^6', compositionFamily({ n: 1e6 }), '/v1/compositions', { n: 1e6 }, 3],
+    ['partitions n = 100', partitionFamily({ n: 100 }), '/v1/partitions', { n: 100 }, 250],
+    ['partitions n = 1000', partitionFamily({ n: 1000 }), '/v1/partitions', { n: 1000 }, 120],
+    ['partitions n = 10^6', partitionFamily({ n: 1e6 }), '/v1/partitions', { n: 1e6 }, 3],
+    ['compositions n = 100', compositionFamily({ n: 100 }), '/v1/compositions', { n: 100 }, 250],
+    ['compositions n = 1000', compositionFamily({ n: 1000 }), '/v1/compositions', { n: 1000 }, 120],
+    ['compositions n = 10^6', compositionFamily({ n: 1e6 }), '/v1/compositions', { n: 1e6 }, 1],
   ];
   for (const [name, family, path, constraints, calls] of rows) {
     const { sampler, streams } = family as unknown as { sampler: { sample(source: RandomSource): unknown }; streams: SampleStreams };
