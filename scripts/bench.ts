@@ -1,11 +1,12 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http, library) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
 import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
+import { benchLibrary } from './bench/library.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
@@ -14,6 +15,7 @@ const sections: Record<string, () => Promise<void>> = {
   compositions: benchCompositions,
   'set-partitions': benchSetPartitions,
   http: benchHttp,
+  library: benchLibrary,
 };
 
 const chosen = process.argv.slice(2);

@@ -1,11 +1,10 @@
 import { PartsmithError } from '../client/errors.js';
 import { APP_VERSION } from '../version.js';
-import { createPartsmith } from '../index.js';
 import { flagOf, parseArgs, UsageError, type ParsedFlag } from './flags.js';
 import { Progress, Sink } from './output.js';
 import { runSamples } from './samples.js';
 import { startServer } from './serve.js';
-import { localSource, remoteSource, type Source } from './source.js';
+import { localFetch, localSource, remoteSource, type Source } from './source.js';
 import { endpointSpecs, isSwitchParam, paramHelp, type EndpointSpec } from './spec.js';
 
 /** Flags of the CLI itself, never sent to the API. */
@@ -92,7 +91,7 @@ export async function runCli(argv: readonly string[], io: CliIo = { stdout: proc
     const entry = COMMANDS[key];
     if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, set-partitions, count, serve (see partsmith --help)`);
 
-    const specs = endpointSpecs((await (await createPartsmith().fetch('/openapi.json')).json()) as Record<string, unknown>);
+    const specs = endpointSpecs((await (await localFetch()('/openapi.json')).json()) as Record<string, unknown>);
     const spec = specs.get(entry.path);
     if (!spec) throw new UsageError(`${key} is not served by this version (${APP_VERSION}) yet`);
 

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
-import type { compositionsCountQuery, compositionsQuery } from '../http/schemas/compositions.js';
-import type { partitionsCountQuery, partitionsQuery } from '../http/schemas/partitions.js';
-import type { setPartitionsCountQuery, setPartitionsQuery } from '../http/schemas/set-partitions.js';
+import type { compositionsCountQuery, compositionsQuery } from '../schemas/compositions.js';
+import type { partitionsCountQuery, partitionsQuery } from '../schemas/partitions.js';
+import type { setPartitionsCountQuery, setPartitionsQuery } from '../schemas/set-partitions.js';
 
 /**
  * Request parameters as typed values, derived from the endpoints' zod query schemas (the single

@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { checkQuery } from '../schemas/check.js';
-import { compositionsQuery, type CompositionsQuery } from '../schemas/compositions.js';
-import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js';
-import { setPartitionsQuery, type SetPartitionsQuery } from '../schemas/set-partitions.js';
+import { checkQuery } from '../../schemas/check.js';
+import { compositionsQuery, type CompositionsQuery } from '../../schemas/compositions.js';
+import { partitionsQuery, type PartitionsQuery } from '../../schemas/partitions.js';
+import { setPartitionsQuery, type SetPartitionsQuery } from '../../schemas/set-partitions.js';
 
 /**
  * The page's form: what the user typed (kept verbatim to show it back), the errors per field,

@@ -7,7 +7,7 @@ import { defineEndpoint } from '../endpoint.js';
 import { ProblemError } from '../problem.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
 import { setPartitionAsBlocks, setPartitionAsRgs } from '../set-partition-encode.js';
-import { setPartitionsCountQuery, setPartitionsQuery, type SetPartitionsCountQuery } from '../schemas/set-partitions.js';
+import { setPartitionsCountQuery, setPartitionsQuery, type SetPartitionsCountQuery } from '../../schemas/set-partitions.js';
 import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 const SET_PARTITIONS_PATH = '/v1/set-partitions';

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { MAX_N } from '../limits.js';
-import { choiceParam, integerParam, sizeListParam } from '../params.js';
+import { MAX_N } from './bounds.js';
+import { choiceParam, integerParam, sizeListParam } from './params.js';
 import { countFields, samplingFields } from './common.js';
 
 /** Constraints on a composition; all optional and combinable. */

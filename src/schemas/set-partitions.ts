@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { MAX_SET_PARTITION_N } from '../../core/set-partitions/resolve.js';
-import { choiceParam, integerParam } from '../params.js';
+import { MAX_SET_PARTITION_N } from '../core/set-partitions/resolve.js';
+import { choiceParam, integerParam } from './params.js';
 import { samplingFields } from './common.js';
 
 const MAX = MAX_SET_PARTITION_N;
