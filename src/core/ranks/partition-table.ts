@@ -1,0 +1,104 @@
+import { sizeCount } from '../partitions/constrained/spec.js';
+import { layersOf, rowEnd, sizeAt, type PartitionShape } from './partition-shape.js';
+
+/**
+ * The exact counting table a partition family is ranked with, in BigInt:
+ *   T(j, l, m) = number of partitions of m with parts among the j smallest allowed sizes
+ *                b_1 < ... < b_j, and (with a length rule) exactly / at most l parts,
+ *   T(j, l, m) = T(j - 1, l, m) + T(j, l - 1, m - b_j)       (any multiplicities),
+ *   T(j, l, m) = T(j - 1, l, m) + T(j - 1, l - 1, m - b_j)   (distinct parts),
+ * with T(0, l, m) = [m = 0] (and l = 0 for "exactly"): either no part b_j, or take one b_j —
+ * the coefficient recurrences of prod 1/(1 - y q^b) and prod (1 + y q^b) (Andrews, The Theory of
+ * Partitions 1976, ch. 1). Without a length rule the l index is dropped.
+ *
+ * Read largest size first, the table counts the members that come before a given one in
+ * reverse lexicographic order: after a prefix, with sizes b_1..b_j still usable and m left, the
+ * members continuing with a part b_j come first, T(j or j - 1, l - 1, m - b_j) of them, then
+ * those continuing with smaller parts, T(j - 1, l, m).
+ *
+ * Memory: row (j, l) keeps m from b_j (below it the row equals a lower one: no part b_j fits) to
+ * the largest sum l parts from b_1..b_j reach (beyond it the counts are 0) — for unrestricted
+ * partitions the triangle m >= j, half the square. `partitionTableSize` estimates it beforehand.
+ */
+export class PartitionRankTable {
+  /** Number of allowed sizes r. */
+  readonly r: number;
+  /** The length state at the start: k or K parts to go (0 without a length rule). */
+  readonly firstState: number;
+  /** What one part takes off the length state: 1 with a length rule, 0 without. */
+  readonly step: number;
+  readonly distinct: boolean;
+  readonly n: number;
+  private readonly sizes: Int32Array;
+  private readonly rows: bigint[][];
+  private readonly layers: number;
+  private readonly exactly: boolean;
+  /** Smallest size when the sizes are an interval (then "sizes <= m" is arithmetic), else -1. */
+  private readonly intervalLo: number;
+
+  constructor(shape: PartitionShape) {
+    const r = sizeCount(shape.sizes);
+    this.r = r;
+    this.n = shape.n;
+    this.distinct = shape.distinct;
+    this.layers = layersOf(shape);
+    this.exactly = shape.rule === 'exactly';
+    this.step = shape.rule === 'any' ? 0 : 1;
+    this.firstState = shape.rule === 'any' ? 0 : shape.parts;
+    this.intervalLo = shape.sizes.kind === 'interval' ? shape.sizes.lo : -1;
+    const sizes = new Int32Array(r);
+    const prefix: number[] = [0];
+    for (let j = 1; j <= r; j++) {
+      sizes[j - 1] = sizeAt(shape.sizes, j);
+      prefix.push(prefix[j - 1] + sizes[j - 1]);
+    }
+    this.sizes = sizes;
+    this.rows = new Array<bigint[]>(r * this.layers);
+    const firstLayer = shape.rule === 'any' ? 0 : 1;
+    for (let j = 1; j <= r; j++) {
+      const b = sizes[j - 1];
+      const take = this.distinct ? j - 1 : j;
+      for (let l = 0; l < this.layers; l++) {
+        const length = l >= firstLayer ? Math.max(0, rowEnd(shape, j, l, prefix) - b + 1) : 0;
+        const row = new Array<bigint>(length);
+        this.rows[(j - 1) * this.layers + l] = row;
+        const lower = l - this.step;
+        for (let k = 0; k < length; k++) row[k] = this.at(j - 1, l, b + k) + this.at(take, lower, k);
+      }
+    }
+  }
+
+  /** The j-th smallest size (1-based). */
+  size(j: number): number {
+    return this.sizes[j - 1];
+  }
+
+  /** Number of allowed sizes <= m (the index of the largest of them). */
+  below(m: number): number {
+    if (this.intervalLo >= 0) return Math.max(0, Math.min(this.r, m - this.intervalLo + 1));
+    const sizes = this.sizes;
+    let lo = 0;
+    let hi = sizes.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (sizes[mid] <= m) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  }
+
+  /** T(j, l, m): members completing a remainder m with sizes b_1..b_j and length state l. */
+  at(j: number, l: number, m: number): bigint {
+    if (m < 0 || l < 0) return 0n;
+    if (j > 0 && this.sizes[j - 1] > m) j = this.below(m);
+    if (j === 0) return m === 0 && (!this.exactly || l === 0) ? 1n : 0n;
+    const row = this.rows[(j - 1) * this.layers + l];
+    const k = m - this.sizes[j - 1];
+    return k < row.length ? row[k] : 0n;
+  }
+
+  /** Members of the whole family. */
+  get count(): bigint {
+    return this.at(this.r, this.firstState, this.n);
+  }
+}
