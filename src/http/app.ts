@@ -14,6 +14,9 @@ import { checkEndpoint } from './routes/check.js';
 import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { PAGE_PATHS, registerPage } from './routes/page.js';
+import { compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint } from './routes/composition-ranks.js';
+import { partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint } from './routes/partition-ranks.js';
+import { RankerCache } from './ranking.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -43,6 +46,7 @@ export function createApp(options: AppOptions = {}): Hono {
     drawSeed: options.drawSeed ?? drawRandomSeed,
     partitionSamplers: new LruCache(64),
     compositionSamplers: new LruCache(64),
+    rankers: new RankerCache(),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(
@@ -53,6 +57,7 @@ export function createApp(options: AppOptions = {}): Hono {
     compositionsEndpoint as unknown as Endpoint,
     compositionsCountEndpoint as unknown as Endpoint,
     compositionCheckEndpoint as unknown as Endpoint,
+    ...rankEndpoints(),
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
@@ -92,6 +97,11 @@ export function createApp(options: AppOptions = {}): Hono {
     return problemResponse(problem);
   });
   return app;
+}
+
+/** Listing, rank and unrank, for partitions and compositions. */
+function rankEndpoints(): Endpoint[] {
+  return [partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint, compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint] as unknown as Endpoint[];
 }
 
 /** Parameters that define a family (as opposed to how many samples and in which form). */

@@ -4,6 +4,7 @@ import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
 import type { QueryMemo } from './query.js';
+import type { RankerCache } from './ranking.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
@@ -14,6 +15,8 @@ export interface AppContext {
   readonly partitionSamplers: LruCache<PlannedFamily<PartitionSampler>>;
   /** Planned composition samplers (with their families' streams) by family key. */
   readonly compositionSamplers: LruCache<PlannedFamily<CompositionSampler>>;
+  /** Rankers (with their counting tables) by family key. */
+  readonly rankers: RankerCache;
 }
 
 /** What is prepared once per family and reused by every request for it. */

@@ -35,10 +35,14 @@ export function compositionRanker(family: CompositionFamily): Ranker {
   return new CompositionRanker(core.kind === 'free' ? freeCounts(core) : fixedCounts(core), family);
 }
 
-/** The estimated table of a composition family (0 for an empty family or one without a table). */
+/**
+ * The estimated table of a composition family (0 for an empty family; no table for all
+ * compositions, which are over the limit only when their count has more than MAX_COUNT_BITS bits).
+ */
 export function compositionRankTableSize(family: CompositionFamily): TableSize {
   const core = coreOf(family);
-  if ('empty' in core || isAllCompositions(core)) return { cells: 0, bytes: 0 };
+  if ('empty' in core) return { cells: 0, bytes: 0 };
+  if (isAllCompositions(core)) return { cells: 0, bytes: core.n - 1 > MAX_COUNT_BITS ? Infinity : 0 };
   return coreTableSize(core);
 }
 

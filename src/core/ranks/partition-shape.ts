@@ -76,17 +76,22 @@ function maxParts(sizes: SizeSet, distinct: boolean, n: number): number {
 }
 
 /**
- * Last remaining size m stored in the row of (b_1..b_j, l parts): rows start at m = b_j (below
- * it the row equals a lower one) and end where at most l parts from b_1..b_j can reach
- * (l * b_j, or the l largest of them for distinct parts), or n. `prefix` holds b_1 + ... + b_i.
+ * Last remainder m stored in the row of (b_1..b_j, l): rows start at m = b_j (below it the row
+ * equals a lower one: no part b_j fits) and end at the largest remainder a walk can meet there.
+ * With the walk at sizes b_1..b_j, every part placed so far is >= b_j, so after p placed parts
+ * m <= n - p * b_j; and l more parts from b_1..b_j reach at most l * b_j (distinct: the l largest
+ * of them). A length rule knows p = (k or K) - l; without one, p >= 1 except at the start,
+ * m = n, which the table keeps apart (one count per j). `prefix` holds b_1 + ... + b_i.
  */
 export function rowEnd(shape: PartitionShape, j: number, l: number, prefix: readonly number[]): number {
   const { n, distinct, rule } = shape;
   const b = sizeAt(shape.sizes, j);
-  if (rule === 'any') return distinct ? Math.min(n, prefix[j]) : n;
-  if (!distinct) return Math.min(n, l * b);
-  const used = Math.min(l, j);
-  return Math.min(n, prefix[j] - prefix[j - used]);
+  const placed = rule === 'any' ? 1 : shape.parts - l;
+  if (placed === 0) return b - 1; // the start layer: only m = n, kept apart
+  let end = n - placed * b;
+  if (rule === 'any') return distinct ? Math.min(end, prefix[j]) : end;
+  end = Math.min(end, distinct ? prefix[j] - prefix[j - Math.min(l, j)] : l * b);
+  return end;
 }
 
 /** Layers of the table: one per length state (l = 0 ... k or K), or one when the length is free. */
@@ -103,7 +108,7 @@ export function partitionTableSize(shape: PartitionShape): TableSize {
   const r = sizeCount(shape.sizes);
   const layers = layersOf(shape);
   const prefix: number[] = [0];
-  let cells = 0;
+  let cells = r + 1; // the start column
   for (let j = 1; j <= r; j++) {
     prefix.push(prefix[j - 1] + sizeAt(shape.sizes, j));
     const b = sizeAt(shape.sizes, j);
@@ -121,6 +126,7 @@ export function partitionTableSize(shape: PartitionShape): TableSize {
 function countBits(shape: PartitionShape): number {
   const { n, distinct, sizes } = shape;
   const r = sizeCount(sizes);
+  if (r === 0) return 1;
   const hardyRamanujan = (Math.PI * Math.sqrt((2 * n) / 3)) / Math.LN2;
   if (distinct) return Math.min(r, (Math.PI * Math.sqrt(n / 3)) / Math.LN2, hardyRamanujan) + 1;
   return Math.min(hardyRamanujan, r * Math.log2(n / smallestSize(sizes) + 1)) + 1;

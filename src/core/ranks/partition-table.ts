@@ -16,9 +16,10 @@ import { layersOf, rowEnd, sizeAt, type PartitionShape } from './partition-shape
  * members continuing with a part b_j come first, T(j or j - 1, l - 1, m - b_j) of them, then
  * those continuing with smaller parts, T(j - 1, l, m).
  *
- * Memory: row (j, l) keeps m from b_j (below it the row equals a lower one: no part b_j fits) to
- * the largest sum l parts from b_1..b_j reach (beyond it the counts are 0) — for unrestricted
- * partitions the triangle m >= j, half the square. `partitionTableSize` estimates it beforehand.
+ * Memory: row (j, l) keeps only the remainders a walk can meet (see rowEnd): from m = b_j (below
+ * it the row equals a lower one) to n - (parts placed) * b_j, plus the start column m = n apart —
+ * for unrestricted partitions j <= m <= n - j, a quarter of the square. Counts outside are never
+ * asked for (0 is returned). `partitionTableSize` estimates the size beforehand.
  */
 export class PartitionRankTable {
   /** Number of allowed sizes r. */
@@ -31,6 +32,8 @@ export class PartitionRankTable {
   readonly n: number;
   private readonly sizes: Int32Array;
   private readonly rows: bigint[][];
+  /** T(j, firstState, n) for j = 0..r: the start column. */
+  private readonly start: bigint[];
   private readonly layers: number;
   private readonly exactly: boolean;
   /** Smallest size when the sizes are an interval (then "sizes <= m" is arithmetic), else -1. */
@@ -54,6 +57,7 @@ export class PartitionRankTable {
     }
     this.sizes = sizes;
     this.rows = new Array<bigint[]>(r * this.layers);
+    this.start = [this.base(this.firstState, this.n)];
     const firstLayer = shape.rule === 'any' ? 0 : 1;
     for (let j = 1; j <= r; j++) {
       const b = sizes[j - 1];
@@ -65,6 +69,7 @@ export class PartitionRankTable {
         const lower = l - this.step;
         for (let k = 0; k < length; k++) row[k] = this.at(j - 1, l, b + k) + this.at(take, lower, k);
       }
+      this.start.push(this.start[j - 1] + this.at(take, this.firstState - this.step, this.n - b));
     }
   }
 
@@ -91,10 +96,16 @@ export class PartitionRankTable {
   at(j: number, l: number, m: number): bigint {
     if (m < 0 || l < 0) return 0n;
     if (j > 0 && this.sizes[j - 1] > m) j = this.below(m);
-    if (j === 0) return m === 0 && (!this.exactly || l === 0) ? 1n : 0n;
+    if (m === this.n && l === this.firstState) return this.start[j];
+    if (j === 0) return this.base(l, m);
     const row = this.rows[(j - 1) * this.layers + l];
     const k = m - this.sizes[j - 1];
     return k < row.length ? row[k] : 0n;
+  }
+
+  /** T(0, l, m): only the empty partition of 0, and with "exactly" only when no part is due. */
+  private base(l: number, m: number): bigint {
+    return m === 0 && (!this.exactly || l === 0) ? 1n : 0n;
   }
 
   /** Members of the whole family. */
