@@ -62,6 +62,22 @@ compositions.push(
   { path: '/v1/compositions?n=9&count=2&seed=head', method: 'HEAD' },
 );
 
+/** Ranks: listings in every format and representation (one over several stream chunks), rank and unrank (ranks past 2^53 too). */
+const ranks: ParityRequest[] = [
+  ...FORMATS.map((format) => get(`/v1/partitions/list?n=12&maxLength=4&format=${format}`)),
+  ...FORMATS.map((format) => get(`/v1/compositions/list?n=10&allowed=1,2,3&start=100&count=50&format=${format}`)),
+  get('/v1/partitions/list?n=20&distinct=true&as=multiplicities&format=text'),
+  get('/v1/partitions/list?n=40&minPart=2&maxPart=9&count=10000&format=ndjson'),
+  get('/v1/compositions/list?n=90&start=1000000000000000000000&count=5'),
+  get('/v1/partitions/rank?parts=5,4,2,1'),
+  get('/v1/partitions/rank?parts=9,7,7,1&n=24&allowed=1,7,9'),
+  get('/v1/compositions/rank?parts=0,3,0&length=3&minPart=0'),
+  get('/v1/partitions/unrank?n=1000&rank=12345678901234567890123456789'),
+  get('/v1/partitions/unrank?n=30&length=5&rank=17&as=multiplicities'),
+  get('/v1/compositions/unrank?n=200&rank=98765432109876543210987654321'),
+  get('/v1/compositions/unrank?n=30&length=4&maxPart=12&rank=500'),
+];
+
 /** Pictures: Ferrers diagrams (svg, text, conjugate; parts= and n/seed/index), distribution checks (json, svg). */
 const pictures: ParityRequest[] = [
   get('/v1/partitions/diagram?parts=5,4,1,1'),
@@ -98,6 +114,7 @@ export const SERVED: readonly ParityRequest[] = [
   ...partitionSamples,
   ...constrainedPartitions,
   ...compositions,
+  ...ranks,
   ...pictures,
   ...page,
   // Defaults (count=1, start=0, format=json), a long seed with every allowed character, parameter order.
@@ -143,6 +160,8 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions/check?n=20&samples=0'),
   get('/v1/compositions/check?n=20&maxPart=3'),
   get('/healthz?verbose=1'),
+  get('/v1/partitions/rank?parts=1,a'),
+  get('/v1/partitions/unrank?n=5&rank=-2'),
   // 404.
   get('/index.html'),
   get('/v1/partition?n=10'),
@@ -158,4 +177,10 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions?n=10&seed=x&minPart=6&maxPart=4'),
   get('/v1/compositions?n=7&seed=x&allowed=2,4&length=2'),
   get('/v1/partitions?n=10&seed=x&start=1000000000000000&count=2'),
+  // 422 of the rank endpoints: not a member (out of order, wrong sum), a rank or start past the end, a table over its limit.
+  get('/v1/partitions/rank?parts=1,2,3'),
+  get('/v1/compositions/rank?parts=2,2&n=5'),
+  get('/v1/partitions/unrank?n=12&rank=77'),
+  get('/v1/compositions/list?n=5&start=17'),
+  get('/v1/partitions/list?n=5000'),
 ];
