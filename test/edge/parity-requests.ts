@@ -103,6 +103,8 @@ const page: ParityRequest[] = [
   get('/?family=partitions&n=30&count=2&seed=page&maxPart=5'),
   get('/?family=compositions&n=12&count=3&seed=page&check=true&samples=300'),
   get('/?family=compositions&n=9&count=2&seed=page&length=4&minPart=0'),
+  get('/?family=partitions&n=12&maxLength=4&mode=list&count=10&start=20'),
+  get('/?family=compositions&n=10&allowed=1,2&mode=list&count=48'),
   get('/?n=abc&count=4'),
   get('/assets/page.css'),
   get('/assets/page.js'),
