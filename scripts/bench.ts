@@ -1,10 +1,11 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, http) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, http, ranks) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
 import { benchHttp } from './bench/http.js';
+import { benchRanks } from './bench/ranks.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
@@ -12,6 +13,7 @@ const sections: Record<string, () => Promise<void>> = {
   constrained: benchConstrained,
   compositions: benchCompositions,
   http: benchHttp,
+  ranks: benchRanks,
 };
 
 const chosen = process.argv.slice(2);
