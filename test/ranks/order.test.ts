@@ -1,3 +1,4 @@
+import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 import { countCompositions } from '../../src/core/counting/composition-counts.js';
 import { countPartitions } from '../../src/core/counting/partition-counts.js';
@@ -152,6 +153,45 @@ describe('outside checks of the order', () => {
         }
         expect(ranker.unrank(BigInt(r)), `n = ${n}, rank ${r}`).toEqual(expected);
       }
+    }
+  });
+});
+
+describe('seeded random families against brute force', () => {
+  // 300 families of each kind with constraints drawn at random (seedrandom, fixed seed): every
+  // listing must equal the brute-force enumeration, and every member's rank its index.
+  const rng = seedrandom('rank-families');
+  const below = (k: number) => Math.floor(rng() * k);
+  const maybe = (p: number) => rng() < p;
+  const sizes = () => [...new Set(Array.from({ length: 1 + below(5) }, () => 1 + below(9)))];
+
+  it('partitions', () => {
+    for (let t = 0; t < 300; t++) {
+      const f: PartitionFamily = { kind: 'partition', n: below(19) };
+      if (maybe(0.3)) Object.assign(f, { distinct: true });
+      if (maybe(0.3)) Object.assign(f, { minPart: 1 + below(4) });
+      if (maybe(0.3)) Object.assign(f, { maxPart: 1 + below(8) });
+      if (maybe(0.25)) Object.assign(f, { length: below(7) });
+      else if (maybe(0.25)) Object.assign(f, { maxLength: below(7) });
+      if (maybe(0.3)) Object.assign(f, { allowed: sizes() });
+      const expected = partitionsByBruteForce(f);
+      const ranker = partitionRanker(f);
+      expect(listAll(ranker), JSON.stringify(f)).toEqual(expected);
+      expected.forEach((member, i) => expect(ranker.rank(member)).toBe(BigInt(i)));
+    }
+  });
+
+  it('compositions', () => {
+    for (let t = 0; t < 300; t++) {
+      const f: CompositionFamily = { kind: 'composition', n: below(13) };
+      if (maybe(0.4)) Object.assign(f, { length: below(6) });
+      if (maybe(0.3)) Object.assign(f, { minPart: (f.length !== undefined ? 0 : 1) + below(3) });
+      if (maybe(0.3)) Object.assign(f, { maxPart: Math.max(1, (f.minPart ?? 0) + below(6)) });
+      if (maybe(0.3)) Object.assign(f, { allowed: sizes().concat(f.length !== undefined && maybe(0.3) ? [0] : []) });
+      const expected = enumerateCompositions(f);
+      const ranker = compositionRanker(f);
+      expect(listAll(ranker), JSON.stringify(f)).toEqual(expected);
+      expected.forEach((member, i) => expect(ranker.rank(member)).toBe(BigInt(i)));
     }
   });
 });

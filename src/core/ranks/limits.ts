@@ -7,7 +7,7 @@ import { LimitExceededError } from '../errors.js';
  * naming the largest n that fits with the same constraints.
  *
  * The size is estimated before anything is built: `cells` counts, each costing
- * BIGINT_CELL_BYTES(bits) — a V8 BigInt is a 16-byte header plus 8 bytes per 64-bit digit, and
+ * bigintCellBytes(bits) — a V8 BigInt is a 16-byte header plus 8 bytes per 64-bit digit, and
  * its slot in the array another 8 (measured: 39 bytes per count for the 500,500 counts of the
  * unrestricted table at n = 1000, whose counts have up to 105 bits; the formula gives 40).
  * `bits` is an upper bound on the family's count, so the estimate errs on the large side.

@@ -18,9 +18,9 @@ export const MAX_RANKED_PARTS = 2000;
 
 const listFields = {
   n: integerParam(0, MAX_N, 'The size: every member sums to exactly n.'),
-  start: rankParam('Rank of the first member listed (a decimal string; ranks run from 0 to the number of members - 1). start = the number of members gives an empty page.').default('0'),
+  start: rankParam('Rank of the first member listed (a decimal string; ranks run from 0 to the number of members - 1). start = the number of members gives an empty page. Default 0.').default('0'),
   // The schema admits any count a server may be configured for; the configured limit is checked before listing.
-  count: integerParam(1, MAX_COUNT, `How many members to list from start (fewer at the end of the family): at most ${DEFAULT_LIMITS.maxCount.toLocaleString('en-US')} unless the server is configured otherwise.`).default(DEFAULT_LIST_COUNT),
+  count: integerParam(1, MAX_COUNT, `How many members to list from start (fewer at the end of the family): at most ${DEFAULT_LIMITS.maxCount.toLocaleString('en-US')} unless the server is configured otherwise. Default ${DEFAULT_LIST_COUNT.toLocaleString('en-US')}.`).default(DEFAULT_LIST_COUNT),
   format: choiceParam(['json', 'ndjson', 'text'], 'json: one document; ndjson: one line {"rank": "...", "parts": [...]} per member, streamed; text: one member per line, its rank, a tab, then its parts separated by spaces.').default('json'),
 };
 
