@@ -84,6 +84,12 @@ function descend(t: PartitionRankTable, j: number, l: number, m: number, rank: b
   while (m > 0) {
     if (j > 0 && t.size(j) > m) j = t.below(m);
     if (j === 0) throw new Error('rank table inconsistent (bug)');
+    if (j === 1 && !t.distinct) {
+      // Only the smallest size is left: the one completion is m / b_1 copies of it (no look-ups).
+      const b = t.size(1);
+      for (let k = m / b; k > 0; k--) parts.push(b);
+      return;
+    }
     const b = t.size(j);
     const taking = t.at(t.distinct ? j - 1 : j, l - t.step, m - b);
     if (rank < taking) {
@@ -116,9 +122,11 @@ class PartitionWalk implements OrderWalk {
 
   advance(): boolean {
     const { t, parts } = this;
+    const smallest = t.size(1);
     let suffix = 0;
     for (let i = parts.length - 1; i >= 0; i--) {
       suffix += parts[i];
+      if (parts[i] === smallest) continue; // nothing is smaller
       const index = t.below(parts[i]);
       const l = t.firstState - i * t.step;
       if (index > 1 && t.at(index - 1, l, suffix) !== 0n) {
