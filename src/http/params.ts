@@ -72,7 +72,7 @@ export function rankParam(description: string) {
 }
 
 /**
- * A member given as its parts: a comma-separated list of whole numbers from `min` to MAX_N in the
+ * A member given as its parts: a comma-separated list of whole numbers from `min` to `max` in the
  * order given (repeats kept, nothing sorted: whether the order is the family's is for the endpoint
  * to say). An empty value is the empty list (the one member of size 0).
  */

@@ -1,3 +1,4 @@
+import { LimitExceededError } from '../core/errors.js';
 import type { Partition } from '../core/partition.js';
 import type { Ranker } from '../core/ranks/ranker.js';
 import { IMMUTABLE, matchesIfNoneMatch, strongEtag } from './caching.js';
@@ -17,10 +18,12 @@ import type { SampleFormat } from './schemas/common.js';
 /**
  * Rankers by family key, least recently used first out, within a memory budget: a ranker holds
  * its family's counting table (up to RANK_TABLE_BYTES), so the cache is bounded by the tables'
- * estimated bytes as well as by entries. Entries are pure functions of their key.
+ * estimated bytes as well as by entries. A family refused for its table size is remembered too
+ * (saying what fits takes a search over n), and refused again at once. Entries are pure
+ * functions of their key.
  */
 export class RankerCache {
-  private readonly entries = new Map<string, { readonly ranker: Ranker; readonly bytes: number }>();
+  private readonly entries = new Map<string, { readonly ranker?: Ranker; readonly refused?: LimitExceededError; readonly bytes: number }>();
   private bytes = 0;
 
   constructor(
@@ -30,22 +33,28 @@ export class RankerCache {
 
   /** The ranker for `key`, made (with its estimated table bytes) the first time. */
   getOrCreate(key: string, make: () => { ranker: Ranker; bytes: number }): Ranker {
-    const found = this.entries.get(key);
-    if (found) {
+    let entry = this.entries.get(key);
+    if (entry) {
       this.entries.delete(key);
-      this.entries.set(key, found);
-      return found.ranker;
+      this.entries.set(key, entry);
+    } else {
+      try {
+        entry = make();
+      } catch (error) {
+        if (!(error instanceof LimitExceededError)) throw error;
+        entry = { refused: error, bytes: 0 };
+      }
+      this.entries.set(key, entry);
+      this.bytes += entry.bytes;
+      // Never evicts the entry just made (it may be over the budget alone: it fits the table limit).
+      while (this.entries.size > 1 && (this.bytes > this.budgetBytes || this.entries.size > this.maxEntries)) {
+        const [oldest, value] = this.entries.entries().next().value!;
+        this.entries.delete(oldest);
+        this.bytes -= value.bytes;
+      }
     }
-    const entry = make();
-    this.entries.set(key, entry);
-    this.bytes += entry.bytes;
-    // Never evicts the entry just made (it may be over the budget alone: it fits the table limit).
-    while (this.entries.size > 1 && (this.bytes > this.budgetBytes || this.entries.size > this.maxEntries)) {
-      const [oldest, value] = this.entries.entries().next().value!;
-      this.entries.delete(oldest);
-      this.bytes -= value.bytes;
-    }
-    return entry.ranker;
+    if (entry.refused) throw entry.refused;
+    return entry.ranker!;
   }
 
   get size(): number {

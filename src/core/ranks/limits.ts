@@ -19,10 +19,7 @@ export function bigintCellBytes(bits: number): number {
   return 24 + 8 * Math.ceil(Math.max(1, bits) / 64);
 }
 
-/** The smallest a count can cost: the cell limit a table cannot exceed whatever its counts. */
-export const MAX_RANK_CELLS = Math.floor(RANK_TABLE_BYTES / bigintCellBytes(1));
-
-/** A table estimate: its counts and bytes (Infinity when over the limit and not worth finishing). */
+/** A table estimate: its counts and bytes (both Infinity when the estimate stopped past the limit). */
 export interface TableSize {
   readonly cells: number;
   readonly bytes: number;
@@ -52,11 +49,10 @@ const MIB = 2 ** 20;
 
 /** The LimitExceededError of a family whose table is over the limit, saying what would fit. */
 export function rankLimitError(what: string, size: TableSize, fits: number): LimitExceededError {
-  const cells = Number.isFinite(size.cells) ? `about ${Math.round(size.cells).toLocaleString('en-US')} counts` : `more than ${MAX_RANK_CELLS.toLocaleString('en-US')} counts`;
-  const bytes = Number.isFinite(size.bytes) ? ` (~${Math.ceil(size.bytes / MIB).toLocaleString('en-US')} MiB)` : '';
+  const table = Number.isFinite(size.bytes) ? `a counting table of about ${Math.round(size.cells).toLocaleString('en-US')} counts (~${Math.ceil(size.bytes / MIB).toLocaleString('en-US')} MiB)` : 'a counting table';
   const advice = fits >= 0 ? `; with these constraints n <= ${fits.toLocaleString('en-US')} fits` : '';
   return new LimitExceededError(
-    `ranking ${what} needs a counting table of ${cells}${bytes}, over the limit of ${RANK_TABLE_BYTES / MIB} MiB per table${advice}`,
+    `ranking ${what} needs ${table}, over the limit of ${RANK_TABLE_BYTES / MIB} MiB per table${advice}`,
     `rank table <= ${RANK_TABLE_BYTES / MIB} MiB`,
   );
 }

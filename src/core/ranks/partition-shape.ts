@@ -1,6 +1,6 @@
 import type { PartitionFamily } from '../family.js';
 import { contradiction, emptyFamilyMessage, sizeCount, smallestSize, toSpec, type SizeSet } from '../partitions/constrained/spec.js';
-import { bigintCellBytes, MAX_RANK_CELLS, type TableSize } from './limits.js';
+import { bigintCellBytes, RANK_TABLE_BYTES, type TableSize } from './limits.js';
 
 /**
  * A partition family in the terms of its rank table: the allowed part sizes b_1 < ... < b_r
@@ -81,17 +81,25 @@ function maxParts(sizes: SizeSet, distinct: boolean, n: number): number {
  * With the walk at sizes b_1..b_j, every part placed so far is >= b_j, so after p placed parts
  * m <= n - p * b_j; and l more parts from b_1..b_j reach at most l * b_j (distinct: the l largest
  * of them). A length rule knows p = (k or K) - l; without one, p >= 1 except at the start,
- * m = n, which the table keeps apart (one count per j). `prefix` holds b_1 + ... + b_i.
+ * m = n, which the table keeps apart (one count per j). So every row is empty once b_j > n / 2.
+ * `prefix(i)` is b_1 + ... + b_i (see prefixSums).
  */
-export function rowEnd(shape: PartitionShape, j: number, l: number, prefix: readonly number[]): number {
+export function rowEnd(shape: PartitionShape, j: number, l: number, prefix: (i: number) => number): number {
   const { n, distinct, rule } = shape;
   const b = sizeAt(shape.sizes, j);
   const placed = rule === 'any' ? 1 : shape.parts - l;
   if (placed === 0) return b - 1; // the start layer: only m = n, kept apart
   let end = n - placed * b;
-  if (rule === 'any') return distinct ? Math.min(end, prefix[j]) : end;
-  end = Math.min(end, distinct ? prefix[j] - prefix[j - Math.min(l, j)] : l * b);
-  return end;
+  if (rule === 'any') return distinct ? Math.min(end, prefix(j)) : end;
+  return Math.min(end, distinct ? prefix(j) - prefix(j - Math.min(l, j)) : l * b);
+}
+
+/** i -> b_1 + ... + b_i: arithmetic for an interval, a table for a list (at most MAX_ALLOWED sizes). */
+export function prefixSums(sizes: SizeSet): (i: number) => number {
+  if (sizes.kind === 'interval') return (i) => i * sizes.lo + (i * (i - 1)) / 2;
+  const sums = [0];
+  for (const v of sizes.values) sums.push(sums[sums.length - 1] + v);
+  return (i) => sums[i];
 }
 
 /** Layers of the table: one per length state (l = 0 ... k or K), or one when the length is free. */
@@ -100,22 +108,27 @@ export function layersOf(shape: PartitionShape): number {
 }
 
 /**
- * The size of the shape's rank table, without building it: the counts stored row by row, and
- * bytes at the largest count's size. Stops counting (Infinity) once past the most counts any
- * table may hold, so the estimate is quick even for n = 10^9.
+ * The size of the shape's rank table, without building it: the counts stored row by row, at the
+ * largest count's size. Stops (Infinity) as soon as the count passes what the limit allows, and
+ * rows are empty past b_j > n / 2 (see rowEnd), so the estimate is quick even for n = 10^9.
  */
 export function partitionTableSize(shape: PartitionShape): TableSize {
   const r = sizeCount(shape.sizes);
-  const layers = layersOf(shape);
-  const prefix: number[] = [0];
+  const cellBytes = bigintCellBytes(countBits(shape));
+  const most = RANK_TABLE_BYTES / cellBytes;
+  const over = { cells: Infinity, bytes: Infinity };
   let cells = r + 1; // the start column
-  for (let j = 1; j <= r; j++) {
-    prefix.push(prefix[j - 1] + sizeAt(shape.sizes, j));
+  if (cells > most) return over;
+  // Rows of every layer but the start one (k or K parts to go, when there is a length rule).
+  const layers = shape.rule === 'any' ? [0] : Array.from({ length: Math.max(0, shape.parts - 1) }, (_, i) => i + 1);
+  const prefix = prefixSums(shape.sizes);
+  for (let j = 1; j <= r && layers.length > 0; j++) {
     const b = sizeAt(shape.sizes, j);
-    for (let l = shape.rule === 'any' ? 0 : 1; l < layers; l++) cells += Math.max(0, rowEnd(shape, j, l, prefix) - b + 1);
-    if (cells > MAX_RANK_CELLS) return { cells: Infinity, bytes: Infinity };
+    if (2 * b > shape.n) break;
+    for (const l of layers) cells += Math.max(0, rowEnd(shape, j, l, prefix) - b + 1);
+    if (cells > most) return over;
   }
-  return { cells, bytes: cells * bigintCellBytes(countBits(shape)) };
+  return { cells, bytes: cells * cellBytes };
 }
 
 /**

@@ -1,5 +1,5 @@
 import { sizeCount } from '../partitions/constrained/spec.js';
-import { layersOf, rowEnd, sizeAt, type PartitionShape } from './partition-shape.js';
+import { layersOf, prefixSums, rowEnd, sizeAt, type PartitionShape } from './partition-shape.js';
 
 /**
  * The exact counting table a partition family is ranked with, in BigInt:
@@ -50,11 +50,8 @@ export class PartitionRankTable {
     this.firstState = shape.rule === 'any' ? 0 : shape.parts;
     this.intervalLo = shape.sizes.kind === 'interval' ? shape.sizes.lo : -1;
     const sizes = new Int32Array(r);
-    const prefix: number[] = [0];
-    for (let j = 1; j <= r; j++) {
-      sizes[j - 1] = sizeAt(shape.sizes, j);
-      prefix.push(prefix[j - 1] + sizes[j - 1]);
-    }
+    for (let j = 1; j <= r; j++) sizes[j - 1] = sizeAt(shape.sizes, j);
+    const prefix = prefixSums(shape.sizes);
     this.sizes = sizes;
     this.rows = new Array<bigint[]>(r * this.layers);
     this.start = [this.base(this.firstState, this.n)];
