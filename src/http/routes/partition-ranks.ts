@@ -5,7 +5,7 @@ import type { Ranker } from '../../core/ranks/ranker.js';
 import type { AppContext } from '../endpoint.js';
 import { defineEndpoint } from '../endpoint.js';
 import { ProblemError } from '../problem.js';
-import { membersAsMultiplicities, membersAsParts, rankProblem, respondWithListing } from '../ranking.js';
+import { membersAsMultiplicities, membersAsParts, rankProblem, respondWithListing, runsOf } from '../ranking.js';
 import { respondWithJson } from '../respond.js';
 import { partitionsListQuery, partitionsRankQuery, partitionsUnrankQuery } from '../schemas/ranks.js';
 import { LIST_RESPONSES, PARTITION_ORDER, RANK_RESPONSES } from './docs.js';
@@ -82,10 +82,16 @@ export const partitionsUnrankEndpoint = defineEndpoint({
     const family = partitionFamilyOf(query);
     const ranker = partitionRankerFor(context, family);
     const member = unrankOf(ranker, BigInt(query.rank));
-    const form = query.as === 'multiplicities' ? { multiplicities: JSON.parse(membersAsMultiplicities.json(member)) as number[][] } : { parts: member };
+    const form = query.as === 'multiplicities' ? { multiplicities: multiplicityPairs(member) } : { parts: member };
     return respondWithJson(request, UNRANK_PATH, query, { family, rank: query.rank, total: String(ranker.count), ...form });
   },
 });
+
+/** [part, multiplicity] pairs of parts listed largest first. */
+function multiplicityPairs(parts: readonly number[]): number[][] {
+  const { sizes, multiplicities } = runsOf(parts);
+  return sizes.map((size, i) => [size, multiplicities[i]]);
+}
 
 /** The rank, with a member that is not one answered as 422 naming `parts`. */
 export function rankOf(ranker: Ranker, parts: readonly number[]): bigint {
