@@ -57,9 +57,11 @@ export function sampleRanks(form: FormState, context: AppContext, samples: reado
   return samples.map((parts) => String(found.ranker.rank(parts)));
 }
 
-/** The caption's rank note for sample i (nothing when there are no ranks). */
+/** The caption's rank note for sample i (nothing when there are no ranks); ranks of over 24 digits are shortened. */
 export function rankNote(ranks: readonly string[] | null, i: number): Html | null {
-  return ranks ? html` <span class="rank">rank ${ranks[i]}</span>` : null;
+  if (!ranks) return null;
+  const rank = ranks[i];
+  return html` <span class="rank">rank ${rank.length > 24 ? `${rank.slice(0, 12)}… (${rank.length} digits)` : rank}</span>`;
 }
 
 /** The form's choice between drawing random samples and listing the family in order, and the listing's start. */
