@@ -1,4 +1,4 @@
-import { LimitExceededError } from '../core/errors.js';
+import { LimitExceededError, NotAMemberError } from '../core/errors.js';
 import type { Partition } from '../core/partition.js';
 import type { Ranker } from '../core/ranks/ranker.js';
 import { IMMUTABLE, matchesIfNoneMatch, strongEtag } from './caching.js';
@@ -106,6 +106,25 @@ export function rankProblem(param: 'rank' | 'start', value: bigint, total: bigin
   return new ProblemError(422, `${param} ${message}, got ${value}.`, [{ param, message }]);
 }
 
+/** The rank, with a member that is not one answered as 422 naming `parts`. */
+export function rankOf(ranker: Ranker, parts: readonly number[]): bigint {
+  try {
+    return ranker.rank(parts);
+  } catch (error) {
+    if (error instanceof NotAMemberError) {
+      const message = error.message.charAt(0).toUpperCase() + error.message.slice(1);
+      throw new ProblemError(422, `${message}.`, [{ param: 'parts', message: error.message }]);
+    }
+    throw error;
+  }
+}
+
+/** The member at `rank`, with a rank past the end answered as 422 naming `rank`. */
+export function unrankOf(ranker: Ranker, rank: bigint): number[] {
+  if (rank >= ranker.count) throw rankProblem('rank', rank, ranker.count);
+  return ranker.unrank(rank);
+}
+
 /** Refuses a listing over the configured limits before any member is listed. */
 export function checkListingLimits(job: ListingJob, limits: Limits): void {
   if (job.count > limits.maxCount) {
@@ -152,7 +171,7 @@ export function respondWithListing(request: Request, path: string, query: Record
 }
 
 /** The body of a listing, one piece per member (plus the JSON head and tail). */
-export function* listingPieces(job: ListingJob, deadline?: Deadline): Generator<string> {
+function* listingPieces(job: ListingJob, deadline?: Deadline): Generator<string> {
   const { ranker, encoder, format, start } = job;
   const field = encoder.field;
   if (format === 'json') yield `{"family":${job.familyJson},"total":"${ranker.count}","start":"${start}","members":[`;

@@ -3,12 +3,11 @@ import { compositionRanker, compositionRankTableSize } from '../../core/ranks/co
 import type { Ranker } from '../../core/ranks/ranker.js';
 import type { AppContext } from '../endpoint.js';
 import { defineEndpoint } from '../endpoint.js';
-import { membersAsParts, respondWithListing } from '../ranking.js';
+import { membersAsParts, rankOf, respondWithListing, unrankOf } from '../ranking.js';
 import { respondWithJson } from '../respond.js';
 import { compositionsListQuery, compositionsRankQuery, compositionsUnrankQuery } from '../schemas/ranks.js';
 import { compositionFamilyOf } from './compositions.js';
 import { COMPOSITION_ORDER, LIST_RESPONSES, RANK_RESPONSES } from './docs.js';
-import { rankOf, unrankOf } from './partition-ranks.js';
 
 const LIST_PATH = '/v1/compositions/list';
 const RANK_PATH = '/v1/compositions/rank';

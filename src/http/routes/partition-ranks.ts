@@ -1,11 +1,9 @@
 import type { PartitionFamily } from '../../core/family.js';
-import { NotAMemberError } from '../../core/errors.js';
 import { partitionRanker, partitionRankTableSize } from '../../core/ranks/partition-ranker.js';
 import type { Ranker } from '../../core/ranks/ranker.js';
 import type { AppContext } from '../endpoint.js';
 import { defineEndpoint } from '../endpoint.js';
-import { ProblemError } from '../problem.js';
-import { membersAsMultiplicities, membersAsParts, rankProblem, respondWithListing, runsOf } from '../ranking.js';
+import { membersAsMultiplicities, membersAsParts, rankOf, respondWithListing, runsOf, unrankOf } from '../ranking.js';
 import { respondWithJson } from '../respond.js';
 import { partitionsListQuery, partitionsRankQuery, partitionsUnrankQuery } from '../schemas/ranks.js';
 import { LIST_RESPONSES, PARTITION_ORDER, RANK_RESPONSES } from './docs.js';
@@ -91,23 +89,4 @@ export const partitionsUnrankEndpoint = defineEndpoint({
 function multiplicityPairs(parts: readonly number[]): number[][] {
   const { sizes, multiplicities } = runsOf(parts);
   return sizes.map((size, i) => [size, multiplicities[i]]);
-}
-
-/** The rank, with a member that is not one answered as 422 naming `parts`. */
-export function rankOf(ranker: Ranker, parts: readonly number[]): bigint {
-  try {
-    return ranker.rank(parts);
-  } catch (error) {
-    if (error instanceof NotAMemberError) {
-      const message = error.message.charAt(0).toUpperCase() + error.message.slice(1);
-      throw new ProblemError(422, `${message}.`, [{ param: 'parts', message: error.message }]);
-    }
-    throw error;
-  }
-}
-
-/** The member at `rank`, with a rank past the end answered as 422 naming `rank`. */
-export function unrankOf(ranker: Ranker, rank: bigint): number[] {
-  if (rank >= ranker.count) throw rankProblem('rank', rank, ranker.count);
-  return ranker.unrank(rank);
 }
