@@ -94,6 +94,17 @@ export function rowEnd(shape: PartitionShape, j: number, l: number, prefix: (i: 
   return Math.min(end, distinct ? prefix(j) - prefix(j - Math.min(l, j)) : l * b);
 }
 
+/**
+ * First remainder m stored in the row of (b_1..b_j, l): m = b_j (below it the row equals a lower
+ * one), and with "exactly" the l parts still due take at least l * b_1 (distinct: the l smallest
+ * sizes), so the counts below are 0.
+ */
+export function rowStart(shape: PartitionShape, j: number, l: number, prefix: (i: number) => number): number {
+  const b = sizeAt(shape.sizes, j);
+  if (shape.rule !== 'exactly') return b;
+  return Math.max(b, shape.distinct ? (l <= j ? prefix(l) : Infinity) : l * sizeAt(shape.sizes, 1));
+}
+
 /** i -> b_1 + ... + b_i: arithmetic for an interval, a table for a list (at most MAX_ALLOWED sizes). */
 export function prefixSums(sizes: SizeSet): (i: number) => number {
   if (sizes.kind === 'interval') return (i) => i * sizes.lo + (i * (i - 1)) / 2;
@@ -125,7 +136,7 @@ export function partitionTableSize(shape: PartitionShape): TableSize {
   for (let j = 1; j <= r && layers.length > 0; j++) {
     const b = sizeAt(shape.sizes, j);
     if (2 * b > shape.n) break;
-    for (const l of layers) cells += Math.max(0, rowEnd(shape, j, l, prefix) - b + 1);
+    for (const l of layers) cells += Math.max(0, rowEnd(shape, j, l, prefix) - rowStart(shape, j, l, prefix) + 1);
     if (cells > most) return over;
   }
   return { cells, bytes: cells * cellBytes };

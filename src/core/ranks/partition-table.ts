@@ -1,5 +1,5 @@
 import { sizeCount } from '../partitions/constrained/spec.js';
-import { layersOf, prefixSums, rowEnd, sizeAt, type PartitionShape } from './partition-shape.js';
+import { layersOf, prefixSums, rowEnd, rowStart, sizeAt, type PartitionShape } from './partition-shape.js';
 
 /**
  * The exact counting table a partition family is ranked with, in BigInt:
@@ -16,8 +16,9 @@ import { layersOf, prefixSums, rowEnd, sizeAt, type PartitionShape } from './par
  * members continuing with a part b_j come first, T(j or j - 1, l - 1, m - b_j) of them, then
  * those continuing with smaller parts, T(j - 1, l, m).
  *
- * Memory: row (j, l) keeps only the remainders a walk can meet (see rowEnd): from m = b_j (below
- * it the row equals a lower one) to n - (parts placed) * b_j, plus the start column m = n apart —
+ * Memory: row (j, l) keeps only the remainders where a walk can meet a count other than 0 (see
+ * rowStart, rowEnd): from m = b_j (below it the row equals a lower one; with "exactly", from the
+ * least sum of the parts due) to n - (parts placed) * b_j, plus the start column m = n apart —
  * for unrestricted partitions j <= m <= n - j, a quarter of the square. Counts outside are never
  * asked for (0 is returned). `partitionTableSize` estimates the size beforehand.
  */
@@ -32,6 +33,8 @@ export class PartitionRankTable {
   readonly n: number;
   private readonly sizes: Int32Array;
   private readonly rows: bigint[][];
+  /** The remainder m of each row's first count. */
+  private readonly rowFirst: Int32Array;
   /** T(j, firstState, n) for j = 0..r: the start column. */
   private readonly start: bigint[];
   private readonly layers: number;
@@ -54,17 +57,20 @@ export class PartitionRankTable {
     const prefix = prefixSums(shape.sizes);
     this.sizes = sizes;
     this.rows = new Array<bigint[]>(r * this.layers);
+    this.rowFirst = new Int32Array(r * this.layers);
     this.start = [this.base(this.firstState, this.n)];
     const firstLayer = shape.rule === 'any' ? 0 : 1;
     for (let j = 1; j <= r; j++) {
       const b = sizes[j - 1];
       const take = this.distinct ? j - 1 : j;
       for (let l = 0; l < this.layers; l++) {
-        const length = l >= firstLayer ? Math.max(0, rowEnd(shape, j, l, prefix) - b + 1) : 0;
+        const first = rowStart(shape, j, l, prefix);
+        const length = l >= firstLayer ? Math.max(0, rowEnd(shape, j, l, prefix) - first + 1) : 0;
         const row = new Array<bigint>(length);
         this.rows[(j - 1) * this.layers + l] = row;
+        this.rowFirst[(j - 1) * this.layers + l] = length > 0 ? first : b;
         const lower = l - this.step;
-        for (let k = 0; k < length; k++) row[k] = this.at(j - 1, l, b + k) + this.at(take, lower, k);
+        for (let k = 0; k < length; k++) row[k] = this.at(j - 1, l, first + k) + this.at(take, lower, first + k - b);
       }
       this.start.push(this.start[j - 1] + this.at(take, this.firstState - this.step, this.n - b));
     }
@@ -95,9 +101,10 @@ export class PartitionRankTable {
     if (j > 0 && this.sizes[j - 1] > m) j = this.below(m);
     if (m === this.n && l === this.firstState) return this.start[j];
     if (j === 0) return this.base(l, m);
-    const row = this.rows[(j - 1) * this.layers + l];
-    const k = m - this.sizes[j - 1];
-    return k < row.length ? row[k] : 0n;
+    const at = (j - 1) * this.layers + l;
+    const row = this.rows[at];
+    const k = m - this.rowFirst[at];
+    return k >= 0 && k < row.length ? row[k] : 0n;
   }
 
   /** T(0, l, m): only the empty partition of 0, and with "exactly" only when no part is due. */
