@@ -190,7 +190,7 @@ describe('bad input gets a problem document naming the parameter', () => {
     const response = await get('/v1/partitions/unrank?n=5000&rank=0');
     expect(response.status).toBe(422);
     const body = await response.json();
-    expect(body.detail).toMatch(/over the limit of 32 MiB per table; with these constraints n <= 1,670 fits/);
+    expect(body.detail).toMatch(/over the limit of 32 MiB per table; without constraints, n <= 1,670 fits/);
     const composition = await get(`/v1/compositions/unrank?n=${2 ** 20 + 2}&rank=0`);
     expect(composition.status).toBe(422);
     expect((await composition.json()).detail).toMatch(/n <= 1,048,577/);

@@ -31,7 +31,7 @@ export function compositionRanker(family: CompositionFamily): Ranker {
   if ('empty' in core) return emptyRanker(core.empty);
   if (core.kind === 'free' && isAllCompositions(core)) return new CompositionRanker(gapBitsCounts(core), family);
   const size = coreTableSize(core);
-  if (!fitsRankLimit(size)) throw rankLimitError(`compositions of ${family.n}`, size, largestRankableCompositionN(family));
+  if (!fitsRankLimit(size)) throw rankLimitError('compositions', family, size, largestRankableCompositionN(family));
   return new CompositionRanker(core.kind === 'free' ? freeCounts(core) : fixedCounts(core), family);
 }
 

@@ -47,10 +47,23 @@ export function largestFittingN(n: number, sizeAt: (n: number) => TableSize): nu
 
 const MIB = 2 ** 20;
 
-/** The LimitExceededError of a family whose table is over the limit, saying what would fit. */
-export function rankLimitError(what: string, size: TableSize, fits: number): LimitExceededError {
+/** The constraints of a family in the API's terms, e.g. "distinct = true, maxLength = 10". */
+export function constraintsText(family: Record<string, unknown>): string {
+  return Object.entries(family)
+    .filter(([key, value]) => key !== 'kind' && key !== 'n' && value !== undefined && value !== false)
+    .map(([key, value]) => `${key} = ${Array.isArray(value) ? value.join(',') : String(value)}`)
+    .join(', ');
+}
+
+/**
+ * The LimitExceededError of a family whose table is over the limit, naming its constraints and
+ * the largest n that fits with them.
+ */
+export function rankLimitError(kind: string, family: { readonly n: number }, size: TableSize, fits: number): LimitExceededError {
+  const constraints = constraintsText(family as unknown as Record<string, unknown>);
   const table = Number.isFinite(size.bytes) ? `a counting table of about ${Math.round(size.cells).toLocaleString('en-US')} counts (~${Math.ceil(size.bytes / MIB).toLocaleString('en-US')} MiB)` : 'a counting table';
-  const advice = fits >= 0 ? `; with these constraints n <= ${fits.toLocaleString('en-US')} fits` : '';
+  const what = `${kind} of ${family.n}${constraints ? ` with ${constraints}` : ''}`;
+  const advice = fits >= 0 ? `; ${constraints ? `with ${constraints}` : 'without constraints'}, n <= ${fits.toLocaleString('en-US')} fits` : '';
   return new LimitExceededError(
     `ranking ${what} needs ${table}, over the limit of ${RANK_TABLE_BYTES / MIB} MiB per table${advice}`,
     `rank table <= ${RANK_TABLE_BYTES / MIB} MiB`,

@@ -19,7 +19,7 @@ export function partitionRanker(family: PartitionFamily): Ranker {
   const shape = partitionShape(family);
   if ('empty' in shape) return emptyRanker(shape.empty);
   const size = partitionTableSize(shape);
-  if (!fitsRankLimit(size)) throw rankLimitError(`partitions of ${family.n}`, size, largestRankablePartitionN(family));
+  if (!fitsRankLimit(size)) throw rankLimitError('partitions', family, size, largestRankablePartitionN(family));
   return new PartitionRanker(new PartitionRankTable(shape), family);
 }
 
