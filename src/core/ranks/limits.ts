@@ -1,4 +1,5 @@
 import { LimitExceededError } from '../errors.js';
+import { canonicalFamily, type Family } from '../family.js';
 
 /**
  * The limit of ranking: a family is ranked with its exact counting table in BigInt, built once and
@@ -47,9 +48,9 @@ export function largestFittingN(n: number, sizeAt: (n: number) => TableSize): nu
 
 const MIB = 2 ** 20;
 
-/** The constraints of a family in the API's terms, e.g. "distinct = true, maxLength = 10". */
-export function constraintsText(family: Record<string, unknown>): string {
-  return Object.entries(family)
+/** The constraints of a family in the API's terms, in the canonical order, e.g. "distinct = true, maxLength = 10". */
+export function constraintsText(family: Family): string {
+  return Object.entries(canonicalFamily(family) as unknown as Record<string, unknown>)
     .filter(([key, value]) => key !== 'kind' && key !== 'n' && value !== undefined && value !== false)
     .map(([key, value]) => `${key} = ${Array.isArray(value) ? value.join(',') : String(value)}`)
     .join(', ');
@@ -59,8 +60,8 @@ export function constraintsText(family: Record<string, unknown>): string {
  * The LimitExceededError of a family whose table is over the limit, naming its constraints and
  * the largest n that fits with them.
  */
-export function rankLimitError(kind: string, family: { readonly n: number }, size: TableSize, fits: number): LimitExceededError {
-  const constraints = constraintsText(family as unknown as Record<string, unknown>);
+export function rankLimitError(kind: string, family: Family, size: TableSize, fits: number): LimitExceededError {
+  const constraints = constraintsText(family);
   const table = Number.isFinite(size.bytes) ? `a counting table of about ${Math.round(size.cells).toLocaleString('en-US')} counts (~${Math.ceil(size.bytes / MIB).toLocaleString('en-US')} MiB)` : 'a counting table';
   const what = `${kind} of ${family.n}${constraints ? ` with ${constraints}` : ''}`;
   const advice = fits >= 0 ? `; ${constraints ? `with ${constraints}` : 'without constraints'}, n <= ${fits.toLocaleString('en-US')} fits` : '';
