@@ -1,25 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../src/http/app.js';
+import { readAll } from '../support/read-stream.js';
 
 /** A clock that reads 0 for the first `reads` readings and far in the future after. */
 function clockExpiringAfter(reads: number): () => number {
   let count = 0;
   return () => (++count <= reads ? 0 : 1e12);
-}
-
-async function readAll(response: Response): Promise<{ text: string; failure?: unknown }> {
-  const reader = response.body!.getReader();
-  const decoder = new TextDecoder();
-  let text = '';
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) return { text };
-      text += decoder.decode(value, { stream: true });
-    }
-  } catch (failure) {
-    return { text, failure };
-  }
 }
 
 /**
