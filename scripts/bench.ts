@@ -1,12 +1,13 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http, library) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http, library, ranks) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
 import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
+import { benchRanks } from './bench/ranks.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
@@ -16,6 +17,7 @@ const sections: Record<string, () => Promise<void>> = {
   'set-partitions': benchSetPartitions,
   http: benchHttp,
   library: benchLibrary,
+  ranks: benchRanks,
 };
 
 const chosen = process.argv.slice(2);

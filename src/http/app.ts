@@ -17,6 +17,9 @@ import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { PAGE_PATHS, registerPage } from './routes/page.js';
 import { setPartitionsCountEndpoint, setPartitionsEndpoint } from './routes/set-partitions.js';
+import { compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint } from './routes/composition-ranks.js';
+import { partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint } from './routes/partition-ranks.js';
+import { RankerCache } from './ranking.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -47,6 +50,7 @@ export function createApp(options: AppOptions = {}): Hono {
     partitionFamilies: new LruCache(64),
     compositionFamilies: new LruCache(64),
     setPartitionSamplers: new LruCache(64),
+    rankers: new RankerCache(),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(
@@ -59,6 +63,7 @@ export function createApp(options: AppOptions = {}): Hono {
     compositionCheckEndpoint as unknown as Endpoint,
     setPartitionsEndpoint as unknown as Endpoint,
     setPartitionsCountEndpoint as unknown as Endpoint,
+    ...rankEndpoints(),
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
@@ -98,6 +103,11 @@ export function createApp(options: AppOptions = {}): Hono {
     return problemResponse(problem);
   });
   return app;
+}
+
+/** Listing, rank and unrank, for partitions and compositions. */
+function rankEndpoints(): Endpoint[] {
+  return [partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint, compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint] as unknown as Endpoint[];
 }
 
 /** Parameters that define a family (as opposed to how many samples and in which form). */

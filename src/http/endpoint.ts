@@ -6,6 +6,7 @@ import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
 import type { QueryMemo } from './query.js';
+import type { RankerCache } from './ranking.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
@@ -21,6 +22,8 @@ export interface AppContext {
   readonly compositionFamilies: LruCache<Compositions>;
   /** Planned set-partition samplers (with their families' streams) by family key. */
   readonly setPartitionSamplers: LruCache<PlannedFamily<SetPartitionSampler>>;
+  /** Rankers (with their counting tables) by family key. */
+  readonly rankers: RankerCache;
 }
 
 /** What is prepared once per family and reused by every request for it. */

@@ -180,7 +180,8 @@ function plainPairs(query: string): [string, string][] | undefined {
 
 function decodedPairs(query: string): Iterable<readonly [string, string]> {
   try {
-    return new URLSearchParams(query);
+    // URLSearchParams drops one leading '?' of its input; the query has none of its own to drop.
+    return new URLSearchParams(query.startsWith('?') ? `?${query}` : query);
   } catch {
     throw new ProblemError(400, 'The query string could not be decoded.');
   }

@@ -127,7 +127,9 @@ describe.skipIf(!available)('the page in headless chromium', () => {
       // One cell per unit, one size label per part, the parts in order in the caption.
       await expect(figures.nth(i).locator('svg rect').count()).resolves.toBe(12);
       await expect(figures.nth(i).locator('svg text.part-size').count()).resolves.toBe(api.samples[i].length);
-      await expect(figures.nth(i).locator('figcaption').textContent()).resolves.toBe(`#${i} ${api.samples[i].join(' + ')}`);
+      // The rank of each sample is shown beside it (the family is small enough to rank).
+      const { rank } = await (await fetch(`${base}/v1/compositions/rank?parts=${api.samples[i].join(',')}`)).json();
+      await expect(figures.nth(i).locator('figcaption').textContent()).resolves.toBe(`#${i} ${api.samples[i].join(' + ')} rank ${rank}`);
       await expect(figures.nth(i).locator('svg').getAttribute('aria-label')).resolves.toContain(`Composition ${api.samples[i].join(' + ')}`);
     }
     await expect(page.locator('#samples-title').textContent()).resolves.toBe('5 compositions of 12');
@@ -180,6 +182,27 @@ describe.skipIf(!available)('the page in headless chromium', () => {
     // A set-partition constraint on partitions is reported, not ignored.
     await page.goto(`${base}/?family=partitions&n=7&count=3&blocks=2`);
     await expect(page.locator('#blocks-error').textContent()).resolves.toContain('applies to set-partitions only');
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
+  it('lists a family in order in list mode, a page at a time', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchConsole(page);
+    await page.goto(`${base}/`);
+    await page.getByLabel('Size n').fill('12');
+    await page.getByLabel('Samples', { exact: true }).fill('10');
+    await page.getByLabel('List every member in order, with its rank').check();
+    await page.getByLabel('First rank listed').fill('20');
+    await page.getByRole('button', { name: 'Draw' }).click();
+    await page.waitForURL(/mode=list/);
+    const api = await (await fetch(`${base}/v1/partitions/list?n=12&start=20&count=10`)).json();
+    const captions = await page.locator('.members figcaption').allTextContents();
+    expect(captions).toEqual(api.members.map((m: { rank: string; parts: number[] }) => `rank ${m.rank} ${m.parts.join(' + ')}`));
+    await page.getByRole('link', { name: 'Next 10 →' }).click();
+    await page.waitForURL(/start=30/);
+    await expect(page.locator('.members figcaption').first().textContent()).resolves.toMatch(/^rank 30 /);
     expect(problems).toEqual([]);
     await context.close();
   });

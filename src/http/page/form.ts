@@ -39,7 +39,7 @@ export const PAGE_FAMILIES: readonly PageFamily[] = [
 export type PageQuery = PartitionsQuery | CompositionsQuery | SetPartitionsQuery;
 
 /** Every field of the form, in the order they appear in URLs and snippets. */
-export const FIELD_NAMES = ['family', 'n', 'count', 'seed', ...CONSTRAINTS, 'check', 'samples'] as const;
+export const FIELD_NAMES = ['family', 'n', 'count', 'seed', ...CONSTRAINTS, 'check', 'samples', 'mode', 'start'] as const;
 export type FieldName = (typeof FIELD_NAMES)[number];
 
 /** The API parameters among the fields (the rest belong to the page). */
@@ -60,6 +60,8 @@ export interface FormState {
   readonly apiParams: [string, string][];
   readonly check: boolean;
   readonly samples: number;
+  /** Draw random samples, or list the family in order from rank `start` (see ranks.ts). */
+  readonly mode: 'draw' | 'list';
 }
 
 export function readForm(url: URL): FormState {
@@ -103,8 +105,11 @@ export function readForm(url: URL): FormState {
     if (s.success) samples = s.data;
     else errors.samples = z.prettifyError(s.error).replace(/^✖ /, '').split('\n')[0];
   }
+  const mode = values.mode === 'list' ? 'list' : 'draw';
+  if (values.mode !== undefined && values.mode !== 'list' && values.mode !== 'draw') errors.mode = 'must be draw or list';
+  if (values.start !== undefined && !/^[0-9]+$/.test(values.start)) errors.start = 'must be a whole number (a rank: 0, 1, 2, ...)';
   const valid = Object.keys(errors).length === 0;
-  return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check, samples };
+  return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check: check && mode === 'draw', samples, mode };
 }
 
 function isConstraint(name: string): name is ConstraintName {

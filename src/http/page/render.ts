@@ -24,6 +24,7 @@ import { SET_PARTITION_DRAWING_LIMITS, setPartitionSvg, shortBlocks } from '../.
 import { compositionCheckSection, isUnrestricted } from './composition-check.js';
 import { PAGE_FAMILIES, PAGE_MAX_SHOWN, queryString, type FieldName, type FormState } from './form.js';
 import { html, trusted, type Html } from './html.js';
+import { listSection, modeFields, rankNote, sampleRanks } from './ranks.js';
 import { snippetsFor } from './snippets.js';
 
 /** The page's check may use this share of the request work budget (a page should answer quickly). */
@@ -46,7 +47,8 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
   let problem: string | null = null;
   let check: PartitionCheck | CompositionCheck | null = null;
   let checkProblem: string | null = null;
-  if (form.query) {
+  const listing = form.query !== null && form.mode === 'list';
+  if (form.query && !listing) {
     try {
       drawn = draw(form, context);
     } catch (error) {
@@ -74,7 +76,8 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
   <main id="results" class="results" tabindex="-1">
     ${form.query === null ? errorSummary(form) : null}
     ${problem ? html`<section class="card" aria-labelledby="problem-title"><h2 id="problem-title">This request cannot be served</h2><div class="problem" role="alert"><p>${problem}</p></div></section>` : null}
-    ${drawn ? samplesSection(url, form, drawn) : null}
+    ${listing ? listSection(form, context) : null}
+    ${drawn ? samplesSection(url, form, drawn, sampleRanks(form, context, drawn.samples)) : null}
     ${drawn ? snippetsSection(url, form, drawn) : null}
     ${drawn ? jsonSection(form, drawn) : null}
     ${drawn && form.check && form.family.kind === 'set-partition' ? html`<section class="card" aria-labelledby="check-title"><h2 id="check-title">Distribution check</h2><div class="note"><p>The page checks partitions and compositions against exact laws. For set partitions, the exact number of members is at <a href="/v1/set-partitions/count?${queryString(form.apiParams.filter(([k]) => k !== 'count' && k !== 'seed'))}">/v1/set-partitions/count</a>, and the test suite checks every sampler against enumerations and the exact law of the number of blocks.</p></div></section>` : null}
@@ -176,6 +179,7 @@ function formPanel(form: FormState): Html {
       </div>
       ${field(form, 'seed', 'Seed', { hint: 'Same seed, same samples. Leave empty for a fresh one.', placeholder: 'e.g. demo' })}
     </fieldset>
+    ${modeFields(form)}
     <details class="constraints"${constraintsSet ? html` open` : null}>
       <summary>Constraints <span class="hint">optional</span></summary>
       <div class="check"><input type="checkbox" id="distinct" name="distinct" value="true"${form.values.distinct === 'true' ? html` checked` : null}${form.errors.distinct ? html` aria-invalid="true" aria-describedby="distinct-error"` : null}><label for="distinct">All parts different <span class="hint">(partitions)</span></label></div>
@@ -216,7 +220,7 @@ function errorSummary(form: FormState): Html {
 </section>`;
 }
 
-function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
+function samplesSection(url: URL, form: FormState, drawn: Drawn, ranks: readonly string[] | null): Html {
   if (drawn.blocks) return setPartitionsSection(form, drawn, drawn.blocks);
   const query = form.query!;
   const partitions = form.family.kind === 'partition';
@@ -235,7 +239,7 @@ function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
     else drawing = html`<div class="drawing">${trusted(compositionSvg(parts, { fit: 200 }))}</div>`;
     return html`<li><figure>
   ${drawing}
-  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}</figcaption>
+  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}${rankNote(ranks, i)}</figcaption>
 </figure></li>`;
   });
   return html`<section class="card" aria-labelledby="samples-title">

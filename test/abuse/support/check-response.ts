@@ -1,5 +1,6 @@
 import { compositionProblems, constraintsOf, multiplicityProblems, partitionProblems, setPartitionProblems, type Constraints } from './family-checks.js';
 import type { EndpointSpec } from './fuzz-queries.js';
+import { listingViolations, rankViolations } from './rank-checks.js';
 
 /**
  * The contract every response must keep, whatever was asked (issue 7): a 2xx, 3xx or 4xx
@@ -131,6 +132,8 @@ export async function checkResponse(endpoint: EndpointSpec, query: string, respo
   else if (status >= 200 && status < 300) {
     if (endpoint.path.endsWith('/diagram')) violations.push(...diagramViolations(params, contentType, text));
     else if (endpoint.path.endsWith('/check')) violations.push(...checkViolations(params, contentType, text));
+    else if (endpoint.path.endsWith('/list')) violations.push(...listingViolations(endpoint.path, params, contentType, text, response.headers.get('partsmith-total')));
+    else if (endpoint.path.endsWith('/rank') || endpoint.path.endsWith('/unrank')) violations.push(...rankViolations(endpoint.path, params, contentType, text));
     else if (endpoint.params.includes('format')) violations.push(...sampleViolations(endpoint.path, params, contentType, text));
     else {
       try {
