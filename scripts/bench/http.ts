@@ -13,8 +13,8 @@ import { SampleStreams, sampleSource } from '../../src/core/seeding.js';
 import { createApp } from '../../src/http/app.js';
 import { strongEtag } from '../../src/http/caching.js';
 import { parseQuery, QueryReader } from '../../src/http/query.js';
-import { partitionFamilyOf } from '../../src/http/routes/partitions.js';
-import { partitionsQuery } from '../../src/http/schemas/partitions.js';
+import { partitionFamilyOf } from '../../src/library/partitions.js';
+import { partitionsQuery } from '../../src/schemas/partitions.js';
 
 const ROUNDS = 7;
 const CALLS = 2000;

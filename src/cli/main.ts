@@ -1,11 +1,11 @@
 import { PartsmithError } from '../client/errors.js';
 import { APP_VERSION } from '../version.js';
-import { createPartsmith } from '../index.js';
 import { flagOf, parseArgs, UsageError, type ParsedFlag } from './flags.js';
 import { Progress, Sink } from './output.js';
+import { runListing } from './listing.js';
 import { runSamples } from './samples.js';
 import { startServer } from './serve.js';
-import { localSource, remoteSource, type Source } from './source.js';
+import { localFetch, localSource, remoteSource, type Source } from './source.js';
 import { endpointSpecs, isSwitchParam, paramHelp, type EndpointSpec } from './spec.js';
 
 /** Flags of the CLI itself, never sent to the API. */
@@ -19,16 +19,34 @@ const CLI_SWITCHES = new Set(['quiet']);
 const COMMANDS: Record<string, { path: string; usage: string }> = {
   partitions: { path: '/v1/partitions', usage: 'partsmith partitions --n 100 --count 5 --seed demo [--distinct --max-part 10 ...] [--format text|json|ndjson] [--out FILE]' },
   compositions: { path: '/v1/compositions', usage: 'partsmith compositions --n 10 --count 5 --seed demo [--length 3 ...] [--format text|json|ndjson] [--out FILE]' },
+  'set-partitions': { path: '/v1/set-partitions', usage: 'partsmith set-partitions --n 10 --count 5 --seed demo [--blocks 3 --min-block-size 2 ...] [--as blocks|rgs] [--format text|json|ndjson] [--out FILE]' },
   'count partitions': { path: '/v1/partitions/count', usage: 'partsmith count [partitions] --n 100 [--distinct ...]' },
   'count compositions': { path: '/v1/compositions/count', usage: 'partsmith count compositions --n 10 [--length 3 ...]' },
+  'count set-partitions': { path: '/v1/set-partitions/count', usage: 'partsmith count set-partitions --n 10 [--blocks 3 ...]' },
+  'list partitions': { path: '/v1/partitions/list', usage: 'partsmith list [partitions] --n 12 [--max-length 4 ...] [--start RANK] [--count K] [--format text|json|ndjson] [--out FILE]' },
+  'list compositions': { path: '/v1/compositions/list', usage: 'partsmith list compositions --n 10 [--allowed 1,2,3 ...] [--start RANK] [--count K] [--format text|json|ndjson] [--out FILE]' },
+  'rank partitions': { path: '/v1/partitions/rank', usage: 'partsmith rank [partitions] --parts 5,4,1 [--n 10] [--max-part 5 ...]' },
+  'rank compositions': { path: '/v1/compositions/rank', usage: 'partsmith rank compositions --parts 1,3,1 [--n 5] [--length 3 ...]' },
+  'unrank partitions': { path: '/v1/partitions/unrank', usage: 'partsmith unrank [partitions] --n 12 --rank 17 [--distinct ...]' },
+  'unrank compositions': { path: '/v1/compositions/unrank', usage: 'partsmith unrank compositions --n 10 --rank 17 [--length 3 ...]' },
 };
 
-const OVERVIEW = `partsmith ${APP_VERSION}: exactly uniform random integer partitions and compositions of n, reproducible from a seed.
+/** Commands followed by the kind of family (partitions when it is left out). */
+const FAMILY_COMMANDS = ['count', 'list', 'rank', 'unrank'];
+
+/** The kinds those commands take. */
+const FAMILY_KINDS = ['partitions', 'compositions', 'set-partitions'];
+
+const OVERVIEW = `partsmith ${APP_VERSION}: exactly uniform random integer partitions and compositions of n, and set partitions of n items, reproducible from a seed.
 
 Commands:
   partsmith partitions ...      uniformly random partitions of n
   partsmith compositions ...    uniformly random compositions of n
-  partsmith count [partitions|compositions] ...   the exact number of members of a family
+  partsmith set-partitions ...  uniformly random set partitions of the items 1..n
+  partsmith count [partitions|compositions|set-partitions] ...   the exact number of members of a family
+  partsmith list [partitions|compositions] ...    every member, in order, each with its rank
+  partsmith rank [partitions|compositions] --parts 5,4,1 ...   the rank of a member
+  partsmith unrank [partitions|compositions] --n 12 --rank 17 ...   the member at a rank
   partsmith serve [--port 8787] [--host 127.0.0.1]   run the HTTP service
 
 Every command takes --help. Flags are the API's query parameters in kebab case (maxPart is
@@ -38,7 +56,11 @@ Examples:
   partsmith partitions --n 100 --count 5 --seed demo --format text
   partsmith partitions --n 1000 --count 1000000 --seed load --format ndjson --out samples.ndjson
   partsmith count --n 100
+  partsmith list --n 12 --max-length 4 --format text
   partsmith partitions --n 100 --count 5 --seed demo --url http://127.0.0.1:8787
+
+Orders: partitions list their parts largest first, in reverse lexicographic order (n first,
+1 + ... + 1 last); compositions in lexicographic order of their parts (1 + ... + 1 first).
 `;
 
 /** Where the CLI writes; the process's own streams unless a caller (a test) passes others. */
@@ -77,16 +99,18 @@ export async function runCli(argv: readonly string[], io: CliIo = { stdout: proc
 
     let key = command;
     let rest = argv.slice(argv.indexOf(command) + 1);
-    if (command === 'count') {
-      const kind = rest[0] === 'partitions' || rest[0] === 'compositions' ? rest[0] : 'partitions';
+    if (FAMILY_COMMANDS.includes(command)) {
+      const kind = FAMILY_KINDS.includes(rest[0]) ? rest[0] : 'partitions';
+      label = `partsmith ${rest[0] === kind ? `${command} ${kind}` : command}`;
       if (rest[0] === kind) rest = rest.slice(1);
-      key = `count ${kind}`;
+      key = `${command} ${kind}`;
+    } else {
+      label = `partsmith ${key}`;
     }
-    label = `partsmith ${key === 'count partitions' && command === 'count' && !argv.includes('partitions') ? 'count' : key}`;
     const entry = COMMANDS[key];
-    if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, count, serve (see partsmith --help)`);
+    if (!entry) throw new UsageError(`unknown command ${JSON.stringify(command)}; commands: partitions, compositions, set-partitions, count, list, rank, unrank, serve (see partsmith --help)`);
 
-    const specs = endpointSpecs((await (await createPartsmith().fetch('/openapi.json')).json()) as Record<string, unknown>);
+    const specs = endpointSpecs((await (await localFetch()('/openapi.json')).json()) as Record<string, unknown>);
     const spec = specs.get(entry.path);
     if (!spec) throw new UsageError(`${key} is not served by this version (${APP_VERSION}) yet`);
 
@@ -111,16 +135,20 @@ export async function runCli(argv: readonly string[], io: CliIo = { stdout: proc
     sink = new Sink(cli.get('out'), io.stdout);
     const quiet = cli.get('quiet') === 'true';
     try {
-      if (key.startsWith('count ')) {
+      const single = key.startsWith('count ') || key.startsWith('rank ') || key.startsWith('unrank ');
+      const makeProgress = (unit: string) => (total: number) => new Progress(total, io.stderr, !quiet && io.stderr.isTTY === true, progressDelayMs(), unit);
+      if (single) {
         const query = new URLSearchParams(params.map((p) => [p.name, p.value])).toString();
         const answer = await source.get(spec.path + (query ? `?${query}` : ''));
         const decoder = new TextDecoder();
         for await (const chunk of answer.body) await sink.write(decoder.decode(chunk, { stream: true }));
+      } else if (key.startsWith('list ')) {
+        await runListing({ spec, params, source, sink, makeProgress: makeProgress('members') });
       } else {
-        await runSamples({ spec, params, source, sink, makeProgress: (total) => new Progress(total, io.stderr, !quiet && io.stderr.isTTY === true, progressDelayMs()) });
+        await runSamples({ spec, params, source, sink, makeProgress: makeProgress('samples') });
       }
       // JSON documents end without a newline (as the API sends them); add one for a person reading a terminal.
-      if (sink.isTerminal && (key.startsWith('count ') || (params.find((p) => p.name === 'format')?.value ?? 'json') === 'json')) await sink.write('\n');
+      if (sink.isTerminal && (single || (params.find((p) => p.name === 'format')?.value ?? 'json') === 'json')) await sink.write('\n');
       await sink.finish();
     } finally {
       await source.close();

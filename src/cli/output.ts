@@ -65,6 +65,8 @@ export class Progress {
     private readonly enabled: boolean = stderr.isTTY === true,
     /** Quiet period before the bar appears (PARTSMITH_PROGRESS_AFTER_MS; default one second). */
     private readonly afterMs: number = 1000,
+    /** What is counted, e.g. "samples" or "members". */
+    private readonly unit: string = 'samples',
   ) {}
 
   advance(samples: number): void {
@@ -79,7 +81,7 @@ export class Progress {
     const filled = Math.round(fraction * width);
     const rate = this.done / ((now - this.startedAt) / 1000);
     this.stderr.write(
-      `\r[${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${(fraction * 100).toFixed(0).padStart(3)}% ${this.done}/${this.total} samples, ${Math.round(rate)}/s `,
+      `\r[${'#'.repeat(filled)}${'.'.repeat(width - filled)}] ${(fraction * 100).toFixed(0).padStart(3)}% ${this.done}/${this.total} ${this.unit}, ${Math.round(rate)}/s `,
     );
   }
 

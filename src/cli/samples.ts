@@ -18,14 +18,14 @@ const DIGITS = /^[0-9]{1,16}$/;
 /** Marks the end of the head of a JSON samples document: `{"family":...,"method":"...","samples":[`. */
 const SAMPLES_KEY = '"samples":[';
 
-function queryOf(params: readonly ParsedFlag[]): string {
+export function queryOf(params: readonly ParsedFlag[]): string {
   const search = new URLSearchParams();
   for (const { name, value } of params) search.append(name, value);
   const text = search.toString();
   return text ? `?${text}` : '';
 }
 
-function withValue(params: readonly ParsedFlag[], name: string, value: string): ParsedFlag[] {
+export function withValue(params: readonly ParsedFlag[], name: string, value: string): ParsedFlag[] {
   const out = params.filter((p) => p.name !== name);
   out.push({ name, value });
   return out;
@@ -82,7 +82,7 @@ export async function runSamples(run: SamplesRun): Promise<void> {
 }
 
 /** Copies a body to the sink; counts lines (one per sample in text and NDJSON) for the progress bar. */
-async function copy(body: AsyncIterable<Uint8Array>, sink: Sink, progress: Progress | undefined): Promise<void> {
+export async function copy(body: AsyncIterable<Uint8Array>, sink: Sink, progress: Progress | undefined): Promise<void> {
   const decoder = new TextDecoder();
   for await (const chunk of body) {
     const text = decoder.decode(chunk, { stream: true });
@@ -98,18 +98,19 @@ async function copy(body: AsyncIterable<Uint8Array>, sink: Sink, progress: Progr
 
 /**
  * One page of a joined JSON document: the first page keeps its head, later pages drop it and
- * continue the samples array after a comma; every page but the last holds back its closing `]}`.
+ * continue the array (`"samples":[`, or another `key`) after a comma; every page but the last
+ * holds back its closing `]}`.
  */
-async function copyJsonPage(body: AsyncIterable<Uint8Array>, sink: Sink, first: boolean, last: boolean): Promise<void> {
+export async function copyJsonPage(body: AsyncIterable<Uint8Array>, sink: Sink, first: boolean, last: boolean, key: string = SAMPLES_KEY): Promise<void> {
   const decoder = new TextDecoder();
   let head = !first;
   let held = '';
   const emit = async (text: string) => {
     held += text;
     if (head) {
-      const at = held.indexOf(SAMPLES_KEY);
+      const at = held.indexOf(key);
       if (at < 0) return;
-      held = `,${held.slice(at + SAMPLES_KEY.length)}`;
+      held = `,${held.slice(at + key.length)}`;
       head = false;
     }
     // Keep the last two characters back: they may be the closing "]}".

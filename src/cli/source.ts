@@ -1,6 +1,6 @@
 import type { PartsmithClient } from '../client/index.js';
 import { PartsmithError } from '../client/errors.js';
-import { createPartsmith } from '../index.js';
+import { createApp } from '../http/app.js';
 
 /** An answer whose status was 2xx: headers and the body bytes as they arrive. */
 export interface Answer {
@@ -18,11 +18,20 @@ export interface Source {
   close(): Promise<void>;
 }
 
+/** Origin of the in-process requests; never contacted. */
+const LOCAL_ORIGIN = 'http://partsmith.local';
+
+/** GET of a path and query answered by the service's app in this process (no server, no network). */
+export function localFetch(): (pathAndQuery: string) => Promise<Response> {
+  const app = createApp();
+  return async (pathAndQuery) => app.fetch(new Request(LOCAL_ORIGIN + pathAndQuery));
+}
+
 export function localSource(): Source {
-  const partsmith = createPartsmith();
+  const fetch = localFetch();
   return {
     async get(pathAndQuery) {
-      const response = await partsmith.fetch(pathAndQuery);
+      const response = await fetch(pathAndQuery);
       if (response.status < 200 || response.status >= 300) {
         throw PartsmithError.fromBody(response.status, response.headers.get('content-type') ?? undefined, await response.text(), pathAndQuery);
       }

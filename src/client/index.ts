@@ -11,6 +11,9 @@ import {
   type PartitionsDocument,
   type PartitionsParams,
   type SampleLine,
+  type SetPartitionsCountParams,
+  type SetPartitionsDocument,
+  type SetPartitionsParams,
 } from './params.js';
 import { backoffDelay, isConnectionError, parseRetryAfter, RETRYABLE_STATUSES, sleep } from './retry.js';
 
@@ -64,6 +67,12 @@ export interface PartsmithClient {
   streamCompositions(params: Sampling<CompositionsParams>, options?: CallOptions): AsyncGenerator<SampleLine<number[]>>;
   /** GET /v1/compositions/count. */
   countCompositions(params: CompositionsCountParams, options?: CallOptions): Promise<CountDocument>;
+  /** GET /v1/set-partitions as one JSON document. */
+  setPartitions(params: Sampling<SetPartitionsParams>, options?: CallOptions): Promise<SetPartitionsDocument>;
+  /** GET /v1/set-partitions as NDJSON, read incrementally (records carry `blocks`, or `rgs` with as=rgs). */
+  streamSetPartitions(params: Sampling<SetPartitionsParams>, options?: CallOptions): AsyncGenerator<SampleLine<number[]>>;
+  /** GET /v1/set-partitions/count. */
+  countSetPartitions(params: SetPartitionsCountParams, options?: CallOptions): Promise<CountDocument>;
   /** GET /healthz. */
   health(options?: CallOptions): Promise<HealthDocument>;
   /** GET /openapi.json. */
@@ -147,6 +156,9 @@ export function createClient(options: ClientOptions): PartsmithClient {
     compositions: (params, call) => json('/v1/compositions', { ...params, format: 'json' }, call),
     streamCompositions: (params, call) => stream('/v1/compositions', params, call),
     countCompositions: (params, call) => json('/v1/compositions/count', params, call),
+    setPartitions: (params, call) => json('/v1/set-partitions', { ...params, format: 'json' }, call),
+    streamSetPartitions: (params, call) => stream('/v1/set-partitions', params, call),
+    countSetPartitions: (params, call) => json('/v1/set-partitions/count', params, call),
     health: (call) => json('/healthz', {}, call),
     openapi: (call) => json('/openapi.json', {}, call),
     get,

@@ -1,6 +1,7 @@
 import type { z } from 'zod';
-import type { compositionsCountQuery, compositionsQuery } from '../http/schemas/compositions.js';
-import type { partitionsCountQuery, partitionsQuery } from '../http/schemas/partitions.js';
+import type { compositionsCountQuery, compositionsQuery } from '../schemas/compositions.js';
+import type { partitionsCountQuery, partitionsQuery } from '../schemas/partitions.js';
+import type { setPartitionsCountQuery, setPartitionsQuery } from '../schemas/set-partitions.js';
 
 /**
  * Request parameters as typed values, derived from the endpoints' zod query schemas (the single
@@ -17,6 +18,9 @@ export type PartitionsCountParams = ParamsOf<typeof partitionsCountQuery>;
 export type CompositionsParams = ParamsOf<typeof compositionsQuery>;
 export type CompositionsCountParams = ParamsOf<typeof compositionsCountQuery>;
 
+export type SetPartitionsParams = ParamsOf<typeof setPartitionsQuery>;
+export type SetPartitionsCountParams = ParamsOf<typeof setPartitionsCountQuery>;
+
 /** The JSON document of a sampling endpoint (format=json). */
 export interface SamplesDocument<Sample> {
   readonly family: Readonly<Record<string, unknown>> & { readonly kind: string; readonly n: number };
@@ -30,6 +34,9 @@ export interface SamplesDocument<Sample> {
 export type PartitionSample = number[] | [number, number][];
 export type PartitionsDocument = SamplesDocument<PartitionSample>;
 export type CompositionsDocument = SamplesDocument<number[]>;
+/** A set partition as blocks (lists of items 1..n) or, with as=rgs, as its restricted growth string. */
+export type SetPartitionSample = number[][] | number[];
+export type SetPartitionsDocument = SamplesDocument<SetPartitionSample>;
 
 /** One NDJSON line of a sampling endpoint. */
 export interface SampleLine<Sample> {
@@ -38,6 +45,10 @@ export interface SampleLine<Sample> {
   readonly parts?: Sample;
   /** Present for as=multiplicities. */
   readonly multiplicities?: [number, number][];
+  /** Set partitions: present for as=blocks. */
+  readonly blocks?: number[][];
+  /** Set partitions: present for as=rgs. */
+  readonly rgs?: number[];
 }
 
 /** The document of a count endpoint; the count is a decimal string since it may exceed 2^53. */

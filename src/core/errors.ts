@@ -19,3 +19,20 @@ export class LimitExceededError extends RangeError {
     this.limit = limit;
   }
 }
+
+/** Why a list of parts is not a member of a family (see NotAMemberError). */
+export type NotAMemberReason = 'malformed' | 'out-of-order' | 'wrong-sum' | 'not-in-family';
+
+/**
+ * A list of parts given to `rank` is not a member of the family: not whole numbers, not in the
+ * family's order (partitions list their parts largest first), not summing to n, or breaking a
+ * constraint. The message says which, naming the offending part.
+ */
+export class NotAMemberError extends RangeError {
+  override readonly name = 'NotAMemberError';
+  readonly reason: NotAMemberReason;
+  constructor(message: string, reason: NotAMemberReason) {
+    super(message);
+    this.reason = reason;
+  }
+}

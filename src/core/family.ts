@@ -3,8 +3,9 @@ export const MAX_N = 1_000_000_000;
 
 /**
  * The families partsmith samples from. A family is a plain, normalised description of a set of
- * partitions or compositions of n; its canonical key seeds the random streams, so two requests
- * for the same family (however their parameters were spelled) get the same samples.
+ * partitions or compositions of n, or of set partitions of n items; its canonical key seeds the
+ * random streams, so two requests for the same family (however their parameters were spelled)
+ * get the same samples.
  */
 export interface PartitionFamily {
   readonly kind: 'partition';
@@ -35,9 +36,28 @@ export interface CompositionFamily {
   readonly allowed?: readonly number[];
 }
 
-export type Family = PartitionFamily | CompositionFamily;
+/**
+ * Set partitions of the n labelled items 1..n: ways to split them into non-empty blocks (groups),
+ * the order of blocks and of items within a block not mattering.
+ */
+export interface SetPartitionFamily {
+  readonly kind: 'set-partition';
+  readonly n: number;
+  /** Exactly this many blocks. */
+  readonly blocks?: number;
+  /** At most this many blocks (not together with blocks). */
+  readonly maxBlocks?: number;
+  /** Every block has at least this many items (>= 1; default 1). */
+  readonly minBlockSize?: number;
+  /** Every block has at most this many items. */
+  readonly maxBlockSize?: number;
+}
 
-const FIELD_ORDER = ['kind', 'n', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+export type Family = PartitionFamily | CompositionFamily | SetPartitionFamily;
+
+// New fields go at the end: a family's key (and so its random streams) must not change when
+// fields it does not have are added.
+const FIELD_ORDER = ['kind', 'n', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
 
 /**
  * The family with its fields in a fixed order and absent fields dropped: the form echoed in

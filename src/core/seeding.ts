@@ -5,8 +5,8 @@ import type { RandomSource } from './random.js';
 /**
  * Version of everything that decides what a seed produces. Any change to a sampler, to the
  * stream derivation below or to the planner's choice of method must bump it (and the golden
- * tests: test/partitions/golden.test.ts, test/constrained/golden.test.ts and the recorded
- * compositions in test/compositions/properties.test.ts).
+ * tests: test/partitions/golden.test.ts, test/constrained/golden.test.ts, the recorded
+ * compositions in test/compositions/properties.test.ts and test/set-partitions/golden.test.ts).
  *
  * 1: Alea seeded by its own string hash (Mash) of the stream key.
  * 2: Alea's state set from MurmurHash3 of the stream key (same key): Mash costs ~70 ns per

@@ -1,5 +1,7 @@
 import { Hono } from 'hono';
+import { PartsmithError } from '../client/errors.js';
 import { LimitExceededError } from '../core/errors.js';
+import { familyProblem, limitDetail } from '../library/problems.js';
 import { requestContext, type Clock } from './deadline.js';
 import { hardening, otherMethods, oversizedUrlProblem } from './middleware/index.js';
 import type { AppContext, Endpoint } from './endpoint.js';
@@ -14,6 +16,10 @@ import { checkEndpoint } from './routes/check.js';
 import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { PAGE_PATHS, registerPage } from './routes/page.js';
+import { setPartitionsCountEndpoint, setPartitionsEndpoint } from './routes/set-partitions.js';
+import { compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint } from './routes/composition-ranks.js';
+import { partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint } from './routes/partition-ranks.js';
+import { RankerCache } from './ranking.js';
 
 export interface AppOptions {
   readonly limits?: Partial<Limits>;
@@ -41,8 +47,10 @@ export function createApp(options: AppOptions = {}): Hono {
   const context: AppContext = {
     limits: { ...DEFAULT_LIMITS, ...options.limits },
     drawSeed: options.drawSeed ?? drawRandomSeed,
-    partitionSamplers: new LruCache(64),
-    compositionSamplers: new LruCache(64),
+    partitionFamilies: new LruCache(64),
+    compositionFamilies: new LruCache(64),
+    setPartitionSamplers: new LruCache(64),
+    rankers: new RankerCache(),
   };
   const endpoints: Endpoint[] = [];
   endpoints.push(
@@ -53,6 +61,9 @@ export function createApp(options: AppOptions = {}): Hono {
     compositionsEndpoint as unknown as Endpoint,
     compositionsCountEndpoint as unknown as Endpoint,
     compositionCheckEndpoint as unknown as Endpoint,
+    setPartitionsEndpoint as unknown as Endpoint,
+    setPartitionsCountEndpoint as unknown as Endpoint,
+    ...rankEndpoints(),
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
@@ -75,9 +86,9 @@ export function createApp(options: AppOptions = {}): Hono {
         try {
           response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock), memo);
         } catch (error) {
-          throw familyProblem(error, query);
+          throw familyError(error, query);
         }
-        return response instanceof Promise ? response.catch((error: unknown) => Promise.reject(familyProblem(error, query))) : response;
+        return response instanceof Promise ? response.catch((error: unknown) => Promise.reject(familyError(error, query))) : response;
       }),
     );
   }
@@ -94,31 +105,29 @@ export function createApp(options: AppOptions = {}): Hono {
   return app;
 }
 
+/** Listing, rank and unrank, for partitions and compositions. */
+function rankEndpoints(): Endpoint[] {
+  return [partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint, compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint] as unknown as Endpoint[];
+}
+
 /** Parameters that define a family (as opposed to how many samples and in which form). */
-const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
 
 /**
- * An empty family or contradictory bounds (a core RangeError that is not about a limit) is
- * answered with 422 naming the family's parameters: together they describe a set with no member.
+ * An error the library or the core raised for the request's family, as the library reports it
+ * (see familyProblem): a limit, or an empty family naming the family's parameters.
  */
-function familyProblem(error: unknown, query: Record<string, unknown>): unknown {
-  if (!(error instanceof RangeError) || error instanceof LimitExceededError) return error;
-  const given = FAMILY_PARAMS.filter((param) => query[param] !== undefined);
-  return new ProblemError(
-    422,
-    error.message,
-    given.map((param) => ({ param, message: 'together with the other family parameters, describes no partition or composition (see detail)' })),
-  );
+function familyError(error: unknown, query: Record<string, unknown>): unknown {
+  if (error instanceof PartsmithError) return new ProblemError(error.status, error.detail, error.errors);
+  const problem = familyProblem(error, FAMILY_PARAMS.filter((param) => query[param] !== undefined));
+  return problem ? new ProblemError(problem.status, problem.detail, problem.errors) : error;
 }
 
 /** Maps anything thrown while handling a request to a problem; internals never leak into the body. */
 export function toProblem(error: unknown): ProblemError {
   if (error instanceof ProblemError) return error;
-  // A limit is always named as one, so clients (and the fuzz contract) can tell "too big for
-  // this service" from "malformed": "... for n <= 100000, got 1000000000 (limit: n <= 100000)".
-  if (error instanceof LimitExceededError && !/\blimit\b/i.test(error.message)) {
-    return new ProblemError(422, `${error.message} (limit: ${error.limit})`);
-  }
+  if (error instanceof PartsmithError) return new ProblemError(error.status, error.detail, error.errors);
+  if (error instanceof LimitExceededError) return new ProblemError(422, limitDetail(error));
   // The core raises RangeErrors (EmptyFamilyError and LimitExceededError among them) for
   // requests that are well-formed but cannot be served; their messages are written for users.
   if (error instanceof RangeError) return new ProblemError(422, error.message);

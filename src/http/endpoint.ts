@@ -1,19 +1,29 @@
 import type { z } from 'zod';
-import type { CompositionSampler, PartitionSampler } from '../core/sampler.js';
+import type { Compositions } from '../library/compositions.js';
+import type { Partitions } from '../library/partitions.js';
+import type { SetPartitionSampler } from '../core/set-partitions/sampler.js';
 import type { SampleStreams } from '../core/seeding.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
 import type { QueryMemo } from './query.js';
+import type { RankerCache } from './ranking.js';
 
 /** Per-isolate state and settings shared by every request (no request-to-request state). */
 export interface AppContext {
   readonly limits: Limits;
   /** Draws a seed for requests that give none. */
   readonly drawSeed: () => string;
-  /** Planned partition samplers (with their families' streams) by family key. */
-  readonly partitionSamplers: LruCache<PlannedFamily<PartitionSampler>>;
-  /** Planned composition samplers (with their families' streams) by family key. */
-  readonly compositionSamplers: LruCache<PlannedFamily<CompositionSampler>>;
+  /**
+   * The library's partition families by family key: each plans its sampler and hashes its
+   * streams' prefix once, for every request for that family.
+   */
+  readonly partitionFamilies: LruCache<Partitions>;
+  /** The library's composition families by family key. */
+  readonly compositionFamilies: LruCache<Compositions>;
+  /** Planned set-partition samplers (with their families' streams) by family key. */
+  readonly setPartitionSamplers: LruCache<PlannedFamily<SetPartitionSampler>>;
+  /** Rankers (with their counting tables) by family key. */
+  readonly rankers: RankerCache;
 }
 
 /** What is prepared once per family and reused by every request for it. */

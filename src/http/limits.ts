@@ -1,3 +1,7 @@
+import { DEFAULT_MAX_COUNT, MAX_COUNT, MAX_INDEX, MAX_N } from '../schemas/bounds.js';
+
+export { MAX_COUNT, MAX_N };
+
 /**
  * The service's stated limits (documented in the README). Work is counted in the samplers'
  * own units (basic steps; see SamplerEstimate) so one budget covers every method.
@@ -24,18 +28,12 @@ export interface Limits {
 }
 
 export const DEFAULT_LIMITS: Limits = {
-  maxCount: 10_000,
+  maxCount: DEFAULT_MAX_COUNT,
   maxNumbers: 10_000_000,
   maxWork: 2e7,
-  maxIndex: 1e15,
+  maxIndex: MAX_INDEX,
   deadlineMs: 5_000,
 };
-
-/** The largest n any family accepts. */
-export const MAX_N = 1_000_000_000;
-
-/** The most samples a server can be configured to return in one response (the schema's bound). */
-export const MAX_COUNT = 10_000_000;
 
 // ---------------------------------------------------------------------------------------------
 // Configuration from the environment. The entry points (src/node.ts, src/worker.ts) hand their

@@ -37,7 +37,7 @@ export function openApiDocument(endpoints: readonly Endpoint[]): Record<string, 
     info: {
       title: 'partsmith',
       version: APP_VERSION,
-      description: 'Uniformly random integer partitions and compositions of exact size n, seeded and replayable.',
+      description: 'Uniformly random integer partitions and compositions of exact size n, and set partitions of n items, seeded and replayable.',
     },
     paths,
   };

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
-import { ProblemError, type ParamError } from './problem.js';
+import { invalidParamsDetail, paramErrors, printableParam, type ParamError } from '../schemas/issues.js';
+import { ProblemError } from './problem.js';
 import { LruCache } from './lru-cache.js';
 
 /** Longest accepted query string (characters); longer ones are refused before parsing. */
@@ -132,7 +133,7 @@ function readQuery<S extends z.ZodType>(
   for (const [key, value] of queryPairs(query)) {
     if (Object.hasOwn(raw, key)) {
       repeated ??= new Set();
-      if (!repeated.has(key)) errors.push({ param: printable(key), message: 'is given more than once; give it once' });
+      if (!repeated.has(key)) errors.push({ param: printableParam(key), message: 'is given more than once; give it once' });
       repeated.add(key);
       continue;
     }
@@ -141,21 +142,9 @@ function readQuery<S extends z.ZodType>(
   }
   const result = validate(raw, repeated !== undefined);
   if (!result.success) {
-    for (const issue of result.error.issues) {
-      if (issue.code === 'unrecognized_keys') {
-        for (const key of issue.keys) errors.push({ param: printable(key), message: 'is not a parameter of this endpoint' });
-      } else {
-        const param = issue.path.length > 0 ? String(issue.path[0]) : '(query)';
-        // zod 4 leaves issue.input unset by default, so "absent" is judged from the query itself.
-        const message = issue.code === 'invalid_type' && !Object.hasOwn(raw, param) ? 'is required' : issue.message;
-        if (!repeated?.has(param)) errors.push({ param, message });
-      }
-    }
+    errors.push(...paramErrors(result.error, (param) => Object.hasOwn(raw, param), (param) => repeated?.has(param) === true));
   }
-  if (errors.length > 0) {
-    const detail = errors.map((e) => `${e.param} ${e.message}`).join('; ');
-    throw new ProblemError(400, `Invalid query: ${detail}.`, errors);
-  }
+  if (errors.length > 0) throw new ProblemError(400, invalidParamsDetail(errors), errors);
   return result.data as z.output<S>;
 }
 
@@ -191,7 +180,8 @@ function plainPairs(query: string): [string, string][] | undefined {
 
 function decodedPairs(query: string): Iterable<readonly [string, string]> {
   try {
-    return new URLSearchParams(query);
+    // URLSearchParams drops one leading '?' of its input; the query has none of its own to drop.
+    return new URLSearchParams(query.startsWith('?') ? `?${query}` : query);
   } catch {
     throw new ProblemError(400, 'The query string could not be decoded.');
   }
@@ -206,11 +196,4 @@ const PLUS = 0x2b;
 function deepFreeze<T extends Record<string, unknown>>(value: T): Readonly<T> {
   for (const field of Object.values(value)) if (typeof field === 'object' && field !== null) Object.freeze(field);
   return Object.freeze(value);
-}
-
-/** Parameter names are echoed back; keep them short and free of control characters. */
-function printable(key: string): string {
-  if (key === '') return '(empty name)'; // from "=5": say so rather than print nothing
-  const clean = key.replace(/[\u0000-\u001f\u007f]/g, '?');
-  return clean.length > 64 ? `${clean.slice(0, 61)}...` : clean;
 }

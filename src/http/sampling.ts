@@ -5,7 +5,7 @@ import type { SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
 import { RequestStopped, type Deadline } from './deadline.js';
-import type { SampleFormat } from './schemas/common.js';
+import type { SampleFormat } from '../schemas/common.js';
 
 /** What a sampling endpoint hands to the shared response writer. */
 export interface SamplingJob<S> {

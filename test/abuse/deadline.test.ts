@@ -5,27 +5,12 @@ import { Deadline } from '../../src/http/deadline.js';
 import { partitionAsParts } from '../../src/http/encode.js';
 import { partitionFromParts, type Partition } from '../../src/core/partition.js';
 import { SampleStreams } from '../../src/core/seeding.js';
+import { readAll } from '../support/read-stream.js';
 
 /** A clock that reads `start` for the first `reads` readings and far in the future after. */
 function clockExpiringAfter(reads: number): { clock: () => number; readings: () => number } {
   let count = 0;
   return { clock: () => (++count <= reads ? 0 : 1e12), readings: () => count };
-}
-
-/** Reads a stream until it ends or fails; returns the text that arrived and the failure. */
-async function readAll(response: Response): Promise<{ text: string; failure?: unknown }> {
-  const reader = response.body!.getReader();
-  const decoder = new TextDecoder();
-  let text = '';
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) return { text };
-      text += decoder.decode(value, { stream: true });
-    }
-  } catch (failure) {
-    return { text, failure };
-  }
 }
 
 describe('request deadline', () => {

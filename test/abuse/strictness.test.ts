@@ -82,7 +82,7 @@ describe('methods and CORS', () => {
     for (const path of ['/v1/partitions?n=5&seed=a', '/v1/partitions?bad=1', '/nowhere', '/healthz']) {
       const response = await get(path);
       expect(response.headers.get('access-control-allow-origin')).toBe('*');
-      expect(response.headers.get('access-control-expose-headers')).toBe('ETag, Partsmith-Seed, Partsmith-Method, Retry-After');
+      expect(response.headers.get('access-control-expose-headers')).toBe('ETag, Partsmith-Seed, Partsmith-Method, Partsmith-Total, Retry-After');
     }
   });
 

@@ -127,7 +127,9 @@ describe.skipIf(!available)('the page in headless chromium', () => {
       // One cell per unit, one size label per part, the parts in order in the caption.
       await expect(figures.nth(i).locator('svg rect').count()).resolves.toBe(12);
       await expect(figures.nth(i).locator('svg text.part-size').count()).resolves.toBe(api.samples[i].length);
-      await expect(figures.nth(i).locator('figcaption').textContent()).resolves.toBe(`#${i} ${api.samples[i].join(' + ')}`);
+      // The rank of each sample is shown beside it (the family is small enough to rank).
+      const { rank } = await (await fetch(`${base}/v1/compositions/rank?parts=${api.samples[i].join(',')}`)).json();
+      await expect(figures.nth(i).locator('figcaption').textContent()).resolves.toBe(`#${i} ${api.samples[i].join(' + ')} rank ${rank}`);
       await expect(figures.nth(i).locator('svg').getAttribute('aria-label')).resolves.toContain(`Composition ${api.samples[i].join(' + ')}`);
     }
     await expect(page.locator('#samples-title').textContent()).resolves.toBe('5 compositions of 12');
@@ -146,6 +148,61 @@ describe.skipIf(!available)('the page in headless chromium', () => {
     await expect(page.locator('.diagrams figure svg rect').count()).resolves.toBe(21);
     await page.goto(`${base}/?family=compositions&n=7&count=3&maxLength=2`);
     await expect(page.locator('#maxLength-error').textContent()).resolves.toContain('applies to partitions only');
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
+  it('draws set partitions: one tray per block, one disc per item, the API\'s samples and the real CLI and client snippets', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchConsole(page);
+    await page.goto(`${base}/`);
+    await page.getByLabel('Family').selectOption('set-partitions');
+    await page.getByLabel('Size n').fill('10');
+    await page.getByLabel('Samples', { exact: true }).fill('4');
+    await page.getByLabel('Seed').fill('browser-sp');
+    await page.locator('details.constraints summary').click();
+    await page.getByLabel('Smallest block ≥').fill('2');
+    await page.getByRole('button', { name: 'Draw' }).click();
+    await page.waitForURL(/family=set-partitions/);
+    const json = JSON.parse((await page.locator('#json-body').textContent()) ?? '');
+    expect(json.family).toEqual({ kind: 'set-partition', n: 10, minBlockSize: 2 });
+    const api = await (await fetch(`${base}/v1/set-partitions?n=10&count=4&seed=browser-sp&minBlockSize=2`)).json();
+    expect(json.samples).toEqual(api.samples);
+    const figures = page.locator('.diagrams figure');
+    await expect(figures.count()).resolves.toBe(4);
+    for (let i = 0; i < 4; i++) {
+      await expect(figures.nth(i).locator('svg circle').count()).resolves.toBe(10);
+      await expect(figures.nth(i).locator('svg rect.block').count()).resolves.toBe(api.samples[i].length);
+    }
+    await expect(page.locator('#samples-title').textContent()).resolves.toBe('4 set partitions of 10 items');
+    await expect(page.locator('#snippet-cli').textContent()).resolves.toBe('partsmith set-partitions --n 10 --count 4 --min-block-size 2 --seed browser-sp');
+    await expect(page.locator('#snippet-client').textContent()).resolves.toContain(`await client.setPartitions({ n: 10, count: 4, minBlockSize: 2, seed: 'browser-sp' })`);
+    await page.screenshot({ path: join(ARTIFACTS, 'page-set-partitions.png'), fullPage: true });
+    // A set-partition constraint on partitions is reported, not ignored.
+    await page.goto(`${base}/?family=partitions&n=7&count=3&blocks=2`);
+    await expect(page.locator('#blocks-error').textContent()).resolves.toContain('applies to set-partitions only');
+    expect(problems).toEqual([]);
+    await context.close();
+  });
+
+  it('lists a family in order in list mode, a page at a time', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const problems = watchConsole(page);
+    await page.goto(`${base}/`);
+    await page.getByLabel('Size n').fill('12');
+    await page.getByLabel('Samples', { exact: true }).fill('10');
+    await page.getByLabel('List every member in order, with its rank').check();
+    await page.getByLabel('First rank listed').fill('20');
+    await page.getByRole('button', { name: 'Draw' }).click();
+    await page.waitForURL(/mode=list/);
+    const api = await (await fetch(`${base}/v1/partitions/list?n=12&start=20&count=10`)).json();
+    const captions = await page.locator('.members figcaption').allTextContents();
+    expect(captions).toEqual(api.members.map((m: { rank: string; parts: number[] }) => `rank ${m.rank} ${m.parts.join(' + ')}`));
+    await page.getByRole('link', { name: 'Next 10 →' }).click();
+    await page.waitForURL(/start=30/);
+    await expect(page.locator('.members figcaption').first().textContent()).resolves.toMatch(/^rank 30 /);
     expect(problems).toEqual([]);
     await context.close();
   });

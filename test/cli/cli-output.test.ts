@@ -48,6 +48,9 @@ describe.concurrent('partsmith CLI output equals the API body', () => {
     ['compositions, allowed sizes', ['compositions', '--n', '15', '--count', '3', '--seed', 'a', '--allowed', '1,3,4', '--format', 'text'], '/v1/compositions?n=15&count=3&seed=a&allowed=1,3,4&format=text'],
     ['count compositions', ['count', 'compositions', '--n', '10'], '/v1/compositions/count?n=10'],
     ['count compositions with constraints', ['count', 'compositions', '--n', '10', '--allowed', '1,2'], '/v1/compositions/count?n=10&allowed=1,2'],
+    ['set partitions, text, kebab-case bounds', ['set-partitions', '--n', '12', '--count', '3', '--seed', 's', '--blocks', '3', '--min-block-size', '2', '--format', 'text'], '/v1/set-partitions?n=12&count=3&seed=s&blocks=3&minBlockSize=2&format=text'],
+    ['set partitions, ndjson, restricted growth strings', ['set-partitions', '--n', '9', '--count', '4', '--seed', 's', '--as', 'rgs', '--format', 'ndjson'], '/v1/set-partitions?n=9&count=4&seed=s&as=rgs&format=ndjson'],
+    ['count set-partitions', ['count', 'set-partitions', '--n', '30', '--max-block-size', '4'], '/v1/set-partitions/count?n=30&maxBlockSize=4'],
     ['constrained partitions, kebab-case flags', ['partitions', '--n', '30', '--count', '3', '--seed', 'k', '--max-part', '6', '--max-length', '9', '--format', 'text'], '/v1/partitions?n=30&count=3&seed=k&maxPart=6&maxLength=9&format=text'],
   ];
   for (const [name, args, path] of cases) {

@@ -62,6 +62,44 @@ compositions.push(
   { path: '/v1/compositions?n=9&count=2&seed=head', method: 'HEAD' },
 );
 
+/** Set partitions: every constraint shape, both forms, every format, counts; large n; errors are below. */
+const SET_PARTITION_CONSTRAINTS = ['', 'blocks=3', 'maxBlocks=2', 'minBlockSize=2', 'maxBlockSize=3', 'minBlockSize=2&maxBlockSize=4', 'blocks=4&minBlockSize=2', 'maxBlocks=5&maxBlockSize=3'];
+const setPartitions: ParityRequest[] = [];
+SET_PARTITION_CONSTRAINTS.forEach((constraint, k) => {
+  const extra = constraint ? `&${constraint}` : '';
+  setPartitions.push(get(`/v1/set-partitions?n=12&count=3&seed=sp${extra}&format=${FORMATS[k % FORMATS.length]}${k % 2 === 1 ? '&as=rgs' : ''}`));
+  setPartitions.push(get(`/v1/set-partitions/count?n=20${extra}`));
+});
+for (const format of FORMATS) {
+  setPartitions.push(get(`/v1/set-partitions?n=9&count=4&seed=sp-forms&as=blocks&format=${format}`));
+  setPartitions.push(get(`/v1/set-partitions?n=9&count=4&seed=sp-forms&as=rgs&format=${format}&start=1000000`));
+}
+setPartitions.push(
+  get('/v1/set-partitions?n=0&count=2&seed=sp'),
+  get('/v1/set-partitions?n=20000&count=1&seed=big&as=rgs'),
+  get('/v1/set-partitions?n=5000&count=2&seed=big&blocks=10&format=ndjson'),
+  get('/v1/set-partitions?n=3000&count=1&seed=big&minBlockSize=2&format=text'),
+  get('/v1/set-partitions?n=2000&count=1&seed=big&maxBlockSize=8&as=rgs&format=text'),
+  get('/v1/set-partitions/count?n=50'),
+  get('/v1/set-partitions/count?n=30&blocks=15'),
+  { path: '/v1/set-partitions?n=9&count=2&seed=head', method: 'HEAD' },
+);
+/** Ranks: listings in every format and representation (one over several stream chunks), rank and unrank (ranks past 2^53 too). */
+const ranks: ParityRequest[] = [
+  ...FORMATS.map((format) => get(`/v1/partitions/list?n=12&maxLength=4&format=${format}`)),
+  ...FORMATS.map((format) => get(`/v1/compositions/list?n=10&allowed=1,2,3&start=100&count=50&format=${format}`)),
+  get('/v1/partitions/list?n=20&distinct=true&as=multiplicities&format=text'),
+  get('/v1/partitions/list?n=40&minPart=2&maxPart=9&count=3000&format=ndjson'),
+  get('/v1/compositions/list?n=90&start=1000000000000000000000&count=5'),
+  get('/v1/partitions/rank?parts=5,4,2,1'),
+  get('/v1/partitions/rank?parts=9,7,7,1&n=24&allowed=1,7,9'),
+  get('/v1/compositions/rank?parts=0,3,0&length=3&minPart=0'),
+  get('/v1/partitions/unrank?n=400&rank=1234567890123456789'), // p(400) = 6727090051741041926 (OEIS A000041, from memory): a rank past 2^53
+  get('/v1/partitions/unrank?n=30&length=5&rank=17&as=multiplicities'),
+  get('/v1/compositions/unrank?n=200&rank=98765432109876543210987654321'),
+  get('/v1/compositions/unrank?n=30&length=4&maxPart=12&rank=500'),
+];
+
 /** Pictures: Ferrers diagrams (svg, text, conjugate; parts= and n/seed/index), distribution checks (json, svg). */
 const pictures: ParityRequest[] = [
   get('/v1/partitions/diagram?parts=5,4,1,1'),
@@ -87,6 +125,9 @@ const page: ParityRequest[] = [
   get('/?family=partitions&n=30&count=2&seed=page&maxPart=5'),
   get('/?family=compositions&n=12&count=3&seed=page&check=true&samples=300'),
   get('/?family=compositions&n=9&count=2&seed=page&length=4&minPart=0'),
+  get('/?family=set-partitions&n=10&count=3&seed=page&minBlockSize=2'),
+  get('/?family=partitions&n=12&maxLength=4&mode=list&count=10&start=20'),
+  get('/?family=compositions&n=10&allowed=1,2&mode=list&count=48'),
   get('/?n=abc&count=4'),
   get('/assets/page.css'),
   get('/assets/page.js'),
@@ -98,6 +139,8 @@ export const SERVED: readonly ParityRequest[] = [
   ...partitionSamples,
   ...constrainedPartitions,
   ...compositions,
+  ...setPartitions,
+  ...ranks,
   ...pictures,
   ...page,
   // Defaults (count=1, start=0, format=json), a long seed with every allowed character, parameter order.
@@ -142,7 +185,12 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions/diagram?parts=3,1&n=4'),
   get('/v1/partitions/check?n=20&samples=0'),
   get('/v1/compositions/check?n=20&maxPart=3'),
+  get('/v1/set-partitions?n=10000001&seed=x'),
+  get('/v1/set-partitions?n=10&seed=x&blocks=3&maxBlocks=4'),
+  get('/v1/set-partitions?n=10&seed=x&as=parts'),
   get('/healthz?verbose=1'),
+  get('/v1/partitions/rank?parts=1,a'),
+  get('/v1/partitions/unrank?n=5&rank=-2'),
   // 404.
   get('/index.html'),
   get('/v1/partition?n=10'),
@@ -158,4 +206,14 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions?n=10&seed=x&minPart=6&maxPart=4'),
   get('/v1/compositions?n=7&seed=x&allowed=2,4&length=2'),
   get('/v1/partitions?n=10&seed=x&start=1000000000000000&count=2'),
+  get('/v1/set-partitions?n=10&seed=x&blocks=11'),
+  get('/v1/set-partitions?n=10&seed=x&minBlockSize=4&maxBlockSize=3'),
+  get('/v1/set-partitions?n=10&seed=x&blocks=3&minBlockSize=4'),
+  get('/v1/set-partitions/count?n=5000'),
+  // 422 of the rank endpoints: not a member (out of order, wrong sum), a rank or start past the end, a table over its limit.
+  get('/v1/partitions/rank?parts=1,2,3'),
+  get('/v1/compositions/rank?parts=2,2&n=5'),
+  get('/v1/partitions/unrank?n=12&rank=77'),
+  get('/v1/compositions/list?n=5&start=17'),
+  get('/v1/partitions/list?n=5000'),
 ];

@@ -41,7 +41,8 @@ describe('runtime parity: in-process, Node server, workerd', () => {
   it('has at least 50 requests covering every endpoint, format and error status', () => {
     expect(PARITY_REQUESTS.length).toBeGreaterThanOrEqual(50);
     const servedAt = (path: string) => SERVED.filter((r) => r.path.split('?')[0] === path).map((r) => r.path);
-    const endpoints = ['/v1/partitions', '/v1/partitions/count', '/v1/compositions', '/v1/compositions/count', '/v1/partitions/diagram', '/v1/partitions/check', '/v1/compositions/check', '/healthz', '/openapi.json'];
+    const endpoints = ['/v1/partitions', '/v1/partitions/count', '/v1/compositions', '/v1/compositions/count', '/v1/set-partitions', '/v1/set-partitions/count', '/v1/partitions/diagram', '/v1/partitions/check', '/v1/compositions/check', '/healthz', '/openapi.json'];
+    endpoints.push('/v1/partitions/list', '/v1/partitions/rank', '/v1/partitions/unrank', '/v1/compositions/list', '/v1/compositions/rank', '/v1/compositions/unrank');
     for (const path of [...endpoints, '/', '/assets/page.css', '/assets/page.js', '/favicon.ico']) expect(servedAt(path).length, path).toBeGreaterThan(0);
     // Every constraint answered with samples and with a count.
     for (const path of ['/v1/partitions', '/v1/partitions/count']) {
@@ -49,6 +50,9 @@ describe('runtime parity: in-process, Node server, workerd', () => {
     }
     for (const path of ['/v1/compositions', '/v1/compositions/count']) {
       for (const param of ['length', 'minPart=0', 'maxPart', 'allowed']) expect(servedAt(path).some((p) => p.includes(`&${param}`)), `${path} ${param}`).toBe(true);
+    }
+    for (const path of ['/v1/set-partitions', '/v1/set-partitions/count']) {
+      for (const param of ['blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize']) expect(servedAt(path).some((p) => p.includes(`&${param}=`)), `${path} ${param}`).toBe(true);
     }
     for (const needle of ['style=text', 'conjugate=true', 'parts=', 'index=']) expect(servedAt('/v1/partitions/diagram').some((p) => p.includes(needle)), needle).toBe(true);
     expect(servedAt('/v1/partitions/check').some((p) => p.includes('format=svg'))).toBe(true);

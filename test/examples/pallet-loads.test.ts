@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { partitions, type PartitionsDocument } from 'partsmith';
+import { partitionFamily } from 'partsmith';
 import { loadTrucks } from './pallet-loads.js';
 
 /**
@@ -10,20 +10,19 @@ import { loadTrucks } from './pallet-loads.js';
  * is filtered or clipped afterwards. Drawing them exactly uniformly (seeded, so a failure
  * replays) exercises the typical days and, because every such partition is equally likely, the
  * odd ones too: all single pallets, many orders of exactly the capacity. The fixtures come from
- * the in-process library, so the same seed gives the same days as
+ * the synchronous library, so the same seed gives the same days as
  * `GET /v1/partitions?n=...&maxPart=26&seed=...` or `partsmith partitions --max-part 26 ...`.
  * (Orders over the capacity, which loadTrucks also splits, are covered by the fixed cases.)
  */
 const CAPACITY = 26;
 
-async function fixture(n: number, count: number, seed: string): Promise<number[][]> {
-  const doc: PartitionsDocument = await partitions({ n, count, seed, maxPart: CAPACITY });
-  return doc.samples as number[][];
+function fixture(n: number, count: number, seed: string): number[][] {
+  return [...partitionFamily({ n, maxPart: CAPACITY }).samples(seed, 0, count)];
 }
 
 describe('loadTrucks on uniformly random days of orders', () => {
-  it('ships every pallet, never overloads a truck, keeps every order whole, and wastes at most one half-empty truck', async () => {
-    const days = [...(await fixture(60, 200, 'pallets-60')), ...(await fixture(250, 100, 'pallets-250')), ...(await fixture(7, 15, 'pallets-7'))];
+  it('ships every pallet, never overloads a truck, keeps every order whole, and wastes at most one half-empty truck', () => {
+    const days = [...fixture(60, 200, 'pallets-60'), ...fixture(250, 100, 'pallets-250'), ...fixture(7, 15, 'pallets-7')];
     expect(days).toHaveLength(315);
     for (const orders of days) {
       const n = orders.reduce((a, b) => a + b, 0);
@@ -57,7 +56,7 @@ describe('loadTrucks on uniformly random days of orders', () => {
     expect(loadTrucks([], CAPACITY)).toEqual([]);
   });
 
-  it('the fixtures replay: the same seed gives the same days', async () => {
-    expect(await fixture(60, 5, 'pallets-60')).toEqual((await fixture(60, 200, 'pallets-60')).slice(0, 5));
+  it('the fixtures replay: the same seed gives the same days', () => {
+    expect(fixture(60, 5, 'pallets-60')).toEqual(fixture(60, 200, 'pallets-60').slice(0, 5));
   });
 });

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { createApp } from '../../src/http/app.js';
 import { SeedEtags, strongEtag } from '../../src/http/caching.js';
 import { parseQuery, QueryReader } from '../../src/http/query.js';
-import { compositionsQuery } from '../../src/http/schemas/compositions.js';
-import { partitionsCountQuery, partitionsQuery } from '../../src/http/schemas/partitions.js';
+import { compositionsQuery } from '../../src/schemas/compositions.js';
+import { partitionsCountQuery, partitionsQuery } from '../../src/schemas/partitions.js';
 
 describe('ETag', () => {
   it('is a quoted 32-hex-digit strong tag, deterministic, and changes with every query value', () => {
@@ -25,7 +25,7 @@ describe('ETag', () => {
       '/v1/partitions?seed=spell&count=3&n=030&format=json&as=parts&start=0',
       '/v1/partitions?as=parts&start=0&format=json&n=30&seed=spell&count=3',
     ].map((url) => JSON.stringify(parseQuery(url, partitionsQuery)));
-    // Schema order, defaults filled in (see the schema in src/http/schemas).
+    // Schema order, defaults filled in (see the schema in src/schemas).
     expect(spellings[0]).toBe('{"n":30,"count":3,"seed":"spell","start":0,"format":"json","as":"parts"}');
     expect(new Set(spellings).size).toBe(1);
     const countSpellings = ['/v1/partitions/count?n=9&distinct=true&maxPart=5', '/v1/partitions/count?maxPart=5&distinct=true&n=9'];

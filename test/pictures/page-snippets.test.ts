@@ -28,6 +28,8 @@ describe('page snippets', () => {
     'family=compositions&n=12&count=4&seed=s',
     'family=compositions&n=9&count=3&seed=s&minPart=0&maxPart=4&length=3',
     'family=compositions&n=15&count=2&seed=s&allowed=1,3,4',
+    'family=set-partitions&n=9&count=3&seed=s&blocks=3&minBlockSize=2',
+    'family=set-partitions&n=12&count=2&seed=s&maxBlocks=4&maxBlockSize=5',
   ];
   for (const search of cases) {
     it(`the CLI line prints the curl URL's body: ${search}`, async () => {
@@ -39,17 +41,18 @@ describe('page snippets', () => {
   }
 
   it('uses the CLI flag spelling (kebab case) for every parameter', () => {
-    for (const param of ['n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed']) expect(flagOf(param)).toBe(cliFlagOf(param));
+    for (const param of ['n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize']) expect(flagOf(param)).toBe(cliFlagOf(param));
   });
 
   it('the client snippet imports partsmith/client and calls a method the client has', async () => {
     const client = clientModule.createClient({ baseUrl: ORIGIN });
     for (const family of PAGE_FAMILIES) {
-      const { client: code } = snippets(`family=${family.value}&n=10&count=2&seed=s&allowed=1,2`);
+      const setPartitions = family.kind === 'set-partition';
+      const { client: code } = snippets(`family=${family.value}&n=10&count=2&seed=s&${setPartitions ? 'maxBlockSize=2' : 'allowed=1,2'}`);
       expect(code).toContain(`import { createClient } from 'partsmith/client';`);
       const method = /await client\.(\w+)\(/.exec(code)![1];
       expect(typeof (client as unknown as Record<string, unknown>)[method], method).toBe('function');
-      expect(code).toContain(`client.${method}({ n: 10, count: 2, allowed: [1, 2], seed: 's' })`);
+      expect(code).toContain(`client.${method}({ n: 10, count: 2, ${setPartitions ? 'maxBlockSize: 2' : 'allowed: [1, 2]'}, seed: 's' })`);
     }
     await client.close();
   });

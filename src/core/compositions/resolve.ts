@@ -130,7 +130,10 @@ export function resolveCompositions(family: CompositionFamily): ResolvedComposit
 
   let parts: PartSet;
   if (allowed !== undefined) {
-    const values = allowed.filter((v) => v >= minPart && (maxPart === undefined || v <= maxPart));
+    let values = allowed.filter((v) => v >= minPart && (maxPart === undefined || v <= maxPart));
+    // The empty composition of 0 has no part, so it belongs even when no size is allowed; its
+    // family keeps the given list (no part is ever drawn from it).
+    if (values.length === 0 && n === 0 && (length ?? 0) === 0) values = allowed;
     if (values.length === 0) {
       throw new EmptyFamilyError(`no part size is both in {${allowed.join(', ')}} and between ${minPart} and ${maxPart ?? 'n'}`);
     }

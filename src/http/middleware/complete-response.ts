@@ -15,7 +15,7 @@
 export const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
 /** Response headers a cross-origin script may read: those that matter for replay and caching. */
-export const CORS_EXPOSED_HEADERS = 'ETag, Partsmith-Seed, Partsmith-Method, Retry-After';
+export const CORS_EXPOSED_HEADERS = 'ETag, Partsmith-Seed, Partsmith-Method, Partsmith-Total, Retry-After';
 
 /** What the hardening middleware adds to a response that is not HTML (see securityHeaders, corsHeaders). */
 export const API_HARDENING_HEADERS: Readonly<Record<string, string>> = {

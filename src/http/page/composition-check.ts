@@ -11,7 +11,8 @@ import { html, trusted, type Html } from './html.js';
  * unrestricted compositions only, so with constraints the section says so instead of guessing.
  */
 export function isUnrestricted(query: PageQuery): boolean {
-  return ['length', 'maxPart', 'allowed', 'distinct', 'maxLength'].every((k) => query[k as keyof PageQuery] === undefined) && (query.minPart === undefined || query.minPart === 1);
+  const fields = query as Readonly<Record<string, unknown>>;
+  return ['length', 'maxPart', 'allowed', 'distinct', 'maxLength'].every((k) => fields[k] === undefined) && (fields.minPart === undefined || fields.minPart === 1);
 }
 
 export function compositionCheckSection(form: FormState, seed: string, check: CompositionCheck | null, problem: string | null): Html {

@@ -1,7 +1,8 @@
 import { z } from 'zod';
-import { checkQuery } from '../schemas/check.js';
-import { compositionsQuery, type CompositionsQuery } from '../schemas/compositions.js';
-import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js';
+import { checkQuery } from '../../schemas/check.js';
+import { compositionsQuery, type CompositionsQuery } from '../../schemas/compositions.js';
+import { partitionsQuery, type PartitionsQuery } from '../../schemas/partitions.js';
+import { setPartitionsQuery, type SetPartitionsQuery } from '../../schemas/set-partitions.js';
 
 /**
  * The page's form: what the user typed (kept verbatim to show it back), the errors per field,
@@ -11,33 +12,38 @@ import { partitionsQuery, type PartitionsQuery } from '../schemas/partitions.js'
 
 /** A family the page offers: one entry here, its sampler and drawing in render. */
 export interface PageFamily {
-  readonly value: 'partitions' | 'compositions';
-  readonly kind: 'partition' | 'composition';
+  readonly value: 'partitions' | 'compositions' | 'set-partitions';
+  readonly kind: 'partition' | 'composition' | 'set-partition';
   readonly label: string;
   /** Path of the sampling endpoint, e.g. /v1/partitions. */
   readonly apiPath: string;
-  /** CLI sub-command and client method for the snippets. */
+  /** CLI sub-command for the snippets. */
   readonly command: string;
+  /** The client's method for the snippets. */
+  readonly clientMethod: string;
   /** Constraint fields the family accepts (the form shows only these). */
   readonly constraints: readonly ConstraintName[];
 }
 
-export type ConstraintName = 'distinct' | 'minPart' | 'maxPart' | 'length' | 'maxLength' | 'allowed';
+export type ConstraintName = (typeof CONSTRAINTS)[number];
+
+const CONSTRAINTS = ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
 
 export const PAGE_FAMILIES: readonly PageFamily[] = [
-  { value: 'partitions', kind: 'partition', label: 'Partitions', apiPath: '/v1/partitions', command: 'partitions', constraints: ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] },
-  { value: 'compositions', kind: 'composition', label: 'Compositions', apiPath: '/v1/compositions', command: 'compositions', constraints: ['minPart', 'maxPart', 'length', 'allowed'] },
+  { value: 'partitions', kind: 'partition', label: 'Partitions', apiPath: '/v1/partitions', command: 'partitions', clientMethod: 'partitions', constraints: ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] },
+  { value: 'compositions', kind: 'composition', label: 'Compositions', apiPath: '/v1/compositions', command: 'compositions', clientMethod: 'compositions', constraints: ['minPart', 'maxPart', 'length', 'allowed'] },
+  { value: 'set-partitions', kind: 'set-partition', label: 'Set partitions', apiPath: '/v1/set-partitions', command: 'set-partitions', clientMethod: 'setPartitions', constraints: ['blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] },
 ];
 
 /** The sampling endpoint's query: the same schema, and so the same rules, as the API's. */
-export type PageQuery = PartitionsQuery | CompositionsQuery;
+export type PageQuery = PartitionsQuery | CompositionsQuery | SetPartitionsQuery;
 
 /** Every field of the form, in the order they appear in URLs and snippets. */
-export const FIELD_NAMES = ['family', 'n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'check', 'samples'] as const;
+export const FIELD_NAMES = ['family', 'n', 'count', 'seed', ...CONSTRAINTS, 'check', 'samples', 'mode', 'start'] as const;
 export type FieldName = (typeof FIELD_NAMES)[number];
 
 /** The API parameters among the fields (the rest belong to the page). */
-const API_FIELDS = ['n', 'count', 'seed', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'] as const;
+const API_FIELDS = ['n', 'count', 'seed', ...CONSTRAINTS] as const;
 
 export const PAGE_DEFAULTS: Partial<Record<FieldName, string>> = { family: 'partitions', n: '24', count: '6', check: 'true', samples: '2000' };
 
@@ -54,6 +60,8 @@ export interface FormState {
   readonly apiParams: [string, string][];
   readonly check: boolean;
   readonly samples: number;
+  /** Draw random samples, or list the family in order from rank `start` (see ranks.ts). */
+  readonly mode: 'draw' | 'list';
 }
 
 export function readForm(url: URL): FormState {
@@ -82,7 +90,7 @@ export function readForm(url: URL): FormState {
     }
     apiParams.push([name, value]);
   }
-  const schema = family.kind === 'composition' ? compositionsQuery : partitionsQuery;
+  const schema = family.kind === 'composition' ? compositionsQuery : family.kind === 'set-partition' ? setPartitionsQuery : partitionsQuery;
   const parsed = schema.safeParse(Object.fromEntries(apiParams));
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
@@ -97,12 +105,15 @@ export function readForm(url: URL): FormState {
     if (s.success) samples = s.data;
     else errors.samples = z.prettifyError(s.error).replace(/^✖ /, '').split('\n')[0];
   }
+  const mode = values.mode === 'list' ? 'list' : 'draw';
+  if (values.mode !== undefined && values.mode !== 'list' && values.mode !== 'draw') errors.mode = 'must be draw or list';
+  if (values.start !== undefined && !/^[0-9]+$/.test(values.start)) errors.start = 'must be a whole number (a rank: 0, 1, 2, ...)';
   const valid = Object.keys(errors).length === 0;
-  return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check, samples };
+  return { values, errors, family, query: valid && parsed.success ? parsed.data : null, apiParams, check: check && mode === 'draw', samples, mode };
 }
 
 function isConstraint(name: string): name is ConstraintName {
-  return ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'].includes(name);
+  return (CONSTRAINTS as readonly string[]).includes(name);
 }
 
 /** A query string from ordered pairs (URL-encoded, ready to paste). */

@@ -13,12 +13,18 @@ import { ProblemError } from '../problem.js';
 import { checkJobLimits } from '../sampling.js';
 import { runPartitionCheck, type PartitionCheck } from '../routes/check.js';
 import { runCompositionCheck, type CompositionCheck } from '../routes/composition-check.js';
-import { compositionFamilyOf } from '../routes/compositions.js';
-import { partitionFamilyOf } from '../routes/partitions.js';
-import type { PartitionsQuery } from '../schemas/partitions.js';
+import { compositionFamilyOf } from '../../library/compositions.js';
+import { partitionFamilyOf } from '../../library/partitions.js';
+import type { PartitionsQuery } from '../../schemas/partitions.js';
+import { setPartitionFamilyOf } from '../routes/set-partitions.js';
+import type { SetPartitionsQuery } from '../../schemas/set-partitions.js';
+import { planSetPartitionSampler } from '../../core/set-partitions/plan.js';
+import { blocksOf } from '../../core/set-partitions/set-partition.js';
+import { SET_PARTITION_DRAWING_LIMITS, setPartitionSvg, shortBlocks } from '../../core/pictures/set-partition-svg.js';
 import { compositionCheckSection, isUnrestricted } from './composition-check.js';
 import { PAGE_FAMILIES, PAGE_MAX_SHOWN, queryString, type FieldName, type FormState } from './form.js';
 import { html, trusted, type Html } from './html.js';
+import { listSection, modeFields, rankNote, sampleRanks } from './ranks.js';
 import { snippetsFor } from './snippets.js';
 
 /** The page's check may use this share of the request work budget (a page should answer quickly). */
@@ -30,6 +36,8 @@ interface Drawn {
   readonly method: string;
   /** Parts of each sample shown: largest first for partitions, in order for compositions. */
   readonly samples: number[][];
+  /** Set partitions: the blocks of each sample shown (then `samples` is empty). */
+  readonly blocks?: number[][][];
   readonly json: string;
 }
 
@@ -39,7 +47,8 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
   let problem: string | null = null;
   let check: PartitionCheck | CompositionCheck | null = null;
   let checkProblem: string | null = null;
-  if (form.query) {
+  const listing = form.query !== null && form.mode === 'list';
+  if (form.query && !listing) {
     try {
       drawn = draw(form, context);
     } catch (error) {
@@ -59,7 +68,7 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
 <a class="skip" href="#results">Skip to the results</a>
 <header class="masthead"><div class="masthead-inner">
   <a class="brand" href="/" aria-label="partsmith, start over">${logo()}<span class="wordmark">partsmith</span></a>
-  <p class="tagline">Exactly uniform random partitions and compositions of n — seeded, replayable, drawn.</p>
+  <p class="tagline">Exactly uniform random partitions and compositions of n, and set partitions of n items — seeded, replayable, drawn.</p>
   <nav aria-label="Service"><a href="/openapi.json">OpenAPI</a><a href="/healthz">Status</a></nav>
 </div></header>
 <div class="layout">
@@ -67,10 +76,12 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
   <main id="results" class="results" tabindex="-1">
     ${form.query === null ? errorSummary(form) : null}
     ${problem ? html`<section class="card" aria-labelledby="problem-title"><h2 id="problem-title">This request cannot be served</h2><div class="problem" role="alert"><p>${problem}</p></div></section>` : null}
-    ${drawn ? samplesSection(url, form, drawn) : null}
+    ${listing ? listSection(form, context) : null}
+    ${drawn ? samplesSection(url, form, drawn, sampleRanks(form, context, drawn.samples)) : null}
     ${drawn ? snippetsSection(url, form, drawn) : null}
     ${drawn ? jsonSection(form, drawn) : null}
-    ${drawn && form.check ? (form.family.kind === 'partition' ? checkSection(form, drawn, check as PartitionCheck | null, checkProblem) : compositionCheckSection(form, drawn.seed, check as CompositionCheck | null, checkProblem)) : null}
+    ${drawn && form.check && form.family.kind === 'set-partition' ? html`<section class="card" aria-labelledby="check-title"><h2 id="check-title">Distribution check</h2><div class="note"><p>The page checks partitions and compositions against exact laws. For set partitions, the exact number of members is at <a href="/v1/set-partitions/count?${queryString(form.apiParams.filter(([k]) => k !== 'count' && k !== 'seed'))}">/v1/set-partitions/count</a>, and the test suite checks every sampler against enumerations and the exact law of the number of blocks.</p></div></section>` : null}
+    ${drawn && form.check && form.family.kind !== 'set-partition' ? (form.family.kind === 'partition' ? checkSection(form, drawn, check as PartitionCheck | null, checkProblem) : compositionCheckSection(form, drawn.seed, check as CompositionCheck | null, checkProblem)) : null}
   </main>
 </div>
 <footer><p>Sample i of a seed is the same on every run and runtime. Diagrams are drawn up to ${DIAGRAM_LIMITS.maxRows} rows × ${DIAGRAM_LIMITS.maxColumns} columns; this page draws the first ${PAGE_MAX_SHOWN} samples and the API serves the rest.</p></footer>`;
@@ -98,9 +109,18 @@ function draw(form: FormState, context: AppContext): Drawn {
   const shown = Math.min(query.count, PAGE_MAX_SHOWN);
   let head: Record<string, unknown>;
   let samples: number[][] = [];
+  let blocks: number[][][] | undefined;
   let method: string;
-  // The same sampler and sample sources as GET /v1/partitions and /v1/compositions.
-  if (form.family.kind === 'partition') {
+  // The same sampler and sample sources as GET /v1/partitions, /v1/compositions and /v1/set-partitions.
+  if (form.family.kind === 'set-partition') {
+    const family = setPartitionFamilyOf(query as SetPartitionsQuery);
+    const sampler = planSetPartitionSampler(family);
+    checkJobLimits({ sampler, numbersPerSample: sampler.expectedLength, start: 0, count: query.count }, context.limits);
+    const key = familyKey(family);
+    blocks = Array.from({ length: shown }, (_, i) => blocksOf(sampler.sample(sampleSource(seed, i, key))));
+    head = { family, seed, start: 0, method: sampler.method };
+    method = sampler.method;
+  } else if (form.family.kind === 'partition') {
     const family = partitionFamilyOf(query as PartitionsQuery);
     const sampler = planPartitionSampler(family);
     checkJobLimits({ sampler, numbersPerSample: sampler.expectedLength, start: 0, count: query.count }, context.limits);
@@ -118,10 +138,10 @@ function draw(form: FormState, context: AppContext): Drawn {
     method = sampler.method;
   }
   // The same document the API returns (one sample per line for reading).
-  const lines = samples.map((s) => `    ${JSON.stringify(s)}`);
+  const lines = (blocks ?? samples).map((s) => `    ${JSON.stringify(s)}`);
   const more = query.count > shown ? `\n    … ${query.count - shown} more in the API response` : '';
   const json = `${JSON.stringify(head).slice(0, -1).replace(/^\{/, '{\n  ').replace(/,"(seed|start|method)"/g, ',\n  "$1"')},\n  "samples": [\n${lines.join(',\n')}${more}\n  ]\n}`;
-  return { seed, seedDrawn, method, samples, json };
+  return { seed, seedDrawn, method, samples, blocks, json };
 }
 
 function messageOf(error: unknown): string {
@@ -142,7 +162,7 @@ function field(form: FormState, name: FieldName, label: string, options: { type?
 }
 
 function formPanel(form: FormState): Html {
-  const constraintsSet = ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed'].some((k) => form.values[k as FieldName] !== undefined);
+  const constraintsSet = ['distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'].some((k) => form.values[k as FieldName] !== undefined);
   return html`<section class="controls card" aria-labelledby="form-title">
   <h1 id="form-title">Draw samples</h1>
   <form id="draw-form" method="get" action="/" novalidate>
@@ -150,7 +170,7 @@ function formPanel(form: FormState): Html {
       <legend>What to draw</legend>
       <div class="field">
         <label for="family">Family</label>
-        <p class="hint" id="family-hint">Partitions: the order of parts does not matter. Compositions: it does (1 + 2 and 2 + 1 differ).</p>
+        <p class="hint" id="family-hint">Partitions: the order of parts does not matter. Compositions: it does (1 + 2 and 2 + 1 differ). Set partitions: which of the items 1…n go together.</p>
         <select id="family" name="family" aria-describedby="family-hint">${PAGE_FAMILIES.map((f) => html`<option value="${f.value}"${f.value === form.family.value ? html` selected` : null}>${f.label}</option>`)}</select>
       </div>
       <div class="row">
@@ -159,6 +179,7 @@ function formPanel(form: FormState): Html {
       </div>
       ${field(form, 'seed', 'Seed', { hint: 'Same seed, same samples. Leave empty for a fresh one.', placeholder: 'e.g. demo' })}
     </fieldset>
+    ${modeFields(form)}
     <details class="constraints"${constraintsSet ? html` open` : null}>
       <summary>Constraints <span class="hint">optional</span></summary>
       <div class="check"><input type="checkbox" id="distinct" name="distinct" value="true"${form.values.distinct === 'true' ? html` checked` : null}${form.errors.distinct ? html` aria-invalid="true" aria-describedby="distinct-error"` : null}><label for="distinct">All parts different <span class="hint">(partitions)</span></label></div>
@@ -172,6 +193,14 @@ function formPanel(form: FormState): Html {
         ${field(form, 'maxLength', 'At most k parts', { min: 0, inputmode: 'numeric', hint: 'Partitions only.' })}
       </div>
       ${field(form, 'allowed', 'Allowed part sizes', { hint: 'Comma-separated, e.g. 1,2,5,10.', inputmode: 'numeric' })}
+      <div class="row">
+        ${field(form, 'blocks', 'Exactly k blocks', { min: 0, inputmode: 'numeric', hint: 'Set partitions only, as are the three below.' })}
+        ${field(form, 'maxBlocks', 'At most k blocks', { min: 0, inputmode: 'numeric' })}
+      </div>
+      <div class="row">
+        ${field(form, 'minBlockSize', 'Smallest block ≥', { min: 1, inputmode: 'numeric' })}
+        ${field(form, 'maxBlockSize', 'Largest block ≤', { min: 1, inputmode: 'numeric' })}
+      </div>
     </details>
     <fieldset>
       <legend>Distribution check</legend>
@@ -191,7 +220,8 @@ function errorSummary(form: FormState): Html {
 </section>`;
 }
 
-function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
+function samplesSection(url: URL, form: FormState, drawn: Drawn, ranks: readonly string[] | null): Html {
+  if (drawn.blocks) return setPartitionsSection(form, drawn, drawn.blocks);
   const query = form.query!;
   const partitions = form.family.kind === 'partition';
   const noun = partitions ? 'partition' : 'composition';
@@ -209,22 +239,58 @@ function samplesSection(url: URL, form: FormState, drawn: Drawn): Html {
     else drawing = html`<div class="drawing">${trusted(compositionSvg(parts, { fit: 200 }))}</div>`;
     return html`<li><figure>
   ${drawing}
-  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}</figcaption>
+  <figcaption><strong>#${i}</strong> ${parts.length === 0 ? `the empty ${noun}` : caption}${rankNote(ranks, i)}</figcaption>
 </figure></li>`;
   });
-  const permalink = `/?${queryString([['family', form.family.value], ...form.apiParams.filter(([k]) => k !== 'seed'), ['seed', drawn.seed], ...(form.check ? ([['check', 'true'], ['samples', String(form.samples)]] as [string, string][]) : [])])}`;
   return html`<section class="card" aria-labelledby="samples-title">
   <h2 id="samples-title">${query.count === 1 ? `One ${noun}` : `${query.count} ${noun}s`} of ${query.n}</h2>
-  <p class="summary">
-    <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
-    <span class="pill">method <code>${drawn.method}</code></span>
-    <a href="${permalink}">Permalink</a>
-  </p>
+  ${samplesSummary(form, drawn)}
   <ul class="diagrams" aria-label="${partitions ? 'Ferrers diagrams' : 'Bargraphs'}, one per sample">${figures}</ul>
-  ${query.count > drawn.samples.length ? html`<p class="note">The first ${drawn.samples.length} of ${query.count} samples are drawn; the snippets below fetch them all.</p>` : null}
+  ${shownNote(query.count, drawn.samples.length)}
   ${partitions
     ? html`<p class="note">One row per part, largest first; the highlighted square is the Durfee square. Each diagram links to its SVG.</p>`
     : html`<p class="note">One column per part, in the composition's order, the part's size written below it; neighbouring parts alternate colours. A part 0 is a mark on the baseline.</p>`}
+</section>`;
+}
+
+/** Seed, method and permalink of the samples shown. */
+function samplesSummary(form: FormState, drawn: Drawn): Html {
+  return html`<p class="summary">
+    <span class="pill">seed <code>${drawn.seed}</code>${drawn.seedDrawn ? ' (drawn for you)' : ''}</span>
+    <span class="pill">method <code>${drawn.method}</code></span>
+    <a href="${permalinkOf(form, drawn.seed)}">Permalink</a>
+  </p>`;
+}
+
+function shownNote(count: number, shown: number): Html | null {
+  return count > shown ? html`<p class="note">The first ${shown} of ${count} samples are drawn; the snippets below fetch them all.</p>` : null;
+}
+
+/** The permalink of the page's current request, with the seed the samples used. */
+function permalinkOf(form: FormState, seed: string): string {
+  return `/?${queryString([['family', form.family.value], ...form.apiParams.filter(([k]) => k !== 'seed'), ['seed', seed], ...(form.check ? ([['check', 'true'], ['samples', String(form.samples)]] as [string, string][]) : [])])}`;
+}
+
+function setPartitionsSection(form: FormState, drawn: Drawn, samples: number[][][]): Html {
+  const query = form.query!;
+  const limits = SET_PARTITION_DRAWING_LIMITS;
+  const figures = samples.map((blocks, i) => {
+    const widest = Math.max(0, ...blocks.map((b) => b.length));
+    const drawing =
+      blocks.length > limits.maxBlocks || widest > limits.maxBlockSize
+        ? html`<p class="too-large">${blocks.length} blocks, the largest of ${widest} items: too large to draw here.</p>`
+        : html`<div class="drawing">${trusted(setPartitionSvg(blocks, { fit: 200 }))}</div>`;
+    return html`<li><figure>
+  ${drawing}
+  <figcaption><strong>#${i}</strong> ${blocks.length === 0 ? 'the empty set partition' : shortBlocks(blocks)}</figcaption>
+</figure></li>`;
+  });
+  return html`<section class="card" aria-labelledby="samples-title">
+  <h2 id="samples-title">${query.count === 1 ? 'One set partition' : `${query.count} set partitions`} of ${query.n} items</h2>
+  ${samplesSummary(form, drawn)}
+  <ul class="diagrams" aria-label="Set partitions, one drawing per sample">${figures}</ul>
+  ${shownNote(query.count, samples.length)}
+  <p class="note">One row per block (group), its items in increasing order; blocks from top to bottom by their smallest item, the numbering of the restricted growth string (as=rgs).</p>
 </section>`;
 }
 

@@ -5,7 +5,7 @@ import { queryString } from './form.js';
  * Ready-to-copy snippets for the exact request the page made (seed included, so they replay it),
  * spelled as the real tools take them: the CLI's flags are the query parameters in kebab case
  * (maxPart -> --max-part; `distinct` a switch), the client is `partsmith/client` with one
- * method per endpoint (partitions, compositions). test/pictures/page-snippets.test.ts runs
+ * method per endpoint (partitions, compositions, setPartitions). test/pictures/page-snippets.test.ts runs
  * them against the CLI and checks the client's method names.
  */
 export interface Snippet {
@@ -29,7 +29,7 @@ export function snippetsFor(origin: string, family: PageFamily, params: readonly
     `import { createClient } from 'partsmith/client';`,
     ``,
     `const client = createClient({ baseUrl: '${origin}' });`,
-    `const { samples } = await client.${family.command}({ ${options} });`,
+    `const { samples } = await client.${family.clientMethod}({ ${options} });`,
   ].join('\n');
   return [
     { id: 'snippet-curl', title: 'curl', language: 'shell', code: curl },

@@ -90,6 +90,10 @@ button.quiet:hover { background: var(--teal-soft); color: var(--ink); }
 .ferrers .cell { fill: var(--teal); } .ferrers .durfee { fill: var(--ember); } .ferrers .part-size { fill: var(--muted); }
 figcaption { font-size: .85rem; color: var(--muted); overflow-wrap: anywhere; }
 figcaption strong { color: var(--ink); font-weight: 650; }
+figcaption .rank { display: block; font-variant-numeric: tabular-nums; }
+.members { grid-template-columns: repeat(auto-fill, minmax(min(8rem, 100%), 1fr)); }
+.pager { display: flex; justify-content: space-between; gap: 1rem; margin-top: .9rem; }
+.pager a[rel=next] { margin-left: auto; }
 .too-large { color: var(--muted); font-size: .9rem; }
 .note { color: var(--muted); font-size: .9rem; margin: .75rem 0 0; }
 .snippets { display: grid; grid-template-columns: minmax(0, 1fr); gap: .9rem; }

@@ -8,10 +8,10 @@ import { sampleSource } from '../../core/seeding.js';
 import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { respondWithJson } from '../respond.js';
-import { checkQuery } from '../schemas/check.js';
+import { checkQuery } from '../../schemas/check.js';
 import { PROBLEM_RESPONSES } from './docs.js';
 import { respondWithBody, SVG_CONTENT_TYPE } from './diagram.js';
-import { partitionFamilyOf } from './partitions.js';
+import { partitionFamilyOf } from '../../library/partitions.js';
 
 const CHECK_PATH = '/v1/partitions/check';
 

@@ -11,8 +11,8 @@ import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { ProblemError } from '../problem.js';
 import { respondWithJson } from '../respond.js';
-import { compositionCheckQuery } from '../schemas/composition-check.js';
-import { compositionFamilyOf } from './compositions.js';
+import { compositionCheckQuery } from '../../schemas/composition-check.js';
+import { compositionFamilyOf } from '../../library/compositions.js';
 import { PROBLEM_RESPONSES } from './docs.js';
 import { respondWithBody, SVG_CONTENT_TYPE } from './diagram.js';
 

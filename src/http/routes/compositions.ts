@@ -1,26 +1,13 @@
-import { planCompositionSampler, countCompositions } from '../../core/compositions/plan.js';
-import { canonicalFamily, type CompositionFamily } from '../../core/family.js';
-import { SampleStreams } from '../../core/seeding.js';
+import { familyKey } from '../../core/family.js';
+import { compositionFamilyOf, compositionsOf } from '../../library/compositions.js';
 import { compositionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
-import { compositionsCountQuery, compositionsQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
+import { compositionsCountQuery, compositionsQuery } from '../../schemas/compositions.js';
 import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
 
 const COMPOSITIONS_PATH = '/v1/compositions';
 const COMPOSITIONS_COUNT_PATH = '/v1/compositions/count';
-
-/** The family a query describes, normalised (the default minPart = 1 is dropped). */
-export function compositionFamilyOf(query: CompositionsCountQuery): CompositionFamily {
-  return canonicalFamily<CompositionFamily>({
-    kind: 'composition',
-    n: query.n,
-    length: query.length,
-    minPart: query.minPart === 1 ? undefined : query.minPart,
-    maxPart: query.maxPart,
-    allowed: query.allowed,
-  });
-}
 
 export const compositionsEndpoint = defineEndpoint({
   path: COMPOSITIONS_PATH,
@@ -32,16 +19,14 @@ export const compositionsEndpoint = defineEndpoint({
   handle(request, query, context, memo) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
-    const { family, key } = memo.get('family', () => {
-      const canonical = compositionFamilyOf(query);
-      return { family: canonical, key: JSON.stringify(canonical) }; // = familyKey(family): compositionFamilyOf returns the canonical form
-    });
-    const { sampler, streams } = context.compositionSamplers.getOrCreate(key, () => ({ sampler: planCompositionSampler(family), streams: new SampleStreams(key) }));
+    const key = memo.get('family-key', () => familyKey(compositionFamilyOf(query)));
+    const family = context.compositionFamilies.getOrCreate(key, () => compositionsOf(query));
+    const { sampler, streams } = family;
     return respondWithSamples(
       request,
       COMPOSITIONS_PATH,
       seeded ? query : { ...query, seed },
-      { family, streams, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
+      { family: family.description, streams, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
       seeded,
       context.limits,
       memo,
@@ -56,7 +41,7 @@ export const compositionsCountEndpoint = defineEndpoint({
   query: compositionsCountQuery,
   responses: COUNT_RESPONSES,
   handle(request, query) {
-    const family = compositionFamilyOf(query);
-    return respondWithJson(request, COMPOSITIONS_COUNT_PATH, query, { family, count: countCompositions(family).toString() });
+    const family = compositionsOf(query);
+    return respondWithJson(request, COMPOSITIONS_COUNT_PATH, query, { family: family.description, count: family.count.toString() });
   },
 });

@@ -8,9 +8,9 @@ import { sampleSource } from '../../core/seeding.js';
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, strongEtag } from '../caching.js';
 import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
-import { diagramQuery } from '../schemas/diagram.js';
+import { diagramQuery } from '../../schemas/diagram.js';
 import { PROBLEM_RESPONSES } from './docs.js';
-import { partitionFamilyOf } from './partitions.js';
+import { partitionFamilyOf } from '../../library/partitions.js';
 
 const DIAGRAM_PATH = '/v1/partitions/diagram';
 

@@ -21,3 +21,23 @@ export const COUNT_RESPONSES: Record<string, ResponseDoc> = {
   '200': { description: '{"family": {...}, "count": "decimal string"}', contentTypes: ['application/json'] },
   ...PROBLEM_RESPONSES,
 };
+
+/** The orders of the rank endpoints, stated in their OpenAPI descriptions. */
+export const PARTITION_ORDER =
+  'Order: each partition lists its parts largest first, and members are in reverse lexicographic order of that list — n first, then (n-1, 1), (n-2, 2), (n-2, 1, 1), ..., and (1, ..., 1) last (for unrestricted partitions the order of OEIS A080577). Ranks are decimal strings, from 0.';
+export const COMPOSITION_ORDER =
+  'Order: lexicographic order of the part sequence — (1, ..., 1) first and (n) last when the parts are free; the first part decides, then the second, and so on. Ranks are decimal strings, from 0.';
+
+/** Responses of a listing. */
+export const LIST_RESPONSES: Record<string, ResponseDoc> = {
+  '200': { description: 'The members, each with its rank; header Partsmith-Total: the number of members of the family.', contentTypes: SAMPLE_CONTENT_TYPES },
+  '304': { description: 'Not modified (If-None-Match matched the ETag).', contentTypes: [] },
+  ...PROBLEM_RESPONSES,
+};
+
+/** Responses of rank and unrank. */
+export const RANK_RESPONSES: Record<string, ResponseDoc> = {
+  '200': { description: '{"family": {...}, "rank": "decimal string", "total": "decimal string", "parts": [...]}', contentTypes: ['application/json'] },
+  '304': { description: 'Not modified (If-None-Match matched the ETag).', contentTypes: [] },
+  ...PROBLEM_RESPONSES,
+};

@@ -1,26 +1,10 @@
-import { canonicalFamily, type PartitionFamily } from '../../core/family.js';
-import { countPartitions } from '../../core/counting/partition-counts.js';
-import { planPartitionSampler } from '../../core/partitions/plan.js';
-import { SampleStreams } from '../../core/seeding.js';
+import { familyKey } from '../../core/family.js';
+import { partitionFamilyOf, partitionsOf } from '../../library/partitions.js';
 import { partitionAsMultiplicities, partitionAsParts } from '../encode.js';
 import { defineEndpoint } from '../endpoint.js';
 import { respondWithJson, respondWithSamples } from '../respond.js';
-import { partitionsCountQuery, partitionsQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
+import { partitionsCountQuery, partitionsQuery } from '../../schemas/partitions.js';
 import { COUNT_RESPONSES, SAMPLE_RESPONSES } from './docs.js';
-
-/** The family a query describes, normalised (the default minPart = 1 is dropped). */
-export function partitionFamilyOf(query: PartitionsCountQuery): PartitionFamily {
-  return canonicalFamily<PartitionFamily>({
-    kind: 'partition',
-    n: query.n,
-    distinct: query.distinct,
-    minPart: query.minPart === 1 ? undefined : query.minPart,
-    maxPart: query.maxPart,
-    length: query.length,
-    maxLength: query.maxLength,
-    allowed: query.allowed,
-  });
-}
 
 const PARTITIONS_PATH = '/v1/partitions';
 const PARTITIONS_COUNT_PATH = '/v1/partitions/count';
@@ -35,18 +19,16 @@ export const partitionsEndpoint = defineEndpoint({
   handle(request, query, context, memo) {
     const seeded = query.seed !== undefined;
     const seed = query.seed ?? context.drawSeed();
-    const { family, key } = memo.get('family', () => {
-      const canonical = partitionFamilyOf(query);
-      return { family: canonical, key: JSON.stringify(canonical) }; // = familyKey(family): partitionFamilyOf returns the canonical form
-    });
-    const { sampler, streams } = context.partitionSamplers.getOrCreate(key, () => ({ sampler: planPartitionSampler(family), streams: new SampleStreams(key) }));
+    const key = memo.get('family-key', () => familyKey(partitionFamilyOf(query)));
+    const family = context.partitionFamilies.getOrCreate(key, () => partitionsOf(query));
+    const { sampler, streams } = family;
     const multiplicities = query.as === 'multiplicities';
     return respondWithSamples(
       request,
       PARTITIONS_PATH,
       seeded ? query : { ...query, seed },
       {
-        family,
+        family: family.description,
         streams,
         sampler,
         encoder: multiplicities ? partitionAsMultiplicities : partitionAsParts,
@@ -70,8 +52,7 @@ export const partitionsCountEndpoint = defineEndpoint({
   query: partitionsCountQuery,
   responses: COUNT_RESPONSES,
   handle(request, query) {
-    const family = partitionFamilyOf(query);
-    const count = countPartitions(family);
-    return respondWithJson(request, PARTITIONS_COUNT_PATH, query, { family, count: count.toString() });
+    const family = partitionsOf(query);
+    return respondWithJson(request, PARTITIONS_COUNT_PATH, query, { family: family.description, count: family.count.toString() });
   },
 });

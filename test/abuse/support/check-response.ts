@@ -1,5 +1,6 @@
-import { compositionProblems, constraintsOf, multiplicityProblems, partitionProblems, type Constraints } from './family-checks.js';
+import { compositionProblems, constraintsOf, multiplicityProblems, partitionProblems, setPartitionProblems, type Constraints } from './family-checks.js';
 import type { EndpointSpec } from './fuzz-queries.js';
+import { listingViolations, rankViolations } from './rank-checks.js';
 
 /**
  * The contract every response must keep, whatever was asked (issue 7): a 2xx, 3xx or 4xx
@@ -53,6 +54,9 @@ function samplesOf(format: string, text: string, field: string): { samples: unkn
     const rows = lines.map((line) => JSON.parse(line));
     return { samples: rows.map((r) => r[field]), indices: rows.map((r) => r.index), violations: [] };
   }
+  // Set partitions: "1 3 | 2 | 4" (blocks) or "0 1 0 2" (rgs).
+  if (field === 'blocks') return { samples: lines.map((line) => (line === '' ? [] : line.split(' | ').map((block) => block.split(' ').map(Number)))), violations: [] };
+  if (field === 'rgs') return { samples: lines.map((line) => (line === '' ? [] : line.split(' ').map(Number))), violations: [] };
   // text: "5 4 1" or, for multiplicities, "5 4 1^3"
   return {
     samples: lines.map((line) =>
@@ -76,9 +80,11 @@ function sampleViolations(path: string, params: URLSearchParams, contentType: st
   const multiplicities = params.get('as') === 'multiplicities';
   const family: Constraints = constraintsOf(params);
   const composition = path.includes('composition');
+  const setPartition = path.includes('set-partitions');
+  const setForm = params.get('as') === 'rgs' ? 'rgs' : 'blocks';
   let parsed;
   try {
-    parsed = samplesOf(format, text, multiplicities ? 'multiplicities' : 'parts');
+    parsed = samplesOf(format, text, setPartition ? setForm : multiplicities ? 'multiplicities' : 'parts');
   } catch {
     return ['body does not parse in its format'];
   }
@@ -86,7 +92,9 @@ function sampleViolations(path: string, params: URLSearchParams, contentType: st
   if (parsed.samples.length !== count) out.push(`${parsed.samples.length} samples, not count = ${count}`);
   if (parsed.indices && parsed.indices.some((index, i) => index !== start + i)) out.push('ndjson indices do not run from start');
   for (const sample of parsed.samples) {
-    const problems = multiplicities
+    const problems = setPartition
+      ? setPartitionProblems(sample, params, setForm)
+      : multiplicities
       ? multiplicityProblems(sample, family)
       : !Array.isArray(sample)
         ? ['sample is not a list']
@@ -124,6 +132,8 @@ export async function checkResponse(endpoint: EndpointSpec, query: string, respo
   else if (status >= 200 && status < 300) {
     if (endpoint.path.endsWith('/diagram')) violations.push(...diagramViolations(params, contentType, text));
     else if (endpoint.path.endsWith('/check')) violations.push(...checkViolations(params, contentType, text));
+    else if (endpoint.path.endsWith('/list')) violations.push(...listingViolations(endpoint.path, params, contentType, text, response.headers.get('partsmith-total')));
+    else if (endpoint.path.endsWith('/rank') || endpoint.path.endsWith('/unrank')) violations.push(...rankViolations(endpoint.path, params, contentType, text));
     else if (endpoint.params.includes('format')) violations.push(...sampleViolations(endpoint.path, params, contentType, text));
     else {
       try {

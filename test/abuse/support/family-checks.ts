@@ -75,3 +75,49 @@ export function compositionProblems(parts: readonly unknown[], family: Constrain
   // Weak compositions (minPart = 0) are allowed only with a length; parts are >= 1 otherwise.
   return commonProblems(parts, family, family.minPart === 0 ? 0 : 1);
 }
+
+/**
+ * A set partition of 1..n as blocks (lists of items, each increasing, blocks by smallest item)
+ * or as its restricted growth string, checked against the constraints of the query (definitions:
+ * Stanley, Enumerative Combinatorics vol. 1, §1.9; Knuth TAOCP vol. 4A, §7.2.1.5).
+ */
+export function setPartitionProblems(sample: unknown, params: URLSearchParams, form: 'blocks' | 'rgs'): string[] {
+  const n = Number(params.get('n'));
+  const num = (key: string): number | undefined => (params.has(key) ? Number(params.get(key)) : undefined);
+  let sizes: number[];
+  if (form === 'rgs') {
+    if (!Array.isArray(sample) || sample.length !== n || !sample.every((v) => isWhole(v, 0))) return [`not a restricted growth string of ${n} entries: ${JSON.stringify(sample).slice(0, 200)}`];
+    sizes = [];
+    let max = -1;
+    for (const v of sample as number[]) {
+      if (v > max + 1) return ['an entry is more than one above the largest before it'];
+      max = Math.max(max, v);
+      sizes[v] = (sizes[v] ?? 0) + 1;
+    }
+  } else {
+    if (!Array.isArray(sample) || !sample.every((b) => Array.isArray(b) && b.length > 0 && b.every((x: unknown) => isWhole(x, 1)))) return [`not a list of non-empty blocks of items: ${JSON.stringify(sample).slice(0, 200)}`];
+    const blocks = sample as number[][];
+    const seen = new Set<number>();
+    for (let b = 0; b < blocks.length; b++) {
+      if (b > 0 && blocks[b][0] <= blocks[b - 1][0]) return ['blocks are not ordered by their smallest item'];
+      for (let i = 0; i < blocks[b].length; i++) {
+        const item = blocks[b][i];
+        if (i > 0 && item <= blocks[b][i - 1]) return ['a block is not increasing'];
+        if (item > n || seen.has(item)) return [`item ${item} is repeated or not one of 1..${n}`];
+        seen.add(item);
+      }
+    }
+    if (seen.size !== n) return [`the blocks hold ${seen.size} items, not n = ${n}`];
+    sizes = blocks.map((b) => b.length);
+  }
+  const problems: string[] = [];
+  const blocks = num('blocks');
+  const maxBlocks = num('maxBlocks');
+  if (blocks !== undefined && sizes.length !== blocks) problems.push(`${sizes.length} blocks, not blocks = ${blocks}`);
+  if (maxBlocks !== undefined && sizes.length > maxBlocks) problems.push(`${sizes.length} blocks, over maxBlocks = ${maxBlocks}`);
+  const min = num('minBlockSize');
+  const max = num('maxBlockSize');
+  if (min !== undefined && sizes.some((s) => s < min)) problems.push(`a block is smaller than minBlockSize = ${min}`);
+  if (max !== undefined && sizes.some((s) => s > max)) problems.push(`a block is larger than maxBlockSize = ${max}`);
+  return problems;
+}

@@ -34,7 +34,7 @@ const NUMBER_LIKE = [
 ];
 
 const WORDS = [
-  'json', 'ndjson', 'text', 'JSON', 'xml', 'parts', 'multiplicities', 'true', 'false', 'TRUE', 'yes', 'no', '1', '0',
+  'json', 'ndjson', 'text', 'JSON', 'xml', 'parts', 'multiplicities', 'blocks', 'rgs', 'true', 'false', 'TRUE', 'yes', 'no', '1', '0',
   'demo', 'a', 'seed-with.ok_chars~:', 'x'.repeat(64), 'y'.repeat(65), 'white space', 'é', '😀', '\u0000', '\u202e',
   '<script>alert(1)</script>', '"quoted"', "'; DROP TABLE", '../../etc/passwd', '%', '%%', '%zz', '%E0%A4%A', '%00',
   '%FF', '%ED%A0%80', '%C0%AF', '%2e%2e%2f', '%u0041', '&', '=', '==', '+', '#frag',
@@ -64,12 +64,20 @@ function randomText(rng: Rng, length: number): string {
 function randomValue(rng: Rng, key: string): string {
   const r = rng();
   if (r < 0.005) return 'x'.repeat(10_000); // 10 kB value
+  // Switches and choices get one of their words often enough for a good share of requests to get through.
+  if ((key === 'distinct' || key === 'conjugate') && r < 0.5) return pick(rng, ['true', 'false']);
+  if ((key === 'format' || key === 'as' || key === 'style') && r < 0.5) return pick(rng, ['json', 'ndjson', 'text', 'parts', 'multiplicities', 'blocks', 'rgs', 'svg']);
   if (r < 0.01) return pick(rng, NUMBER_LIKE).repeat(1 + below(rng, 3000));
   if (r < 0.05) return randomText(rng, 1 + below(rng, 40));
   if (r < 0.1) return Array.from({ length: 1 + below(rng, 1200) }, () => String(1 + below(rng, 50))).join(',');
   if (r < 0.3) return pick(rng, WORDS);
   if (r < 0.35) return pick(rng, LISTS);
-  if (key === 'n' || key === 'count' || key === 'start' || key.endsWith('Part') || key.endsWith('ength')) {
+  if (key === 'parts' && r < 0.8) {
+    // A plausible member: a few small parts, largest first (a partition) or shuffled (a composition, or out of order).
+    const parts = Array.from({ length: below(rng, 6) }, () => 1 + below(rng, 9));
+    return (r < 0.6 ? parts.sort((a, b) => b - a) : parts).join(',');
+  }
+  if (key === 'n' || key === 'count' || key === 'start' || key === 'rank' || key.endsWith('Part') || key.endsWith('ength') || key.endsWith('locks') || key.endsWith('BlockSize')) {
     // Mostly small, plausible values so that a good share of requests succeed and get checked.
     if (r < 0.8) return String(below(rng, r < 0.7 ? 30 : 400));
   }
@@ -93,8 +101,15 @@ function encodeURIComponentLoose(text: string): string {
 function randomQuery(rng: Rng, endpoint: EndpointSpec): string {
   const pairs: string[] = [];
   const usual = endpoint.params;
+  // One query in eight is plausible: the endpoint's own parameters with plausible values, written
+  // plainly, so that the accepted side of the contract is checked on every endpoint whatever the
+  // number of endpoints (the rest below are mostly refused).
+  if (rng() < 0.125) return plausibleQuery(rng, usual);
   // Most queries give the required n; others are free-form.
-  if (usual.includes('n') && rng() < 0.85) pairs.push(`n=${encode(rng, randomValue(rng, 'n'))}`);
+  // (Less often where a member can be given instead: n then defaults to its sum, or must be absent.)
+  if (usual.includes('n') && rng() < (usual.includes('parts') ? 0.3 : 0.85)) pairs.push(`n=${encode(rng, randomValue(rng, 'n'))}`);
+  // The rank endpoints' member or rank, likewise (drawn only for endpoints that have them).
+  for (const key of ['parts', 'rank']) if (usual.includes(key) && rng() < 0.9) pairs.push(`${key}=${encode(rng, randomValue(rng, key))}`);
   const extra = below(rng, 5);
   for (let i = 0; i < extra; i++) {
     const r = rng();
@@ -111,6 +126,19 @@ function randomQuery(rng: Rng, endpoint: EndpointSpec): string {
   let query = pairs.join('&');
   if (rng() < 0.03) query = query.replace(/&/g, pick(rng, ['&amp;', ';', '&&']));
   return query;
+}
+
+/** n and up to two other parameters of the endpoint, each with a value from randomValue's plausible branches. */
+function plausibleQuery(rng: Rng, usual: readonly string[]): string {
+  const keys = new Set<string>(usual.filter((key) => key === 'n' || key === 'parts' || key === 'rank'));
+  for (let i = below(rng, 3); i > 0 && usual.length > 0; i--) keys.add(pick(rng, usual));
+  const pairs: string[] = [];
+  for (const key of keys) {
+    let value = randomValue(rng, key);
+    for (let tries = 0; tries < 5 && !/^[0-9A-Za-z,]{1,30}$/.test(value); tries++) value = randomValue(rng, key);
+    pairs.push(`${key}=${encodeURIComponentLoose(value)}`);
+  }
+  return pairs.join('&');
 }
 
 /** `total` fuzz cases, cycling over the endpoints so every path gets its share. */

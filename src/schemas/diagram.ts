@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { DEFAULT_LIMITS, MAX_N } from '../limits.js';
-import { booleanParam, choiceParam, integerParam, seedParam } from '../params.js';
+import { MAX_INDEX, MAX_N } from './bounds.js';
+import { booleanParam, choiceParam, integerParam, seedParam } from './params.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
 
 /** At most this many numbers in `parts` (the query-string limit bounds it too). */
@@ -23,7 +23,7 @@ export const diagramQuery = z
     parts: partsListParam('The partition to draw, e.g. 5,4,1,1 (any order). Give either parts or n.').optional(),
     n: integerParam(0, MAX_N, 'Draw a random partition of n: sample `index` of `seed`, exactly as GET /v1/partitions returns it. Give either parts or n.').optional(),
     seed: seedParam('With n: the seed of the sample to draw. When absent the server draws one (header `Partsmith-Seed`).'),
-    index: integerParam(0, DEFAULT_LIMITS.maxIndex, 'With n: which sample of the seed to draw (the same as start=index&count=1 on GET /v1/partitions).').default(0),
+    index: integerParam(0, MAX_INDEX, 'With n: which sample of the seed to draw (the same as start=index&count=1 on GET /v1/partitions).').default(0),
     style: choiceParam(['svg', 'text'], 'svg: an SVG picture, one square per unit; text: one line of # per part.').default('svg'),
     conjugate: booleanParam('Draw the conjugate partition (the diagram reflected in its diagonal: rows become columns).').default(false),
     ...partitionConstraints,

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { MAX_N } from '../limits.js';
-import { choiceParam, integerParam, seedParam } from '../params.js';
+import { MAX_N } from './bounds.js';
+import { choiceParam, integerParam, seedParam } from './params.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
 
 /** Most samples one check may draw (the work limit may allow fewer for large n). */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { MAX_N } from '../limits.js';
-import { booleanParam, choiceParam, integerParam, sizeListParam } from '../params.js';
+import { MAX_N } from './bounds.js';
+import { booleanParam, choiceParam, integerParam, sizeListParam } from './params.js';
 import { countFields, samplingFields } from './common.js';
 
 /** Constraints on a partition; all optional and combinable (except length with maxLength). */

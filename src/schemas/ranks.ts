@@ -1,0 +1,94 @@
+import { z } from 'zod';
+import { DEFAULT_MAX_COUNT, MAX_COUNT, MAX_N } from './bounds.js';
+import { choiceParam, integerParam, partsParam, rankParam, withThousands } from './params.js';
+import { compositionConstraints, weakNeedsLength } from './compositions.js';
+import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
+
+/**
+ * The schemas of the rank endpoints: listing a family in its order, the rank of a member, and the
+ * member at a rank, for partitions and for compositions (one schema per endpoint). The families
+ * take the same constraint parameters as sampling.
+ */
+
+/** Default page of a listing: small families come whole in one answer. */
+export const DEFAULT_LIST_COUNT = 1000;
+
+/** Most parts a `parts` parameter may list (the query-string limit bounds it too). */
+export const MAX_RANKED_PARTS = 2000;
+
+const listFields = {
+  n: integerParam(0, MAX_N, 'The size: every member sums to exactly n.'),
+  start: rankParam('Rank of the first member listed (a decimal string; ranks run from 0 to the number of members - 1). start = the number of members gives an empty page. Default 0.').default('0'),
+  // The schema admits any count a server may be configured for; the configured limit is checked before listing.
+  count: integerParam(1, MAX_COUNT, `How many members to list from start (fewer at the end of the family): at most ${withThousands(DEFAULT_MAX_COUNT)} unless the server is configured otherwise. Default ${withThousands(DEFAULT_LIST_COUNT)}.`).default(DEFAULT_LIST_COUNT),
+  format: choiceParam(['json', 'ndjson', 'text'], 'json: one document; ndjson: one line {"rank": "...", "parts": [...]} per member, streamed; text: one member per line, its rank, a tab, then its parts separated by spaces.').default('json'),
+};
+
+const unrankFields = {
+  n: integerParam(0, MAX_N, 'The size: the member sums to exactly n.'),
+  rank: rankParam('The rank of the member (a decimal string, from 0 to the number of members - 1).'),
+};
+
+const rankFields = {
+  n: integerParam(0, MAX_N, 'The size of the family; defaults to the sum of the parts.').optional(),
+};
+
+/** GET /v1/partitions/list */
+export const partitionsListQuery = z
+  .strictObject({
+    ...listFields,
+    as: choiceParam(['parts', 'multiplicities'], 'parts: each member a list of parts, largest first; multiplicities: a list of [part, multiplicity] pairs, largest part first.').default('parts'),
+    ...partitionConstraints,
+  })
+  .superRefine(noLengthWithMaxLength);
+
+/** GET /v1/partitions/rank */
+export const partitionsRankQuery = z
+  .strictObject({
+    parts: partsParam(1, MAX_N, MAX_RANKED_PARTS, 'The partition, its parts largest first, e.g. 5,4,1,1 (empty for the partition of 0).'),
+    ...rankFields,
+    ...partitionConstraints,
+  })
+  .superRefine(noLengthWithMaxLength);
+
+/** GET /v1/partitions/unrank */
+export const partitionsUnrankQuery = z
+  .strictObject({
+    ...unrankFields,
+    as: choiceParam(['parts', 'multiplicities'], 'parts: the member as a list of parts, largest first; multiplicities: as [part, multiplicity] pairs, largest part first.').default('parts'),
+    ...partitionConstraints,
+  })
+  .superRefine(noLengthWithMaxLength);
+
+/** GET /v1/compositions/list */
+export const compositionsListQuery = z
+  .strictObject({
+    ...listFields,
+    as: choiceParam(['parts'], 'parts: each member a list of parts in order.').default('parts'),
+    ...compositionConstraints,
+  })
+  .superRefine(weakNeedsLength);
+
+/** GET /v1/compositions/rank */
+export const compositionsRankQuery = z
+  .strictObject({
+    parts: partsParam(0, MAX_N, MAX_RANKED_PARTS, 'The composition, its parts in order, e.g. 1,3,1 (empty for the composition of 0).'),
+    ...rankFields,
+    ...compositionConstraints,
+  })
+  .superRefine(weakNeedsLength);
+
+/** GET /v1/compositions/unrank */
+export const compositionsUnrankQuery = z
+  .strictObject({
+    ...unrankFields,
+    ...compositionConstraints,
+  })
+  .superRefine(weakNeedsLength);
+
+export type PartitionsListQuery = z.output<typeof partitionsListQuery>;
+export type PartitionsRankQuery = z.output<typeof partitionsRankQuery>;
+export type PartitionsUnrankQuery = z.output<typeof partitionsUnrankQuery>;
+export type CompositionsListQuery = z.output<typeof compositionsListQuery>;
+export type CompositionsRankQuery = z.output<typeof compositionsRankQuery>;
+export type CompositionsUnrankQuery = z.output<typeof compositionsUnrankQuery>;
