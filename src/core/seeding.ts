@@ -14,10 +14,11 @@ import type { RandomSource } from './random.js';
  *    small request. Unrestricted partitions use the table method up to n = 1000 (was 500), also
  *    as the base of the self-similar recursion, and it draws each distinct size's multiplicity
  *    at once (table-recursive.ts).
- * 3: same stream derivation; the constrained planner serves families with `length` or
- *    `maxLength` by new methods (box-subset, box-mixture, allowed-length-boltzmann, samplers of
- *    the family without one constraint plus rejection) and plans a maxLength no member can reach
- *    as absent, so what seeds produce for such families changed (plan-length.ts).
+ * 3: same stream derivation (the version is part of every stream key, so every stream changed);
+ *    the constrained planner serves families with `length` or `maxLength` by new methods
+ *    (box-subset, box-mixture, allowed-length-boltzmann, allowed-subset, samplers of the family
+ *    without one constraint plus rejection) and plans a maxLength no member can reach as absent
+ *    (plan-length.ts).
  */
 export const ALGORITHM_VERSION = 3;
 
