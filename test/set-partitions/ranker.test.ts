@@ -73,5 +73,8 @@ describe('set partitions in restricted-growth-string order', () => {
     expect(() => ranker.unrank(ranker.count)).toThrow(RangeError);
     expect(() => ranker.unrank(-1n)).toThrow(RangeError);
     expect(() => setPartitionRanker({ kind: 'set-partition', n: 3000 })).toThrow(LimitExceededError);
+    expect(() => setPartitionRanker({ kind: 'set-partition', n: 6000, blocks: 2 })).toThrow(/over the limit of n <= 5000 items/);
+    // Many block sizes to tell apart: refused by the bound on counting steps (not after minutes of counting).
+    expect(() => setPartitionRanker({ kind: 'set-partition', n: 100, maxBlockSize: 50 })).toThrow(/with maxBlockSize = 50 in restricted-growth-string order needs more counting states than the limit allows/);
   });
 });
