@@ -238,9 +238,10 @@ class RgsRanker implements SetPartitionRanker {
     const problems: string[] = [];
     if (k < this.kMin || k > this.kMax) problems.push(`it has ${k} blocks, but the family has ${this.kMin === this.kMax ? `exactly ${this.kMin}` : `at most ${this.kMax}`}`);
     const small = sizes.findIndex((s) => s < this.minSize);
-    if (small >= 0) problems.push(`block ${small} has ${sizes[small]} items, below minBlockSize = ${this.minSize}`);
+    const items = (s: number) => `${s} item${s === 1 ? '' : 's'}`;
+    if (small >= 0) problems.push(`block ${small} has ${items(sizes[small])}, below minBlockSize = ${this.minSize}`);
     const large = sizes.findIndex((s) => s > this.maxSize);
-    if (large >= 0) problems.push(`block ${large} has ${sizes[large]} items, above maxBlockSize = ${this.maxSize}`);
+    if (large >= 0) problems.push(`block ${large} has ${items(sizes[large])}, above maxBlockSize = ${this.maxSize}`);
     if (problems.length > 0) fail(problems.join('; '), 'not-in-family');
   }
 }
