@@ -281,7 +281,24 @@ describe('replay and reporting', () => {
     const again = fc.check(property, { seed: 42, path: first.counterexamplePath! });
     expect(again.counterexample).toEqual(first.counterexample);
     const report = fc.stringify(first.counterexample![0]);
-    expect(report).toMatch(/^\[[0-9,]+\] \/\* partition of \d+; shrunk from sample \d+ of seed "fast-check" of \{"kind":"partition","n":\d+,"maxPart":30\} \*\/$/);
+    expect(report).toMatch(/^\[[0-9,]+\] \/\* partition of \d+ \(rank \d+ of \{"kind":"partition","n":\d+,"maxPart":30\}\); shrunk from sample \d+ of seed "fast-check" of \{"kind":"partition","n":\d+,"maxPart":30\} \*\/$/);
+  });
+
+  it("the report shows the member's rank in its family where the family is rankable, and none past the ranking limits", () => {
+    // [1 x 12] is the last partition of 12 with parts of at most 30 (all of them): rank p(12) - 1 = 76 (p(12) = 77, OEIS A000041).
+    const property = fc.property(partitionArb({ n: { min: 10, max: 200 }, maxPart: 30 }), (parts) => parts.length < 12);
+    const shrunk = fc.check(property, { seed: 42 }).counterexample![0];
+    expect(shrunk).toEqual(new Array(12).fill(1));
+    expect(fc.stringify(shrunk)).toContain('(rank 76 of {"kind":"partition","n":12,"maxPart":30})');
+    for (const value of fc.sample(compositionArb({ n: 12, allowed: [1, 2, 3] }), { seed: 11, numRuns: 10 })) {
+      const rank = BigInt(/\(rank (\d+) of /.exec(fc.stringify(value))![1]);
+      const family = compositionFamily({ n: 12, allowed: [1, 2, 3] });
+      expect(family.rank(value)).toBe(rank);
+      expect(family.unrank(rank)).toEqual(value);
+    }
+    // Partitions of 10^6 are past the rank tables (n <= 1,670 unrestricted): the report has no rank.
+    const [large] = fc.sample(partitionArb({ n: 1_000_000 }), { seed: 12, numRuns: 1 });
+    expect(fc.stringify(large)).toMatch(/\/\* partition of 1000000; sample \d+ of seed "fast-check" of \{"kind":"partition","n":1000000\} \*\/$/);
   });
 
   it('an unshrunk value is sample (seed, index) of its family, as the library and the API give it', () => {
