@@ -105,6 +105,7 @@ const ranks: ParityRequest[] = [
   get('/v1/set-partitions/rank?rgs=0,0,1,1,2,2&minBlockSize=2&maxBlockSize=3'),
   get('/v1/set-partitions/unrank?n=40&rank=123456789012345678901234567890'), // B_40 ~ 1.6e35 (OEIS A000110): a rank past 2^53
   get('/v1/set-partitions/unrank?n=12&blocks=3&rank=500&as=rgs'),
+  get('/v1/set-partitions/unrank?n=5000&blocks=3&rank=12345678901234567890&as=rgs'), // 5000 items: counted without recursion (a worker's stack)
 ];
 
 /** Pictures: Ferrers diagrams (svg, text, conjugate; parts= and n/seed/index), distribution checks (json, svg). */

@@ -14,8 +14,9 @@ export const MAX_RANK_N = 5000;
 /**
  * Steps of building the counting states: each look-up writes a key of (number of block types
  * + 1) numbers, so a family with many block types (maxBlockSize = 50, say) costs far more per
- * state than a free one. Bounded so that a refusal, like a build, takes about a second at most
- * (measured on a shared 2-core machine: 0.9 s for n = 80 with minBlockSize = 3, near the bound).
+ * state than a free one. Bounded so that a build takes about a second at most, and a refusal
+ * about half that (measured on a shared 2-core machine: 1.0-1.3 s for families at the bound,
+ * whose forward pass alone, all a refusal runs, takes 0.4-0.55 s).
  */
 export const MAX_RANK_WORK = 4e6;
 
@@ -38,7 +39,8 @@ export interface SetPartitionRanker extends Ranker {
  * of each such type): with no size bounds the classical table of D(r, u) = u·D(r−1, u) +
  * D(r−1, u+1) (blocks used so far u; Williamson, Combinatorics for Computer Science 1985 —
  * reference from memory). Every state a member's prefix can reach is counted when the ranker
- * is made; past MAX_RANK_STATES states (or n > MAX_RANK_N) it throws LimitExceededError.
+ * is made (iteratively, level by level: countAll); past MAX_RANK_STATES states (or
+ * n > MAX_RANK_N) it throws LimitExceededError.
  * `list` steps with the order's successor (the rightmost entry that can grow, then the
  * smallest completion), reading only whether counts are zero.
  */
@@ -123,7 +125,7 @@ class RgsRanker implements SetPartitionRanker {
     const bits = countBitsBound(resolved);
     this.stateLimit = Math.min(MAX_RANK_STATES, Math.floor(MAX_RANK_BITS / bits));
     try {
-      this.count = this.completions(n, new Array<number>(this.types + 1).fill(0));
+      this.count = this.countAll();
     } catch (error) {
       if (error instanceof LimitExceededError) {
         throw new LimitExceededError(
@@ -147,42 +149,97 @@ class RgsRanker implements SetPartitionRanker {
     return this.bounded && size >= this.maxSize ? -1 : this.typeOf(size + 1);
   }
 
-  /** Ways to place r more items given how many blocks of each type the prefix has (counts[0] unused). */
-  completions(r: number, counts: number[]): bigint {
+  /**
+   * Whether a prefix can still be completed in r more items as far as block counts and the
+   * blocks' missing items say (a necessary condition; states failing it have no completion and
+   * are never stored).
+   */
+  private viable(r: number, counts: readonly number[]): boolean {
     let blocks = 0;
     let deficit = 0;
     for (let t = 1; t <= this.types; t++) {
       blocks += counts[t];
       if (t < this.minSize) deficit += counts[t] * (this.minSize - t);
     }
-    if (deficit + Math.max(0, this.kMin - blocks) * this.minSize > r || blocks > this.kMax) return 0n;
-    if (r === 0) return 1n; // deficit 0 and blocks >= kMin, by the test above
-    this.work += this.types + 10; // the key (types + 1 numbers) and the step itself (a Map look-up, BigInt products), about as costly as ten numbers of a key
-    const key = `${r}|${counts.join(',')}`;
-    const known = this.memo.get(key);
-    if (known !== undefined) return known;
-    let total = 0n;
+    return deficit + Math.max(0, this.kMin - blocks) * this.minSize <= r && blocks <= this.kMax;
+  }
+
+  /**
+   * The moves from a prefix with these block counts: an item joins a block of type t (each of
+   * the counts[t] such blocks, so `times` = counts[t]) or opens a new block (times 1). Calls
+   * `visit(times)` with `counts` changed to the state after the move (and restored afterwards).
+   */
+  private forEachMove(counts: number[], visit: (times: number) => void): void {
+    let blocks = 0;
     for (let t = 1; t <= this.types; t++) {
       const c = counts[t];
+      blocks += c;
       if (c === 0) continue;
       const to = this.bounded ? (t < this.maxSize ? t + 1 : -1) : Math.min(t + 1, this.minSize);
       if (to < 0) continue;
       counts[t]--;
       counts[to]++;
-      const ways = this.completions(r - 1, counts);
+      visit(c);
       counts[to]--;
       counts[t]++;
-      total += BigInt(c) * ways;
     }
     if (blocks < this.kMax) {
       const first = this.typeOf(1);
       counts[first]++;
-      total += this.completions(r - 1, counts);
+      visit(1);
       counts[first]--;
     }
-    if (this.memo.size >= this.stateLimit || this.work > MAX_RANK_WORK) throw new LimitExceededError('too many counting states', `rank states <= ${this.stateLimit}`);
-    this.memo.set(key, total);
-    return total;
+  }
+
+  /**
+   * Counts the completions of every viable state reachable from the empty prefix, without
+   * recursion (n may be 5000, deeper than a worker's stack): a forward pass collects the states
+   * level by level (items placed), a backward pass counts each from the level after it.
+   * LimitExceededError past the state or step limits.
+   */
+  private countAll(): bigint {
+    const n = this.n;
+    const root = new Array<number>(this.types + 1).fill(0);
+    if (!this.viable(n, root)) return 0n;
+    if (n === 0) return 1n;
+    // levels[i]: the keys of the viable states with n - i items left (i = 0 .. n - 1).
+    const levels: string[][] = [[stateKey(n, root)]];
+    let states = 1;
+    for (let r = n; r > 1; r--) {
+      const next = new Set<string>();
+      for (const key of levels[levels.length - 1]) {
+        const counts = countsOf(key);
+        this.forEachMove(counts, () => {
+          this.work += this.types + 10; // the key (types + 1 numbers) and the step itself (a Set look-up), about as costly as ten numbers of a key
+          if (this.viable(r - 1, counts)) next.add(stateKey(r - 1, counts));
+        });
+        if (states + next.size > this.stateLimit || this.work > MAX_RANK_WORK) throw new LimitExceededError('too many counting states', `rank states <= ${this.stateLimit}`);
+      }
+      states += next.size;
+      levels.push([...next]);
+    }
+    for (let i = levels.length - 1; i >= 0; i--) {
+      const r = n - i;
+      for (const key of levels[i]) {
+        const counts = countsOf(key);
+        let total = 0n;
+        this.forEachMove(counts, (times) => {
+          const ways = this.completions(r - 1, counts);
+          if (ways !== 0n) total += BigInt(times) * ways;
+        });
+        this.memo.set(key, total);
+      }
+    }
+    return this.memo.get(levels[0][0])!;
+  }
+
+  /** Ways to place r more items given how many blocks of each type the prefix has (counts[0] unused): a look-up once the ranker is made. */
+  completions(r: number, counts: number[]): bigint {
+    if (!this.viable(r, counts)) return 0n;
+    if (r === 0) return 1n; // deficit 0 and blocks >= kMin, by viable
+    const known = this.memo.get(stateKey(r, counts));
+    if (known === undefined) throw new Error('set-partition ranker: a state was not counted (bug)');
+    return known;
   }
 
   rank(member: readonly number[]): bigint {
@@ -244,6 +301,16 @@ class RgsRanker implements SetPartitionRanker {
     if (large >= 0) problems.push(`block ${large} has ${items(sizes[large])}, above maxBlockSize = ${this.maxSize}`);
     if (problems.length > 0) fail(problems.join('; '), 'not-in-family');
   }
+}
+
+/** The key of a counting state: items left, then the number of blocks of each type. */
+function stateKey(r: number, counts: readonly number[]): string {
+  return `${r}|${counts.join(',')}`;
+}
+
+/** The block counts of a state's key. */
+function countsOf(key: string): number[] {
+  return key.slice(key.indexOf('|') + 1).split(',').map(Number);
 }
 
 /**
