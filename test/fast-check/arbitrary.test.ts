@@ -7,6 +7,7 @@ import { chiSquareTest } from '../support/chi-square.js';
 import { enumerateCompositions } from '../support/enumerate-compositions.js';
 import { enumeratePartitions } from '../support/enumerate-partitions.js';
 import { satisfies } from '../support/enumerate-constrained.js';
+import { valuesAndShrinks } from '../support/shrink-tree.js';
 
 /**
  * The arbitraries of partsmith/fast-check: every value and every shrink candidate is a member
@@ -27,29 +28,6 @@ function isPartitionOf(constraints: Omit<PartitionFamily, 'kind' | 'n'>, parts: 
 function isCompositionOf(constraints: Omit<CompositionFamily, 'kind' | 'n'>, parts: readonly number[]): boolean {
   const family: CompositionFamily = { kind: 'composition', n: sum(parts), ...constraints };
   return enumerateCompositions(family).some((c) => c.length === parts.length && c.every((v, i) => v === parts[i]));
-}
-
-/** The values of an arbitrary and the shrink tree below each, to `depth` levels (at most `width` per level). */
-function valuesAndShrinks(arb: FamilyArbitrary, seed: number, runs: number, depth = 3, width = 6): { values: number[][]; shrinks: [number[], number[]][] } {
-  const values: number[][] = [];
-  const shrinks: [number[], number[]][] = [];
-  for (const value of fc.sample(arb, { seed, numRuns: runs })) {
-    values.push(value);
-    let level: number[][] = [value];
-    for (let d = 0; d < depth; d++) {
-      const next: number[][] = [];
-      for (const v of level) {
-        let taken = 0;
-        for (const candidate of arb.shrink(v, undefined)) {
-          shrinks.push([v, candidate.value]);
-          next.push(candidate.value);
-          if (++taken >= width) break;
-        }
-      }
-      level = next;
-    }
-  }
-  return { values, shrinks };
 }
 
 /** Random constraint sets of small families (n up to 24, so brute force stays cheap). */

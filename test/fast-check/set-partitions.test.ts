@@ -4,6 +4,7 @@ import { PartsmithError, rgsOfBlocks, setPartitionFamily } from 'partsmith';
 import { setPartitionArb, simplerSetPartition, type FamilyArbitrary } from 'partsmith/fast-check';
 import { chiSquareTest } from '../support/chi-square.js';
 import { enumerateSetPartitions, isMember, type SetPartitionConstraints } from '../support/enumerate-set-partitions.js';
+import { valuesAndShrinks } from '../support/shrink-tree.js';
 
 /**
  * setPartitionArb: every value and every shrink candidate is a set partition of its family
@@ -25,28 +26,6 @@ function isSetPartitionOf(constraints: Omit<SetPartitionConstraints, 'n'>, block
   const rgs: number[] = [];
   blocks.forEach((b, k) => b.forEach((item) => (rgs[item - 1] = k)));
   return isMember(rgs, { n, ...constraints });
-}
-
-function valuesAndShrinks(arb: FamilyArbitrary<Blocks>, seed: number, runs: number, depth = 3, width = 6): { values: Blocks[]; shrinks: [Blocks, Blocks][] } {
-  const values: Blocks[] = [];
-  const shrinks: [Blocks, Blocks][] = [];
-  for (const value of fc.sample(arb, { seed, numRuns: runs })) {
-    values.push(value);
-    let level: Blocks[] = [value];
-    for (let d = 0; d < depth; d++) {
-      const next: Blocks[] = [];
-      for (const v of level) {
-        let taken = 0;
-        for (const candidate of arb.shrink(v, undefined)) {
-          shrinks.push([v, candidate.value]);
-          next.push(candidate.value);
-          if (++taken >= width) break;
-        }
-      }
-      level = next;
-    }
-  }
-  return { values, shrinks };
 }
 
 const constraintsArb = fc

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { compositionFamily, partitionFamily, PartsmithError, setPartitionFamily, type SampledFamily } from 'partsmith';
 import { toQueryString } from '../../src/client/params.js';
 import { createApp } from '../../src/http/app.js';
+import { thrown } from '../support/thrown.js';
 
 /**
  * The synchronous library equals the HTTP API: for the same family and seed it returns the same
@@ -30,18 +31,6 @@ async function expectSameSamples(kind: 'partition' | 'composition', constraints:
   const answer = await service(`${path(kind)}${toQueryString({ ...constraints, seed, start, count })}`);
   expect(answer.status, JSON.stringify(constraints)).toBe(200);
   expect(libraryDocument(family, seed, start, count), JSON.stringify(constraints)).toBe(answer.text);
-}
-
-/** The library's error, as the fields of a problem document. */
-function thrown(call: () => unknown): Record<string, unknown> {
-  try {
-    call();
-  } catch (error) {
-    expect(error).toBeInstanceOf(PartsmithError);
-    const e = error as PartsmithError;
-    return e.errors.length > 0 ? { type: e.type, title: e.title, status: e.status, detail: e.detail, errors: e.errors } : { type: e.type, title: e.title, status: e.status, detail: e.detail };
-  }
-  throw new Error('expected a PartsmithError');
 }
 
 describe('the library returns the samples of the API, byte for byte', () => {

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { blocksOfRgs, compositionFamily, partitionFamily, PartsmithError, rgsOfBlocks, setPartitionFamily, type RankedFamily } from 'partsmith';
+import { blocksOfRgs, compositionFamily, partitionFamily, rgsOfBlocks, setPartitionFamily, type RankedFamily } from 'partsmith';
 import { toQueryString } from '../../src/client/params.js';
 import { createApp } from '../../src/http/app.js';
 import { enumerateSetPartitions } from '../support/enumerate-set-partitions.js';
+import { thrown } from '../support/thrown.js';
 
 /**
  * The library's rank, unrank and list equal the API's rank endpoints: the JSON documents are
@@ -31,18 +32,6 @@ function make(kind: Kind, constraints: Constraints): RankedFamily<unknown> {
 
 /** A member in the rank endpoint's form (set partitions: the restricted growth string). */
 const asParam = (kind: Kind, member: unknown) => (kind === 'set-partition' ? rgsOfBlocks(member as number[][]) : (member as number[]));
-
-/** The library's error, as the fields of a problem document. */
-function thrown(call: () => unknown): Record<string, unknown> {
-  try {
-    call();
-  } catch (error) {
-    expect(error).toBeInstanceOf(PartsmithError);
-    const e = error as PartsmithError;
-    return e.errors.length > 0 ? { type: e.type, title: e.title, status: e.status, detail: e.detail, errors: e.errors } : { type: e.type, title: e.title, status: e.status, detail: e.detail };
-  }
-  throw new Error('expected a PartsmithError');
-}
 
 const FAMILIES: [Kind, Constraints][] = [
   ['partition', { n: 12 }],
