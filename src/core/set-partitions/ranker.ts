@@ -85,6 +85,24 @@ class Prefix {
     else counts[ranker.typeOf(sizes[v])]++;
   }
 
+  /** The completions after an item joins a block of type t (for r items after it), looked up once per type. */
+  waysByType(r: number): (t: number) => bigint {
+    const known: (bigint | undefined)[] = [];
+    return (t) => {
+      let ways = known[t];
+      if (ways === undefined) {
+        const { counts } = this;
+        const to = this.ranker.typeAfter(t); // a type is read as a size: the type of its block with one more item
+        counts[t]--;
+        counts[to]++;
+        ways = known[t] = this.ranker.completions(r, counts);
+        counts[to]--;
+        counts[t]++;
+      }
+      return ways;
+    };
+  }
+
   /** Completions of the prefix with item `v`'s choice added, for r items after it. */
   waysWith(v: number, r: number): bigint {
     this.join(v);
@@ -242,13 +260,23 @@ class RgsRanker implements SetPartitionRanker {
     return known;
   }
 
+  /*
+   * Rank and unrank: the completions after joining block v depend only on v's type, so they are
+   * looked up once per type and item (Prefix.waysByType), and runs of neighbouring blocks of one
+   * type are skipped or entered with one BigInt product or division (a free family's blocks
+   * all have one type: two look-ups and one division per item).
+   */
+
   rank(member: readonly number[]): bigint {
     this.check(member);
     const prefix = new Prefix(this);
     let rank = 0n;
     for (let i = 0; i < this.n; i++) {
       // Every smaller choice for item i comes first: joining one of the blocks 0..v−1.
-      for (let b = 0; b < member[i]; b++) if (prefix.canJoin(b)) rank += prefix.waysWith(b, this.n - i - 1);
+      const ways = prefix.waysByType(this.n - i - 1);
+      const below = new Array<number>(this.types + 1).fill(0);
+      for (let b = 0; b < member[i]; b++) if (prefix.canJoin(b)) below[this.typeOf(prefix.sizes[b])]++;
+      for (let t = 1; t <= this.types; t++) if (below[t] > 0) rank += BigInt(below[t]) * ways(t);
       prefix.join(member[i]);
     }
     return rank;
@@ -260,12 +288,29 @@ class RgsRanker implements SetPartitionRanker {
     const out: number[] = [];
     let left = rank;
     for (let i = 0; i < this.n; i++) {
+      const r = this.n - i - 1;
+      const ways = prefix.waysByType(r);
+      const k = prefix.sizes.length;
       let chosen = -1;
-      for (let v = 0; v <= prefix.sizes.length && chosen < 0; v++) {
-        if (!prefix.canJoin(v)) continue;
-        const ways = prefix.waysWith(v, this.n - i - 1);
-        if (left < ways) chosen = v;
-        else left -= ways;
+      for (let v = 0; v < k && chosen < 0; ) {
+        // The run of blocks v..end−1 of one type (full blocks form runs too, with no way in).
+        const type = prefix.canJoin(v) ? this.typeOf(prefix.sizes[v]) : 0;
+        let end = v + 1;
+        while (end < k && (prefix.canJoin(end) ? this.typeOf(prefix.sizes[end]) : 0) === type) end++;
+        const each = type === 0 ? 0n : ways(type);
+        const run = BigInt(end - v) * each;
+        if (left < run) {
+          chosen = v + Number(left / each);
+          left %= each;
+        } else {
+          left -= run;
+          v = end;
+        }
+      }
+      if (chosen < 0 && prefix.canJoin(k)) {
+        const fresh = prefix.waysWith(k, r);
+        if (left < fresh) chosen = k;
+        else left -= fresh;
       }
       if (chosen < 0) throw new Error('set-partition ranker counts inconsistent (bug)');
       out.push(chosen);
