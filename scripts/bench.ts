@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, compositions, set-partitions, http, library, ranks) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
@@ -8,11 +8,13 @@ import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
 import { benchRanks } from './bench/ranks.js';
+import { benchShapes } from './bench/shapes.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
 const sections: Record<string, () => Promise<void>> = {
   unrestricted: benchUnrestricted,
   constrained: benchConstrained,
+  shapes: benchShapes,
   compositions: benchCompositions,
   'set-partitions': benchSetPartitions,
   http: benchHttp,

@@ -14,8 +14,13 @@ import type { RandomSource } from './random.js';
  *    small request. Unrestricted partitions use the table method up to n = 1000 (was 500), also
  *    as the base of the self-similar recursion, and it draws each distinct size's multiplicity
  *    at once (table-recursive.ts).
+ * 3: same stream derivation (the version is part of every stream key, so every stream changed);
+ *    the constrained planner serves families with `length` or `maxLength` by new methods
+ *    (box-subset, box-mixture, allowed-length-boltzmann, allowed-subset, samplers of the family
+ *    without one constraint plus rejection) and plans a maxLength no member can reach as absent
+ *    (plan-length.ts).
  */
-export const ALGORITHM_VERSION = 2;
+export const ALGORITHM_VERSION = 3;
 
 /** Characters a seed may use: URL-safe without escaping, so a seed pastes into a query string. */
 export const SEED_PATTERN = /^[A-Za-z0-9._~:-]{1,64}$/;

@@ -9,7 +9,6 @@ import {
   constrainedPartitionSampler,
   planCandidates,
   SAMPLE_WORK_LIMIT,
-  TABLE_CELL_LIMIT,
 } from '../../src/core/partitions/constrained/plan.js';
 import { satisfies, wellFormed } from '../support/enumerate-constrained.js';
 
@@ -90,16 +89,22 @@ describe('planner errors and limits', () => {
     expect(() => constrainedPartitionSampler({ kind: 'partition', n: 10, length: 11 })).toThrow(/at most 10 parts/);
     expect(() => constrainedPartitionSampler({ kind: 'partition', n: 10, length: 2, maxLength: 3 })).toThrow(RangeError);
   });
-  it(`names the limit when no method fits (tables <= ${TABLE_CELL_LIMIT} cells, <= ${SAMPLE_WORK_LIMIT} steps per sample)`, () => {
-    // Allowed list with a length constraint has only the general table: 1000 sizes x 50 x 1e6.
-    const allowed = Array.from({ length: 1000 }, (_, i) => i + 2);
-    const f: PartitionFamily = { kind: 'partition', n: 1_000_000, allowed, maxLength: 50_000 };
+  it(`names the limit and what would fit when no method fits (<= ${SAMPLE_WORK_LIMIT} steps per sample), never a method or a table`, () => {
+    // Box with both sides binding, about 44,700 rows and columns, half full: ~3e7 steps per sample.
+    const f: PartitionFamily = { kind: 'partition', n: 1_000_000_000, length: 44_721, maxPart: 44_722 };
     expect(() => constrainedPartitionSampler(f)).toThrow(LimitExceededError);
     try {
       constrainedPartitionSampler(f);
     } catch (error) {
-      expect((error as LimitExceededError).limit).toMatch(/table cells/);
+      const { message, limit } = error as LimitExceededError;
+      expect(limit).toMatch(/work per sample/);
+      expect(message).toMatch(/exactly 44721 parts/);
+      expect(message).toMatch(/fits with at most about \d+ parts/);
+      expect(message).not.toMatch(/cell|table|boltzmann|subset|mixture|\/1/i);
     }
+    // The short side is the part bound: the refusal says how small maxPart would have to be.
+    const g: PartitionFamily = { kind: 'partition', n: 1_000_000_000, maxLength: 60_000, maxPart: 40_000 };
+    expect(() => constrainedPartitionSampler(g)).toThrow(/fits with maxPart at most about \d+/);
   });
   it('n = 0 has the empty partition only', () => {
     const s = constrainedPartitionSampler({ kind: 'partition', n: 0, distinct: true, allowed: [3] });

@@ -1,3 +1,4 @@
+import { listLengthFeasible } from './length-feasibility.js';
 import { sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './spec.js';
 
 /**
@@ -15,7 +16,7 @@ export function isFeasible(spec: ConstrainedSpec, workLimit = 1e8): boolean | un
   if (spec.length !== undefined) kMin = spec.length;
   if (kMin > kMax || kMax === 0) return false;
   if (sizes.kind === 'interval') return intervalFeasible(n, sizes.lo, sizes.hi, distinct, kMin, kMax);
-  if (spec.length !== undefined || spec.maxLength !== undefined) return undefined;
+  if (spec.length !== undefined || spec.maxLength !== undefined) return listLengthFeasible(sizes.values, n, kMin, kMax, distinct);
   return distinct ? subsetSumFeasible(sizes.values, n, workLimit) : listFeasible(sizes.values, n, workLimit);
 }
 

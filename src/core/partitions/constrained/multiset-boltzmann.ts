@@ -144,7 +144,7 @@ export class MultisetBoltzmann implements PartitionSampler {
  * Non-negative solutions (i, j) of a i + b j = m, a < b: with g = gcd(a, b), a' = a/g, b' = b/g,
  * m' = m/g, the j are j0, j0 + a', j0 + 2a', ... <= m'/b' where j0 = m' * inverse(b') mod a'.
  */
-class PairSolutions {
+export class PairSolutions {
   private readonly g: number;
   private readonly a1: number;
   private readonly b1: number;
@@ -176,6 +176,23 @@ class PairSolutions {
   /** The j of the index-th solution. */
   nth(m: number, index: number): number {
     return this.first(m / this.g) + index * this.a1;
+  }
+
+  /** Solutions with from <= j <= to (allowed-length-boltzmann.ts). */
+  countBetween(m: number, from: number, to: number): number {
+    if (m < 0 || m % this.g !== 0 || to < from) return 0;
+    const start = this.firstFrom(m, from);
+    return start > to ? 0 : Math.floor((to - start) / this.a1) + 1;
+  }
+
+  /** The j of the index-th solution with j >= from. */
+  nthBetween(m: number, from: number, index: number): number {
+    return this.firstFrom(m, from) + index * this.a1;
+  }
+
+  private firstFrom(m: number, from: number): number {
+    const j0 = this.first(m / this.g);
+    return j0 >= from ? j0 : j0 + Math.ceil((from - j0) / this.a1) * this.a1;
   }
 }
 

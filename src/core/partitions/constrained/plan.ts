@@ -1,10 +1,12 @@
-import { EmptyFamilyError, LimitExceededError } from '../../errors.js';
+import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
-import type { Partition } from '../../partition.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
+import { solveTiltNewton } from './length-law.js';
+import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
+import { refusal } from './refusal.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -15,7 +17,6 @@ import {
 } from './spec.js';
 import { lengthTableSampler, sizeLengthTableSampler, sizeTableSampler, type TableSampler } from './table-sampler.js';
 import { solveTilt, tiltMoments } from './tilt.js';
-import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
 
 /**
  * Planner for constrained partition families: lists the exact methods that apply, estimates
@@ -36,7 +37,9 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *   (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); minPart = 7 up to n ~ 5e8 (2.2e6 steps, 0.6 s per sample at n = 1e8); allowed
- *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms).
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
+ *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
+ *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
  * A family no method fits throws LimitExceededError naming the limit. Empty families throw
  * EmptyFamilyError; contradictory bounds (minPart > maxPart, length > n) throw RangeError.
@@ -49,7 +52,10 @@ export const NOMINAL_SAMPLES = 100;
 const BOLTZMANN_CONSIDERED_ABOVE = 2e5;
 
 export interface PlanOptions {
-  /** Force a method by id without version, e.g. "distinct-boltzmann" (tests and benchmarks). */
+  /**
+   * Force a method by id without versions, e.g. "distinct-boltzmann" or "box-subset"; composite
+   * ids spelled out ("bounded-boltzmann+conjugate") or by their first part (tests and benchmarks).
+   */
   readonly method?: string;
 }
 
@@ -59,6 +65,8 @@ export interface PlanCandidate {
   readonly sampleWork: number;
   readonly fits: boolean;
   readonly build: () => PartitionSampler;
+  /** When it does not fit: what would, in the family's terms (for the refusal message). */
+  readonly hint?: string;
 }
 
 /** An exact uniform sampler for a constrained partition family (see the limits above). */
@@ -67,7 +75,9 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
   const spec = toSpec(family);
   let chosen: PlanCandidate | undefined;
   if (options.method !== undefined) {
-    chosen = candidates.find((c) => c.method.split('/')[0] === options.method);
+    // The id without versions ("bounded-boltzmann+length-filter"), else the first with that base name.
+    const bare = (id: string) => id.replace(/\/\d+/g, '');
+    chosen = candidates.find((c) => bare(c.method) === options.method) ?? candidates.find((c) => c.method.split('/')[0] === options.method);
     if (chosen === undefined) {
       throw new RangeError(`method ${options.method} does not apply to this family (applicable: ${candidates.map((c) => c.method).join(', ')})`);
     }
@@ -75,12 +85,10 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
     const fitting = candidates.filter((c) => c.fits);
     if (fitting.length === 0) {
       const least = candidates.reduce((a, b) => (cost(b) < cost(a) ? b : a));
-      throw new LimitExceededError(
-        `no exact method samples this family within the limits (table <= ${TABLE_CELL_LIMIT.toExponential(0)} cells, ` +
-          `<= ${SAMPLE_WORK_LIMIT.toExponential(0)} steps per sample); the cheapest, ${least.method}, needs ` +
-          `${least.setupWork.toExponential(1)} cells and ${least.sampleWork.toExponential(1)} steps per sample`,
-        `table cells <= ${TABLE_CELL_LIMIT.toExponential(0)}, work per sample <= ${SAMPLE_WORK_LIMIT.toExponential(0)}`,
-      );
+      // The hint of the method closest to fitting that knows what would fit.
+      const hinted = candidates.filter((c) => c.hint !== undefined);
+      const hint = hinted.length === 0 ? undefined : hinted.reduce((a, b) => (b.sampleWork < a.sampleWork ? b : a)).hint;
+      throw refusal(family, { setupWork: least.setupWork, sampleWork: least.sampleWork, hint }, TABLE_CELL_LIMIT, SAMPLE_WORK_LIMIT);
     }
     chosen = fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
   }
@@ -114,13 +122,15 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     };
     return [{ method: 'trivial/1', setupWork: 0, sampleWork: 1, fits: true, build: () => empty }];
   }
-  const hasLength = spec.length !== undefined || (spec.maxLength !== undefined && spec.maxLength < n);
+  // A maxLength no member can reach binds nothing: such a family is planned without it.
+  const hasLength = spec.length !== undefined || (spec.maxLength !== undefined && spec.maxLength < mostParts(spec));
   const kMin = spec.length ?? 0;
   const kMax = Math.min(spec.length ?? spec.maxLength ?? n, n);
   const open = sizes.kind === 'interval' && sizes.hi >= n;
   const lo = sizes.kind === 'interval' ? sizes.lo : 0;
   const r = sizeCount(sizes);
-  const shape = estimateShape(spec);
+  // The length branch solves its tilt by Newton steps (length-law.ts; only estimates depend on it).
+  const shape = estimateShape(spec, hasLength ? solveTiltNewton : solveTilt);
   const out: PlanCandidate[] = [];
   const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler) =>
     out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build });
@@ -160,64 +170,37 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
   }
-  if (!distinct && open && lo === 1 && spec.length === undefined && hasLength) {
-    // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
-    boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: kMax }, n), conjugate, kMax, shape));
-  }
-  if (open && spec.length !== undefined && spec.length >= 1) {
-    // Exactly k parts >= lo (distinct: subtract the staircase) <-> parts of N into exactly k
-    // parts <-> (conjugate) N - k into parts <= k, plus one part k.
-    const k = spec.length;
-    const N = n - k * (lo - 1) - (distinct ? (k * (k - 1)) / 2 : 0);
-    const back = (p: Partition) => {
-      const q = shiftParts(conjugate(addPart(p, k)), lo - 1);
-      return distinct ? addStaircase(q) : q;
-    };
-    if (N - k >= 1) {
-      boltzmann(() => conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape));
-    } else if (N === k) {
-      // A single member: k equal parts before the maps.
-      const only = back({ sizes: [], multiplicities: [] });
-      const single: PartitionSampler = {
-        method: 'single-member/1',
-        expectedLength: k,
-        expectedDistinct: only.sizes.length,
-        expectedWork: only.sizes.length,
-        sample: () => ({ sizes: only.sizes.slice(), multiplicities: only.multiplicities.slice() }),
-      };
-      out.push({ method: single.method, setupWork: 0, sampleWork: single.expectedWork, fits: true, build: () => single });
-    }
+  const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
+  if (hasLength) {
+    out.push(...lengthCandidates({ spec, shape, feasible, fits, withoutLength: () => cheapestWithoutLength(family) }));
+  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits))) {
+    // Few parts fit (large minPart, or distinct parts) and no method above fits: the family is the
+    // union over k <= mostParts of boxes, which the length branch samples too (plan-length.ts).
+    out.push(...implicitLengthCandidates({ spec, shape, feasible, fits, withoutLength: () => null }));
   }
   return out;
 }
 
-/** Wraps a sampler of the conjugate family. */
-function conjugated(
-  inner: MultisetBoltzmann,
-  map: (p: Partition) => Partition,
-  length: number,
-  shape: { expectedDistinct: number },
-): PartitionSampler {
-  return {
-    method: `${inner.method}+conjugate`,
-    expectedLength: length,
-    // Conjugation keeps the number of distinct sizes (corners of the Ferrers diagram).
-    expectedDistinct: Math.min(length, Math.max(inner.expectedDistinct, shape.expectedDistinct)),
-    expectedWork: inner.expectedWork + inner.expectedDistinct + length,
-    sample: (source) => map(inner.sample(source)),
-  };
+/** The cheapest fitting method for the family with its length constraint dropped (for length filters). */
+function cheapestWithoutLength(family: PartitionFamily): PlanCandidate | null {
+  const { length: _length, maxLength: _maxLength, ...rest } = family;
+  const fitting = planCandidates(rest).filter((c) => c.fits);
+  return fitting.length === 0 ? null : fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
 }
 
 /**
  * Mean length and number of distinct sizes, from the Boltzmann tilt of the family without its
  * length constraint (exact as n grows; an estimate at small n), then the length constraint.
  */
-function estimateShape(spec: ConstrainedSpec): { expectedLength: number; expectedDistinct: number; tilt?: number } {
+function estimateShape(
+  spec: ConstrainedSpec,
+  solve: (sizes: ConstrainedSpec['sizes'], n: number, distinct: boolean) => number = solveTilt,
+): { expectedLength: number; expectedDistinct: number; tilt?: number } {
   let length = 1;
   let distinctSizes = 1;
   let tilt: number | undefined;
   if (sizeCount(spec.sizes) > 1 && spec.n > 0) {
-    tilt = solveTilt(spec.sizes, spec.n, spec.distinct);
+    tilt = solve(spec.sizes, spec.n, spec.distinct);
     const moments = tiltMoments(spec.sizes, tilt, spec.distinct);
     length = moments.parts;
     distinctSizes = moments.distinctSizes;

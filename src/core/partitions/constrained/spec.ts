@@ -152,6 +152,13 @@ export function isUnrestricted(spec: ConstrainedSpec): boolean {
  * constraint the user gave.
  */
 export function emptyFamilyMessage(family: PartitionFamily): string {
+  const clauses = familyClauses(family);
+  const what = clauses.length === 0 ? 'exists' : `has ${clauses.join(' and ')}`;
+  return `no partition of ${family.n} ${what}`;
+}
+
+/** The constraints the user gave, in words: "distinct parts", "all parts <= 9", "exactly 4 parts". */
+export function familyClauses(family: PartitionFamily): string[] {
   const clauses: string[] = [];
   if (family.distinct) clauses.push('distinct parts');
   if (family.allowed !== undefined) {
@@ -168,6 +175,5 @@ export function emptyFamilyMessage(family: PartitionFamily): string {
   }
   if (family.length !== undefined) clauses.push(`exactly ${family.length} part${family.length === 1 ? '' : 's'}`);
   if (family.maxLength !== undefined) clauses.push(`at most ${family.maxLength} part${family.maxLength === 1 ? '' : 's'}`);
-  const what = clauses.length === 0 ? 'exists' : `has ${clauses.join(' and ')}`;
-  return `no partition of ${family.n} ${what}`;
+  return clauses;
 }

@@ -1,0 +1,256 @@
+/**
+ * Every constrained family shape — each constraint alone and every pair — at n = 1e3 .. 1e9:
+ * milliseconds per exact sample of the planner's choice, and the ratio to one free Boltzmann
+ * proposal of the same family (independent multiplicities at the family's tilts, no
+ * conditioning: the unit of work), the two timed in alternating rounds so that load from other
+ * processes hits both alike; the ratio is the median over rounds. Setup (planning, tilts,
+ * tables) is reported apart. Then the requests of issue 13's table.
+ *
+ * `npm run bench -- shapes` (about two minutes). Shapes scale with n: bounds near sqrt(n) so
+ * that they bind; see SHAPES.
+ */
+import type { PartitionFamily } from '../../src/core/family.js';
+import { nextOpenDouble, type RandomSource } from '../../src/core/random.js';
+import { constrainedPartitionSampler } from '../../src/core/partitions/constrained/plan.js';
+import { solveTiltNewton } from '../../src/core/partitions/constrained/length-law.js';
+import { solveTwoTilts } from '../../src/core/partitions/constrained/allowed-length-boltzmann.js';
+import { sumOverSizes } from '../../src/core/partitions/constrained/tilt.js';
+import { toSpec, type SizeSet } from '../../src/core/partitions/constrained/spec.js';
+import { visitThinned } from '../../src/core/partitions/constrained/thinning.js';
+import type { PartitionSampler } from '../../src/core/sampler.js';
+import { sampleSource } from '../../src/core/seeding.js';
+
+type Shape = (n: number) => Omit<PartitionFamily, 'kind' | 'n'>;
+
+const root = (n: number) => Math.ceil(Math.sqrt(n));
+const COINS = [1, 2, 5, 10, 20, 50];
+/** 1000 sizes 1 + floor(i d), d = max(1, 4n / 1e6): their sum (about 2n or 500500) reaches n with distinct parts. */
+const spread = (n: number) => {
+  const d = Math.max(1, (4 * n) / 1e6);
+  return Array.from({ length: 1000 }, (_, i) => 1 + Math.floor(i * d));
+};
+
+/** [name, family] — the constraint values used at each n. */
+export const SHAPES: Array<[string, Shape]> = [
+  ['distinct', () => ({ distinct: true })],
+  ['minPart=7', () => ({ minPart: 7 })],
+  ['maxPart=sqrt(n)', (n) => ({ maxPart: root(n) })],
+  ['length=sqrt(n)/4', (n) => ({ length: Math.ceil(root(n) / 4) })],
+  ['maxLength=sqrt(n)/4', (n) => ({ maxLength: Math.ceil(root(n) / 4) })],
+  ['allowed=1,2,5,10,20,50', () => ({ allowed: COINS })],
+  ['distinct,minPart=7', () => ({ distinct: true, minPart: 7 })],
+  ['distinct,maxPart=2sqrt(n)', (n) => ({ distinct: true, maxPart: 2 * root(n) })],
+  ['distinct,length=sqrt(n)/4', (n) => ({ distinct: true, length: Math.ceil(root(n) / 4) })],
+  ['distinct,maxLength=sqrt(n)/4', (n) => ({ distinct: true, maxLength: Math.ceil(root(n) / 4) })],
+  ['distinct,allowed=1000 sizes', (n) => ({ distinct: true, allowed: spread(n) })],
+  ['minPart=7,maxPart=sqrt(n)', (n) => ({ minPart: 7, maxPart: root(n) })],
+  ['minPart=7,length=sqrt(n)/4', (n) => ({ minPart: 7, length: Math.ceil(root(n) / 4) })],
+  ['minPart=7,maxLength=sqrt(n)/4', (n) => ({ minPart: 7, maxLength: Math.ceil(root(n) / 4) })],
+  ['minPart=2,allowed=coins', () => ({ minPart: 2, allowed: COINS })],
+  ['maxPart=2sqrt(n),length=sqrt(n)', (n) => ({ maxPart: 2 * root(n), length: root(n) })],
+  ['maxPart=2sqrt(n),maxLength=sqrt(n)', (n) => ({ maxPart: 2 * root(n), maxLength: root(n) })],
+  ['maxPart=20,allowed=coins', () => ({ maxPart: 20, allowed: COINS })],
+  ['length=n/20,allowed=coins', (n) => ({ length: Math.ceil(n / 20), allowed: COINS })],
+  ['maxLength=n/30,allowed=coins', (n) => ({ maxLength: Math.ceil(n / 30), allowed: COINS })],
+];
+
+/** The requests of issue 13's table (each must cost at most 50 ms per sample). */
+export const ISSUE_ROWS: PartitionFamily[] = [
+  { kind: 'partition', n: 3000, length: 40, maxPart: 200 },
+  { kind: 'partition', n: 100_000, length: 50, maxPart: 3000 },
+  { kind: 'partition', n: 1_000_000_000, length: 1000, maxPart: 2_000_000 },
+  { kind: 'partition', n: 100_000, distinct: true, maxLength: 100 },
+  { kind: 'partition', n: 10_000_000, distinct: true, maxLength: 1000 },
+  { kind: 'partition', n: 1_000_000_000, minPart: 2 },
+  { kind: 'partition', n: 1_000_000_000, minPart: 100 },
+  { kind: 'partition', n: 100_000_000, distinct: true },
+  { kind: 'partition', n: 1_000_000_000, distinct: true },
+  { kind: 'partition', n: 10_000, allowed: [3, 7, 11], length: 1000 },
+  { kind: 'partition', n: 1_000_000, maxPart: 1000, maxLength: 2000 },
+  { kind: 'partition', n: 1_000_000, minPart: 10, maxLength: 500 },
+  { kind: 'partition', n: 100_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },
+  { kind: 'partition', n: 1_000_000, distinct: true, minPart: 50, maxPart: 5000 },
+];
+
+const SIZES = [1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
+const ROUNDS = 5;
+const ROUND_MS = 40;
+
+/**
+ * One free Boltzmann proposal of the family: every allowed size s gets an independent
+ * multiplicity, geometric with P(Z >= j) = q^j or Bernoulli(q / (1 + q)) for distinct parts,
+ * q = y x^s, at the family's tilts (x for the size; y for the number of parts when the family
+ * has a length constraint, else y = 1). Sizes with q >= 1/4 are drawn one by one, the sparse
+ * tail by thinning (only the sizes that occur). Returns the size drawn.
+ */
+function freeProposal(family: PartitionFamily): (source: RandomSource) => number {
+  const spec = toSpec(family);
+  const { sizes, distinct, n } = spec;
+  const parts = spec.length ?? spec.maxLength;
+  let t: number;
+  let u = 0;
+  if (parts === undefined) t = solveTiltNewton(sizes, n, distinct);
+  else if (sizes.kind === 'list' && !distinct) ({ t, u } = solveTwoTilts(sizes.values, n, parts, spec.length === undefined));
+  else ({ t, u } = intervalTwoTilts(sizes, n, parts, distinct));
+  const q = (s: number) => Math.exp(u + t * s);
+  const draw = (s: number, source: RandomSource): number => {
+    const lq = u + t * s;
+    if (distinct) return source.nextDouble() < 1 / (1 + Math.exp(-lq)) ? 1 : 0;
+    return Math.floor(Math.log(nextOpenDouble(source)) / lq);
+  };
+  return (source) => {
+    let total = 0;
+    if (sizes.kind === 'list') {
+      for (const s of sizes.values) total += s * draw(s, source);
+      return total;
+    }
+    let s = sizes.lo;
+    for (; s <= sizes.hi && q(s) >= 0.25; s++) total += s * draw(s, source);
+    if (s <= sizes.hi) {
+      const p = distinct ? (k: number) => 1 / (1 + 1 / q(k)) : q;
+      visitThinned(source, s, sizes.hi, p, (k) => {
+        // Occurs: 1, or 1 + geometric for multisets (memorylessness).
+        total += k * (distinct ? 1 : 1 + Math.floor(Math.log(nextOpenDouble(source)) / (u + t * k)));
+        return true;
+      });
+    }
+    return total;
+  };
+}
+
+/** (t, u) with mean size n and mean length `parts` over an interval of sizes (Newton, bracketed by halving). */
+function intervalTwoTilts(sizes: SizeSet, n: number, parts: number, distinct: boolean): { t: number; u: number } {
+  const moments = (t: number, u: number) => {
+    const terms = (k: number) => {
+      const lq = u + t * k;
+      if (distinct) {
+        const p = 1 / (1 + Math.exp(-lq));
+        return [p, p * (1 - p)];
+      }
+      const d = -Math.expm1(lq);
+      return [Math.exp(lq) / d, Math.exp(lq) / (d * d)];
+    };
+    return {
+      N: sumOverSizes(sizes, t, (k) => k * terms(k)[0]),
+      L: sumOverSizes(sizes, t, (k) => terms(k)[0]),
+      vN: sumOverSizes(sizes, t, (k) => k * k * terms(k)[1]),
+      vL: sumOverSizes(sizes, t, (k) => terms(k)[1]),
+      c: sumOverSizes(sizes, t, (k) => k * terms(k)[1]),
+    };
+  };
+  const lo = sizes.kind === 'interval' ? sizes.lo : sizes.values[0];
+  let t = -1 / Math.max(1, n / parts - lo + 1);
+  let u = distinct ? 0 : -1e-3 - t * lo;
+  for (let i = 0; i < 40; i++) {
+    const m = moments(t, u);
+    const gN = m.N - n;
+    const gL = m.L - parts;
+    if (Math.abs(gN) < 1e-6 * n && Math.abs(gL) < 1e-6 * parts) break;
+    const det = m.vN * m.vL - m.c * m.c;
+    if (!(det > 0)) break;
+    let dt = -(m.vL * gN - m.c * gL) / det;
+    let du = -(m.vN * gL - m.c * gN) / det;
+    // Keep every q < 1 for multisets (t < 0 and u + t lo < 0).
+    while (!distinct && !(t + dt < 0 && u + du + (t + dt) * lo < 0)) {
+      dt /= 2;
+      du /= 2;
+    }
+    t += dt;
+    u += du;
+  }
+  return { t, u };
+}
+
+function median(values: number[]): number {
+  const s = values.slice().sort((a, b) => a - b);
+  const mid = s.length >> 1;
+  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+}
+
+function fmt(ms: number): string {
+  if (ms >= 100) return ms.toFixed(0);
+  if (ms >= 1) return ms.toFixed(2);
+  if (ms >= 0.01) return ms.toFixed(3);
+  return ms.toExponential(1);
+}
+
+/** Times `once` for about ROUND_MS; returns ms per call. */
+function timeRound(once: (i: number) => void, start: number): { ms: number; next: number } {
+  const t0 = performance.now();
+  let i = start;
+  do once(i++);
+  while (performance.now() - t0 < ROUND_MS && i - start < 100_000);
+  return { ms: (performance.now() - t0) / (i - start), next: i };
+}
+
+interface Cell {
+  readonly method: string;
+  readonly setupMs: number;
+  readonly sampleMs: number;
+  readonly proposalMs: number;
+  readonly ratio: number;
+}
+
+function measure(family: PartitionFamily): Cell | string {
+  let sampler: PartitionSampler;
+  const t0 = performance.now();
+  try {
+    sampler = constrainedPartitionSampler(family);
+  } catch (error) {
+    return `refused (${(error as Error).name === 'EmptyFamilyError' ? 'empty' : 'limit'})`;
+  }
+  const setupMs = performance.now() - t0;
+  const proposal = freeProposal(family);
+  const key = JSON.stringify(family);
+  let i = 0;
+  let j = 0;
+  const samples: number[] = [];
+  const proposals: number[] = [];
+  const ratios: number[] = [];
+  for (let r = 0; r < ROUNDS; r++) {
+    const a = timeRound((k) => sampler.sample(sampleSource('bench', k, key)), i);
+    i = a.next;
+    const b = timeRound((k) => proposal(sampleSource('free', k, key)), j);
+    j = b.next;
+    samples.push(a.ms);
+    proposals.push(b.ms);
+    ratios.push(a.ms / b.ms);
+  }
+  return { method: sampler.method, setupMs, sampleMs: median(samples), proposalMs: median(proposals), ratio: median(ratios) };
+}
+
+function row(cells: string[], widths: number[]): string {
+  return cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ');
+}
+
+export async function benchShapes(): Promise<void> {
+  console.log('\n## Constrained family shapes: ms per exact sample (planner choice) and ratio to one free proposal, same run');
+  console.log(`(${ROUNDS} alternating rounds of ~${ROUND_MS} ms per cell; setup = planning, tilts and tables, once per family)`);
+  const widths = [36, 6, 34, 9, 10, 11, 7];
+  console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
+  for (const [name, shape] of SHAPES) {
+    for (const n of SIZES) {
+      const family = { kind: 'partition', n, ...shape(n) } as PartitionFamily;
+      const cell = measure(family);
+      const label = n.toExponential(0).replace('+', '');
+      if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));
+      else console.log(row([name, label, cell.method, fmt(cell.setupMs), fmt(cell.sampleMs), fmt(cell.proposalMs), cell.ratio.toFixed(1)], widths));
+    }
+  }
+  console.log('\n## Issue 13 requests: ms per exact sample and ratio to one free proposal, same run');
+  console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
+  for (const family of ISSUE_ROWS) {
+    const { kind: _kind, n, ...rest } = family;
+    const name = JSON.stringify(rest)
+      .replace(/"allowed":\[[^\]]{40,}\]/, '"allowed":[…]')
+      .replace(/[{}"]/g, '');
+    const cell = measure(family);
+    const label = n.toExponential(0).replace('+', '');
+    if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));
+    else console.log(row([name, label, cell.method, fmt(cell.setupMs), fmt(cell.sampleMs), fmt(cell.proposalMs), cell.ratio.toFixed(1)], widths));
+  }
+}
+
+if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop()!)) {
+  await benchShapes();
+}

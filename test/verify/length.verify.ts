@@ -1,0 +1,150 @@
+import { describe, expect, it } from 'vitest';
+import { countPartitions } from '../../src/core/counting/partition-counts.js';
+import type { PartitionFamily } from '../../src/core/family.js';
+import { lengthOf, partsOf, sizeOf, type Partition } from '../../src/core/partition.js';
+import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
+import { sampleSource } from '../../src/core/seeding.js';
+import { chiSquareTest } from '../support/chi-square.js';
+import { satisfies } from '../support/enumerate-constrained.js';
+
+/**
+ * The length branch's methods at sizes where exact counting still works but the planner already
+ * uses the new method: the law of a statistic of the samples (largest part, number of parts,
+ * multiplicity of one size) against its exact law computed from BigInt counts
+ * (countPartitions, itself checked against OEIS in test/constrained/counts.test.ts). Pearson
+ * chi-square, cells pooled to expect >= 20 samples (common practice), alpha = 1e-4 per test.
+ */
+const ALPHA = 1e-4;
+const SAMPLES = 20_000;
+
+/** BigInt ratio as a double. */
+function ratio(a: bigint, b: bigint): number {
+  const scale = 10n ** 18n;
+  return Number((a * scale) / b) / 1e18;
+}
+
+/**
+ * Chi-square of a statistic's observed values against exact probabilities (value -> P), adjacent
+ * values pooled from both ends until each cell expects at least 20.
+ */
+function lawTest(observed: Map<number, number>, exact: Map<number, number>): { pValue: number; cells: number } {
+  const values = [...exact.keys()].sort((a, b) => a - b);
+  const cellsObserved: number[] = [];
+  const cellsProbability: number[] = [];
+  let o = 0;
+  let p = 0;
+  for (const v of values) {
+    o += observed.get(v) ?? 0;
+    p += exact.get(v)!;
+    if (p * SAMPLES >= 20) {
+      cellsObserved.push(o);
+      cellsProbability.push(p);
+      o = 0;
+      p = 0;
+    }
+  }
+  if (p > 0 || o > 0) {
+    cellsObserved[cellsObserved.length - 1] += o;
+    cellsProbability[cellsProbability.length - 1] += p;
+  }
+  let seen = 0;
+  for (const c of observed.values()) seen += c;
+  expect(seen).toBe(SAMPLES);
+  const { pValue } = chiSquareTest(cellsObserved, cellsProbability);
+  return { pValue, cells: cellsObserved.length };
+}
+
+function run(family: PartitionFamily, method: string, statistic: (p: Partition) => number, exact: Map<number, number>, seed: string): void {
+  // The planner's own choice at this size (tables would still fit, but cost more).
+  expect(constrainedPartitionSampler(family).method.replace(/\/\d+/g, '')).toBe(method);
+  expect(planCandidates(family).some((c) => c.method.startsWith('table') && c.fits)).toBe(true);
+  const sampler = constrainedPartitionSampler(family, { method });
+  const observed = new Map<number, number>();
+  for (let i = 0; i < SAMPLES; i++) {
+    const p = sampler.sample(sampleSource(seed, i, 'verify-length'));
+    if (i < 200) expect(sizeOf(p) === family.n && satisfies(partsOf(p), family)).toBe(true);
+    const v = statistic(p);
+    observed.set(v, (observed.get(v) ?? 0) + 1);
+  }
+  const result = lawTest(observed, exact);
+  expect(result.cells).toBeGreaterThan(5);
+  expect(result.pValue).toBeGreaterThan(ALPHA);
+}
+
+describe('box-subset: law of the largest part', () => {
+  it('n = 1200, exactly 20 parts <= 100', () => {
+    const base = { kind: 'partition', n: 1200, length: 20 } as const;
+    const family: PartitionFamily = { ...base, maxPart: 100 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    let below = 0n;
+    for (let j = 60; j <= 100; j++) {
+      const upTo = countPartitions({ ...base, maxPart: j });
+      exact.set(j, ratio(upTo - below, total));
+      below = upTo;
+    }
+    run(family, 'box-subset', (p) => p.sizes[0], exact, 'box-largest');
+  });
+
+  it('n = 1500, at most 50 parts <= 60 (box more than half full: complemented)', () => {
+    const base = { kind: 'partition', n: 1500, maxLength: 50 } as const;
+    const family: PartitionFamily = { ...base, maxPart: 60 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    let below = 0n;
+    for (let j = 30; j <= 60; j++) {
+      const upTo = countPartitions({ ...base, maxPart: j });
+      exact.set(j, ratio(upTo - below, total));
+      below = upTo;
+    }
+    run(family, 'box-subset', (p) => p.sizes[0], exact, 'box-largest-complement');
+  });
+});
+
+describe('box-mixture: law of the number of parts', () => {
+  it('n = 20000, at most 110 distinct parts (typical ~108: the bound binds mildly, k spread over many values)', () => {
+    const family: PartitionFamily = { kind: 'partition', n: 20_000, distinct: true, maxLength: 110 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    for (let k = 1; k <= 110; k++) exact.set(k, ratio(countPartitions({ kind: 'partition', n: 20_000, distinct: true, length: k }), total));
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-distinct');
+  });
+
+  it('n = 8000, at most 100 parts >= 5', () => {
+    const family: PartitionFamily = { kind: 'partition', n: 8000, minPart: 5, maxLength: 100 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    for (let k = 1; k <= 100; k++) exact.set(k, ratio(countPartitions({ kind: 'partition', n: 8000, minPart: 5, length: k }), total));
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-minpart');
+  });
+});
+
+describe('allowed-length-boltzmann: law of the multiplicity of the largest size', () => {
+  it('n = 3000, exactly 150 parts from {1, 2, 5, 10, 20, 50}', () => {
+    const family: PartitionFamily = { kind: 'partition', n: 3000, allowed: [1, 2, 5, 10, 20, 50], length: 150 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    for (let j = 0; j * 50 <= 3000 && j <= 150; j++) {
+      const rest = countPartitions({ kind: 'partition', n: 3000 - 50 * j, allowed: [1, 2, 5, 10, 20], length: 150 - j });
+      if (rest > 0n) exact.set(j, ratio(rest, total));
+    }
+    const fifties = (p: Partition) => (p.sizes[0] === 50 ? p.multiplicities[0] : 0);
+    run(family, 'allowed-length-boltzmann', fifties, exact, 'allowed-fifties');
+  });
+});
+
+describe('allowed-subset: law of the largest part', () => {
+  it('n = 1200, exactly 20 distinct odd parts below 120', () => {
+    const odd = Array.from({ length: 60 }, (_, i) => 2 * i + 1);
+    const family: PartitionFamily = { kind: 'partition', n: 1200, distinct: true, allowed: odd, length: 20 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    let below = 0n;
+    for (let j = 61; j <= 119; j += 2) {
+      const upTo = countPartitions({ ...family, allowed: odd.filter((v) => v <= j) });
+      if (upTo > below) exact.set(j, ratio(upTo - below, total));
+      below = upTo;
+    }
+    run(family, 'allowed-subset', (p) => p.sizes[0], exact, 'subset-largest');
+  });
+});
