@@ -7,14 +7,15 @@
  */
 import { serve } from '@hono/node-server';
 import type { AddressInfo } from 'node:net';
-import type { CompositionFamily, PartitionFamily } from '../../src/core/family.js';
+import type { CompositionFamily, PartitionFamily, SetPartitionFamily } from '../../src/core/family.js';
 import { compositionRanker } from '../../src/core/ranks/composition-ranker.js';
 import { partitionRanker } from '../../src/core/ranks/partition-ranker.js';
 import type { Ranker } from '../../src/core/ranks/ranker.js';
+import { setPartitionRanker } from '../../src/core/set-partitions/ranker.js';
 import { createApp } from '../../src/http/app.js';
 
-type Family = PartitionFamily | CompositionFamily;
-const rankerOf = (f: Family): Ranker => (f.kind === 'partition' ? partitionRanker(f) : compositionRanker(f));
+type Family = PartitionFamily | CompositionFamily | SetPartitionFamily;
+const rankerOf = (f: Family): Ranker => (f.kind === 'partition' ? partitionRanker(f) : f.kind === 'composition' ? compositionRanker(f) : setPartitionRanker(f));
 
 const LISTED: [string, Family, string][] = [
   ['partitions n=30', { kind: 'partition', n: 30 }, '/v1/partitions/list?n=30'],
@@ -25,6 +26,9 @@ const LISTED: [string, Family, string][] = [
   ['compositions n=20', { kind: 'composition', n: 20 }, '/v1/compositions/list?n=20'],
   ['compositions n=25, parts in {1,2,3}', { kind: 'composition', n: 25, allowed: [1, 2, 3] }, '/v1/compositions/list?n=25&allowed=1,2,3'],
   ['compositions n=30, 5 parts', { kind: 'composition', n: 30, length: 5 }, '/v1/compositions/list?n=30&length=5'],
+  ['set partitions n=12 (as=rgs)', { kind: 'set-partition', n: 12 }, '/v1/set-partitions/list?n=12&as=rgs'],
+  ['set partitions n=14, 4 blocks (as=rgs)', { kind: 'set-partition', n: 14, blocks: 4 }, '/v1/set-partitions/list?n=14&blocks=4&as=rgs'],
+  ['set partitions n=16, blocks of 2 to 4 (as=rgs)', { kind: 'set-partition', n: 16, minBlockSize: 2, maxBlockSize: 4 }, '/v1/set-partitions/list?n=16&minBlockSize=2&maxBlockSize=4&as=rgs'],
 ];
 
 /** Members per second of `run(budget)`, which lists up to `budget` members and returns how many; about a second in all. */
@@ -73,6 +77,9 @@ const UNRANKED: [string, (n: number) => Family][] = [
   ['compositions', (n) => ({ kind: 'composition', n })],
   ['compositions, parts in {1,2}', (n) => ({ kind: 'composition', n, allowed: [1, 2] })],
   ['compositions, 10 parts', (n) => ({ kind: 'composition', n, length: 10 })],
+  ['set partitions', (n) => ({ kind: 'set-partition', n })],
+  ['set partitions, 10 blocks', (n) => ({ kind: 'set-partition', n, blocks: 10 })],
+  ['set partitions, blocks <= 3', (n) => ({ kind: 'set-partition', n, maxBlockSize: 3 })],
 ];
 
 /** Median µs of `once(i)` over rounds of calls. */
@@ -113,7 +120,7 @@ export async function benchRanks(): Promise<void> {
   console.log('| family | n | build ms | unrank µs | rank µs |');
   console.log('|---|---:|---:|---:|---:|');
   for (const [name, make] of UNRANKED) {
-    for (const n of [100, 1000, 5000]) {
+    for (const n of name.startsWith('set partitions') ? [100, 500, 1000, 5000] : [100, 1000, 5000]) {
       const t0 = performance.now();
       let ranker: Ranker;
       try {

@@ -25,10 +25,13 @@ const COMMANDS: Record<string, { path: string; usage: string }> = {
   'count set-partitions': { path: '/v1/set-partitions/count', usage: 'partsmith count set-partitions --n 10 [--blocks 3 ...]' },
   'list partitions': { path: '/v1/partitions/list', usage: 'partsmith list [partitions] --n 12 [--max-length 4 ...] [--start RANK] [--count K] [--format text|json|ndjson] [--out FILE]' },
   'list compositions': { path: '/v1/compositions/list', usage: 'partsmith list compositions --n 10 [--allowed 1,2,3 ...] [--start RANK] [--count K] [--format text|json|ndjson] [--out FILE]' },
+  'list set-partitions': { path: '/v1/set-partitions/list', usage: 'partsmith list set-partitions --n 6 [--blocks 3 ...] [--as blocks|rgs] [--start RANK] [--count K] [--format text|json|ndjson] [--out FILE]' },
   'rank partitions': { path: '/v1/partitions/rank', usage: 'partsmith rank [partitions] --parts 5,4,1 [--n 10] [--max-part 5 ...]' },
   'rank compositions': { path: '/v1/compositions/rank', usage: 'partsmith rank compositions --parts 1,3,1 [--n 5] [--length 3 ...]' },
+  'rank set-partitions': { path: '/v1/set-partitions/rank', usage: 'partsmith rank set-partitions --rgs 0,1,0,2 [--n 4] [--max-blocks 3 ...]' },
   'unrank partitions': { path: '/v1/partitions/unrank', usage: 'partsmith unrank [partitions] --n 12 --rank 17 [--distinct ...]' },
   'unrank compositions': { path: '/v1/compositions/unrank', usage: 'partsmith unrank compositions --n 10 --rank 17 [--length 3 ...]' },
+  'unrank set-partitions': { path: '/v1/set-partitions/unrank', usage: 'partsmith unrank set-partitions --n 10 --rank 17 [--blocks 3 ...] [--as blocks|rgs]' },
 };
 
 /** Commands followed by the kind of family (partitions when it is left out). */
@@ -44,9 +47,10 @@ Commands:
   partsmith compositions ...    uniformly random compositions of n
   partsmith set-partitions ...  uniformly random set partitions of the items 1..n
   partsmith count [partitions|compositions|set-partitions] ...   the exact number of members of a family
-  partsmith list [partitions|compositions] ...    every member, in order, each with its rank
+  partsmith list [partitions|compositions|set-partitions] ...    every member, in order, each with its rank
   partsmith rank [partitions|compositions] --parts 5,4,1 ...   the rank of a member
-  partsmith unrank [partitions|compositions] --n 12 --rank 17 ...   the member at a rank
+  partsmith rank set-partitions --rgs 0,1,0,2 ...   the rank of a set partition (its restricted growth string)
+  partsmith unrank [partitions|compositions|set-partitions] --n 12 --rank 17 ...   the member at a rank
   partsmith serve [--port 8787] [--host 127.0.0.1]   run the HTTP service
 
 Every command takes --help. Flags are the API's query parameters in kebab case (maxPart is
@@ -60,7 +64,8 @@ Examples:
   partsmith partitions --n 100 --count 5 --seed demo --url http://127.0.0.1:8787
 
 Orders: partitions list their parts largest first, in reverse lexicographic order (n first,
-1 + ... + 1 last); compositions in lexicographic order of their parts (1 + ... + 1 first).
+1 + ... + 1 last); compositions in lexicographic order of their parts (1 + ... + 1 first); set
+partitions in lexicographic order of their restricted growth strings (one block first).
 `;
 
 /** Where the CLI writes; the process's own streams unless a caller (a test) passes others. */

@@ -6,14 +6,26 @@ import {
   type CompositionsCountParams,
   type CompositionsDocument,
   type CompositionsParams,
+  type CompositionsListParams,
+  type CompositionsRankParams,
+  type CompositionsUnrankParams,
   type CountDocument,
+  type ListLine,
   type PartitionsCountParams,
   type PartitionsDocument,
+  type PartitionsListParams,
   type PartitionsParams,
+  type PartitionsRankParams,
+  type PartitionsUnrankParams,
+  type RankDocument,
   type SampleLine,
   type SetPartitionsCountParams,
   type SetPartitionsDocument,
+  type SetPartitionsListParams,
   type SetPartitionsParams,
+  type SetPartitionsRankParams,
+  type SetPartitionsUnrankParams,
+  type UnrankDocument,
 } from './params.js';
 import { backoffDelay, isConnectionError, parseRetryAfter, RETRYABLE_STATUSES, sleep } from './retry.js';
 
@@ -45,8 +57,11 @@ export interface CallOptions {
   readonly signal?: AbortSignal;
 }
 
-/** Parameters of a sampling call that picks its own format. */
+/** Parameters of a sampling or listing call that picks its own format. */
 type Sampling<P> = Omit<P, 'format'>;
+
+/** Ranks (rank, start) may be given as BigInts too: they travel as decimal strings. */
+type Ranked<P> = { [K in keyof P]: K extends 'rank' | 'start' ? P[K] | bigint : P[K] };
 
 export interface HealthDocument {
   readonly status: 'ok';
@@ -73,6 +88,28 @@ export interface PartsmithClient {
   streamSetPartitions(params: Sampling<SetPartitionsParams>, options?: CallOptions): AsyncGenerator<SampleLine<number[]>>;
   /** GET /v1/set-partitions/count. */
   countSetPartitions(params: SetPartitionsCountParams, options?: CallOptions): Promise<CountDocument>;
+  /**
+   * GET /v1/partitions/list as NDJSON: the members from rank `start` (default 0), `count` of them
+   * (default 1,000; at most the server's count limit, so page with start), each with its rank,
+   * read incrementally.
+   */
+  listPartitions(params: Ranked<Sampling<PartitionsListParams>>, options?: CallOptions): AsyncGenerator<ListLine>;
+  /** GET /v1/partitions/rank: the rank of `parts` (a decimal string); a non-member is a 422 PartsmithError naming parts. */
+  rankPartition(params: PartitionsRankParams, options?: CallOptions): Promise<RankDocument>;
+  /** GET /v1/partitions/unrank: the member at `rank` (a BigInt, or a decimal string). */
+  unrankPartition(params: Ranked<PartitionsUnrankParams>, options?: CallOptions): Promise<UnrankDocument>;
+  /** GET /v1/compositions/list as NDJSON, read incrementally. */
+  listCompositions(params: Ranked<Sampling<CompositionsListParams>>, options?: CallOptions): AsyncGenerator<ListLine>;
+  /** GET /v1/compositions/rank. */
+  rankComposition(params: CompositionsRankParams, options?: CallOptions): Promise<RankDocument>;
+  /** GET /v1/compositions/unrank. */
+  unrankComposition(params: Ranked<CompositionsUnrankParams>, options?: CallOptions): Promise<UnrankDocument>;
+  /** GET /v1/set-partitions/list as NDJSON, read incrementally (records carry `blocks`, or `rgs` with as=rgs). */
+  listSetPartitions(params: Ranked<Sampling<SetPartitionsListParams>>, options?: CallOptions): AsyncGenerator<ListLine>;
+  /** GET /v1/set-partitions/rank: the rank of a set partition given as its restricted growth string `rgs`. */
+  rankSetPartition(params: SetPartitionsRankParams, options?: CallOptions): Promise<RankDocument>;
+  /** GET /v1/set-partitions/unrank. */
+  unrankSetPartition(params: Ranked<SetPartitionsUnrankParams>, options?: CallOptions): Promise<UnrankDocument>;
   /** GET /healthz. */
   health(options?: CallOptions): Promise<HealthDocument>;
   /** GET /openapi.json. */
@@ -143,10 +180,10 @@ export function createClient(options: ClientOptions): PartsmithClient {
     return (await response.body.json()) as T;
   }
 
-  async function* stream(path: string, params: object, call?: CallOptions): AsyncGenerator<SampleLine<number[]>> {
+  async function* stream<Line = SampleLine<number[]>>(path: string, params: object, call?: CallOptions): AsyncGenerator<Line> {
     const response = await get(path, { ...params, format: 'ndjson' }, call);
     // Leaving the loop early (break, throw) returns this generator, which closes the body.
-    yield* ndjsonRecords<SampleLine<number[]>>(response.body);
+    yield* ndjsonRecords<Line>(response.body);
   }
 
   return {
@@ -159,6 +196,15 @@ export function createClient(options: ClientOptions): PartsmithClient {
     setPartitions: (params, call) => json('/v1/set-partitions', { ...params, format: 'json' }, call),
     streamSetPartitions: (params, call) => stream('/v1/set-partitions', params, call),
     countSetPartitions: (params, call) => json('/v1/set-partitions/count', params, call),
+    listPartitions: (params, call) => stream<ListLine>('/v1/partitions/list', params, call),
+    rankPartition: (params, call) => json('/v1/partitions/rank', params, call),
+    unrankPartition: (params, call) => json('/v1/partitions/unrank', params, call),
+    listCompositions: (params, call) => stream<ListLine>('/v1/compositions/list', params, call),
+    rankComposition: (params, call) => json('/v1/compositions/rank', params, call),
+    unrankComposition: (params, call) => json('/v1/compositions/unrank', params, call),
+    listSetPartitions: (params, call) => stream<ListLine>('/v1/set-partitions/list', params, call),
+    rankSetPartition: (params, call) => json('/v1/set-partitions/rank', params, call),
+    unrankSetPartition: (params, call) => json('/v1/set-partitions/unrank', params, call),
     health: (call) => json('/healthz', {}, call),
     openapi: (call) => json('/openapi.json', {}, call),
     get,

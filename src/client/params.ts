@@ -2,6 +2,17 @@ import type { z } from 'zod';
 import type { compositionsCountQuery, compositionsQuery } from '../schemas/compositions.js';
 import type { partitionsCountQuery, partitionsQuery } from '../schemas/partitions.js';
 import type { setPartitionsCountQuery, setPartitionsQuery } from '../schemas/set-partitions.js';
+import type {
+  compositionsListQuery,
+  compositionsRankQuery,
+  compositionsUnrankQuery,
+  partitionsListQuery,
+  partitionsRankQuery,
+  partitionsUnrankQuery,
+  setPartitionsListQuery,
+  setPartitionsRankQuery,
+  setPartitionsUnrankQuery,
+} from '../schemas/ranks.js';
 
 /**
  * Request parameters as typed values, derived from the endpoints' zod query schemas (the single
@@ -20,6 +31,16 @@ export type CompositionsCountParams = ParamsOf<typeof compositionsCountQuery>;
 
 export type SetPartitionsParams = ParamsOf<typeof setPartitionsQuery>;
 export type SetPartitionsCountParams = ParamsOf<typeof setPartitionsCountQuery>;
+
+export type PartitionsListParams = ParamsOf<typeof partitionsListQuery>;
+export type PartitionsRankParams = ParamsOf<typeof partitionsRankQuery>;
+export type PartitionsUnrankParams = ParamsOf<typeof partitionsUnrankQuery>;
+export type CompositionsListParams = ParamsOf<typeof compositionsListQuery>;
+export type CompositionsRankParams = ParamsOf<typeof compositionsRankQuery>;
+export type CompositionsUnrankParams = ParamsOf<typeof compositionsUnrankQuery>;
+export type SetPartitionsListParams = ParamsOf<typeof setPartitionsListQuery>;
+export type SetPartitionsRankParams = ParamsOf<typeof setPartitionsRankQuery>;
+export type SetPartitionsUnrankParams = ParamsOf<typeof setPartitionsUnrankQuery>;
 
 /** The JSON document of a sampling endpoint (format=json). */
 export interface SamplesDocument<Sample> {
@@ -49,6 +70,38 @@ export interface SampleLine<Sample> {
   readonly blocks?: number[][];
   /** Set partitions: present for as=rgs. */
   readonly rgs?: number[];
+}
+
+/**
+ * One NDJSON line of a listing (GET .../list): the member's rank (a decimal string) and the
+ * member in the form asked for (`as`).
+ */
+export interface ListLine {
+  readonly rank: string;
+  /** Partitions (as=parts) and compositions. */
+  readonly parts?: number[];
+  /** Partitions, as=multiplicities. */
+  readonly multiplicities?: [number, number][];
+  /** Set partitions, as=blocks (the default). */
+  readonly blocks?: number[][];
+  /** Set partitions, as=rgs. */
+  readonly rgs?: number[];
+}
+
+/** The document of GET .../rank: the member as given, its rank and the family's number of members (decimal strings). */
+export interface RankDocument {
+  readonly family: Readonly<Record<string, unknown>> & { readonly kind: string; readonly n: number };
+  readonly parts?: number[];
+  readonly rgs?: number[];
+  readonly rank: string;
+  readonly total: string;
+}
+
+/** The document of GET .../unrank: the rank, the family's number of members, and the member in the form asked for. */
+export interface UnrankDocument extends Omit<ListLine, 'rank'> {
+  readonly family: Readonly<Record<string, unknown>> & { readonly kind: string; readonly n: number };
+  readonly rank: string;
+  readonly total: string;
 }
 
 /** The document of a count endpoint; the count is a decimal string since it may exceed 2^53. */

@@ -1,4 +1,5 @@
-import type { CompositionFamily, PartitionFamily } from '../core/family.js';
+import type { CompositionFamily, PartitionFamily, SetPartitionFamily } from '../core/family.js';
+import { blockRange, resolveSetPartitions } from '../core/set-partitions/resolve.js';
 
 /**
  * Corner members of a family, for the opt-in `edgeCases` of the arbitraries: built from the
@@ -139,4 +140,42 @@ function divisorsBetween(n: number, lo: number, hi: number): number[] {
     if (d * d !== n) large.unshift(n / d);
   }
   return [...small, ...large].filter((d) => d >= lo && d <= hi);
+}
+
+/**
+ * Corner candidates of a set-partition family (kept when they are members; the caller checks):
+ * one block; every item alone; for the fewest and the most blocks the family allows, blocks of
+ * consecutive items as equal as possible, and items dealt round-robin; blocks of consecutive
+ * items as large as allowed (the first member of the order when the sizes are free) and as
+ * small as allowed. Families of more than MAX_CORNER_PARTS items have none.
+ */
+export function setPartitionCorners(family: SetPartitionFamily): number[][][] {
+  const n = family.n;
+  if (n > MAX_CORNER_PARTS) return [];
+  if (n === 0) return [[]];
+  const items = Array.from({ length: n }, (_, i) => i + 1);
+  const out: number[][][] = [[items], items.map((i) => [i])];
+  const { lo, hi } = blockRange(resolveSetPartitions(family));
+  for (const k of new Set([lo, hi])) {
+    if (k < 1 || k > n) continue;
+    // k runs of consecutive items, the first n mod k one longer.
+    const runs: number[][] = [];
+    let next = 1;
+    for (let b = 0; b < k; b++) {
+      const size = Math.floor(n / k) + (b < n % k ? 1 : 0);
+      runs.push(items.slice(next - 1, next - 1 + size));
+      next += size;
+    }
+    out.push(runs);
+    out.push(Array.from({ length: k }, (_, b) => items.filter((i) => (i - 1) % k === b)));
+  }
+  const chunks = (size: number) => Array.from({ length: Math.ceil(n / size) }, (_, b) => items.slice(b * size, (b + 1) * size));
+  if (family.maxBlockSize !== undefined && family.maxBlockSize < n) out.push(chunks(family.maxBlockSize));
+  const min = family.minBlockSize ?? 1;
+  if (min > 1 && n >= min) {
+    const small = chunks(min);
+    if (small.length > 1 && small[small.length - 1].length < min) small[small.length - 2].push(...small.pop()!);
+    out.push(small);
+  }
+  return out;
 }

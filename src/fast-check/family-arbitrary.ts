@@ -2,16 +2,16 @@ import { Arbitrary, Stream, toStringMethod, Value, type Random } from 'fast-chec
 import type { SampledFamily } from '../library/sampled-family.js';
 import { invalidParam } from '../library/validate.js';
 
-/** How a kind of member shrinks and where its corners are (partitions, compositions; set partitions later). */
-export interface MemberShape {
+/** How a kind of member shrinks and where its corners are (partitions, compositions: lists of parts; set partitions: lists of blocks). */
+export interface MemberShape<M extends object = number[]> {
   /** Candidate simplifications of a member, most aggressive first (any may fall outside the family). */
-  shrinks(member: readonly number[]): Iterable<number[]>;
+  shrinks(member: M): Iterable<M>;
   /** Whether a is strictly simpler than b (a well-founded order: see simplicity.ts). */
-  simpler(a: readonly number[], b: readonly number[]): boolean;
-  /** The n of a member (the sum of its parts). */
-  sizeOf(member: readonly number[]): number;
+  simpler(a: M, b: M): boolean;
+  /** The n of a member (the sum of its parts; the number of items of a set partition); anything but a whole number for a value that is not one. */
+  sizeOf(member: M): number;
   /** Corner candidates of a family (any may fall outside it). */
-  corners(family: SampledFamily<number[]>): number[][];
+  corners(family: SampledFamily<M>): M[];
 }
 
 /** How n is drawn when it ranges: every n equally likely, or in proportion to its number of members. */
@@ -68,9 +68,9 @@ interface Origin {
  * of its own n, with n in the range — so shrinking stays inside the family, never ends on a
  * non-member, and always terminates.
  */
-export class FamilyArbitrary extends Arbitrary<number[]> {
-  private readonly families = new Map<number, SampledFamily<number[]>>();
-  private readonly cornersByN = new Map<number, number[][]>();
+export class FamilyArbitrary<M extends object = number[]> extends Arbitrary<M> {
+  private readonly families = new Map<number, SampledFamily<M>>();
+  private readonly cornersByN = new Map<number, M[]>();
   private readonly seed: string;
   private readonly weights: NWeights;
   private readonly edgeShare: number;
@@ -78,10 +78,10 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
   private nonEmpty: number[] | undefined;
 
   constructor(
-    private readonly base: SampledFamily<number[]>,
+    private readonly base: SampledFamily<M>,
     private readonly min: number,
     private readonly max: number,
-    private readonly shape: MemberShape,
+    private readonly shape: MemberShape<M>,
     options: ArbitraryOptions = {},
   ) {
     super();
@@ -100,7 +100,7 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
     if (min === max && base.empty) base.sample(this.seed); // refused with the library's (the API's) error for an empty family
   }
 
-  generate(mrng: Random): Value<number[]> {
+  generate(mrng: Random): Value<M> {
     const n = this.drawN(mrng);
     const family = this.at(n);
     if (this.edgeShare > 0 && mrng.nextDouble() < this.edgeShare) {
@@ -108,7 +108,7 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
       if (corners.length > 0) {
         const which = mrng.nextInt(0, corners.length - 1);
         const origin: Origin = { text: `corner ${which} of ${family.key}`, shrunk: false };
-        return this.value(corners[which].slice(), family, origin);
+        return this.value(structuredClone(corners[which]), family, origin);
       }
     }
     // Sample indices up to 2^48 (the API accepts up to 10^15).
@@ -117,24 +117,24 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
     return this.value(family.sample(this.seed, index), family, origin);
   }
 
-  canShrinkWithoutContext(value: unknown): value is number[] {
-    if (!Array.isArray(value) || !value.every((part) => typeof part === 'number')) return false;
-    const n = this.shape.sizeOf(value);
+  canShrinkWithoutContext(value: unknown): value is M {
+    if (!Array.isArray(value)) return false;
+    const n = this.shape.sizeOf(value as M);
     return Number.isSafeInteger(n) && n >= this.min && n <= this.max && this.at(n).contains(value);
   }
 
-  shrink(value: number[], context: unknown): Stream<Value<number[]>> {
+  shrink(value: M, context: unknown): Stream<Value<M>> {
     const origin: Origin = { text: (context as Origin | undefined)?.text ?? 'a value given to fast-check', shrunk: true };
     return new Stream(this.candidates(value, origin));
   }
 
-  private *candidates(value: readonly number[], origin: Origin): Generator<Value<number[]>> {
+  private *candidates(value: M, origin: Origin): Generator<Value<M>> {
     const seen = new Set<string>();
     for (const candidate of this.shape.shrinks(value)) {
       if (!this.shape.simpler(candidate, value)) continue;
       const n = this.shape.sizeOf(candidate);
       if (n < this.min || n > this.max) continue;
-      const key = candidate.join(',');
+      const key = JSON.stringify(candidate);
       if (seen.has(key)) continue;
       seen.add(key);
       const family = this.at(n);
@@ -143,7 +143,7 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
   }
 
   /** The value with its story attached for fast-check's report (a non-enumerable toString method). */
-  private value(member: number[], family: SampledFamily<number[]>, origin: Origin): Value<number[]> {
+  private value(member: M, family: SampledFamily<M>, origin: Origin): Value<M> {
     Object.defineProperty(member, toStringMethod, {
       value: () => `${JSON.stringify(member)} /* ${describeMember(member, family, origin)} */`,
       enumerable: false,
@@ -152,7 +152,7 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
   }
 
   /** The family of n (same constraints), made once per n. */
-  private at(n: number): SampledFamily<number[]> {
+  private at(n: number): SampledFamily<M> {
     let family = this.families.get(n);
     if (family === undefined) {
       if (this.families.size >= CACHED_SIZES) this.families.delete(this.families.keys().next().value!);
@@ -162,13 +162,13 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
     return family;
   }
 
-  private cornersAt(n: number): number[][] {
+  private cornersAt(n: number): M[] {
     let corners = this.cornersByN.get(n);
     if (corners === undefined) {
       const family = this.at(n);
       const seen = new Set<string>();
       corners = this.shape.corners(family).filter((c) => {
-        const key = c.join(',');
+        const key = JSON.stringify(c);
         if (seen.has(key) || !family.contains(c)) return false;
         seen.add(key);
         return true;
@@ -227,9 +227,13 @@ export class FamilyArbitrary extends Arbitrary<number[]> {
   }
 }
 
-/** "partition of 6 (rank 2), sample 123 of seed "fast-check" of {...}, shrunk". */
-function describeMember(member: readonly number[], family: SampledFamily<number[]>, origin: Origin): string {
-  const ranked = family as SampledFamily<number[]> & { rank?: (m: readonly number[]) => bigint };
+/**
+ * "partition of 6 (rank 2 of {...}); shrunk from sample 123 of seed "fast-check" of {...}": the
+ * member's rank in its own family where the family is rankable (a RankedFamily within the
+ * ranking limits; the table is built when the report is written, not while testing).
+ */
+function describeMember<M>(member: M, family: SampledFamily<M>, origin: Origin): string {
+  const ranked = family as SampledFamily<M> & { rank?: (m: M) => bigint };
   let rank = '';
   if (typeof ranked.rank === 'function') {
     try {
@@ -238,5 +242,6 @@ function describeMember(member: readonly number[], family: SampledFamily<number[
       // past the ranking limits: no rank to show
     }
   }
-  return `${family.kind} of ${family.n}${rank}; ${origin.shrunk ? 'shrunk from ' : ''}${origin.text}`;
+  const what = family.kind === 'set-partition' ? `set partition of ${family.n} items` : `${family.kind} of ${family.n}`;
+  return `${what}${rank}; ${origin.shrunk ? 'shrunk from ' : ''}${origin.text}`;
 }

@@ -1,5 +1,8 @@
+import { rgsOf } from './shrink-set-partitions.js';
+
 /**
- * The order shrinking descends: a member is simpler than another when, compared in turn, it has
+ * The order shrinking descends for partitions and compositions: a member is simpler than another
+ * when, compared in turn, it has
  *   1. a smaller n (only when n ranges),
  *   2. fewer parts,
  *   3. fewer distinct part sizes,
@@ -36,4 +39,35 @@ function summary(parts: readonly number[]): { n: number; distinct: number; max: 
     sizes.add(p);
   }
   return { n, distinct: sizes.size, max };
+}
+
+/**
+ * The order set partitions shrink down (members as their blocks): a set partition is simpler
+ * than another when, compared in turn, it has
+ *   1. fewer items (a smaller n, only when n ranges),
+ *   2. fewer blocks,
+ *   3. and then comes earlier in the family's documented order: the lexicographic order of the
+ *      restricted growth strings (towards rank 0: one large block first, then the next).
+ * A strict total order on the set partitions of n items; n is bounded below, so shrinking ends.
+ */
+export function simplerSetPartition(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): boolean {
+  return compareSetPartitions(a, b) < 0;
+}
+
+/** Negative when a is simpler than b, positive when b is simpler, 0 when equal. */
+export function compareSetPartitions(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): number {
+  const na = itemsOf(a);
+  const nb = itemsOf(b);
+  if (na !== nb) return na - nb;
+  if (a.length !== b.length) return a.length - b.length;
+  const ra = rgsOf(a);
+  const rb = rgsOf(b);
+  for (let i = 0; i < ra.length; i++) if (ra[i] !== rb[i]) return ra[i] - rb[i];
+  return 0;
+}
+
+function itemsOf(blocks: readonly (readonly number[])[]): number {
+  let n = 0;
+  for (const block of blocks) n += block.length;
+  return n;
 }

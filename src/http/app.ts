@@ -17,8 +17,7 @@ import { compositionCheckEndpoint } from './routes/composition-check.js';
 import { diagramEndpoint } from './routes/diagram.js';
 import { PAGE_PATHS, registerPage } from './routes/page.js';
 import { setPartitionsCountEndpoint, setPartitionsEndpoint } from './routes/set-partitions.js';
-import { compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint } from './routes/composition-ranks.js';
-import { partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint } from './routes/partition-ranks.js';
+import { rankEndpoints } from './routes/ranks.js';
 import { RankerCache } from './ranking.js';
 
 export interface AppOptions {
@@ -49,7 +48,7 @@ export function createApp(options: AppOptions = {}): Hono {
     drawSeed: options.drawSeed ?? drawRandomSeed,
     partitionFamilies: new LruCache(64),
     compositionFamilies: new LruCache(64),
-    setPartitionSamplers: new LruCache(64),
+    setPartitionFamilies: new LruCache(64),
     rankers: new RankerCache(),
   };
   const endpoints: Endpoint[] = [];
@@ -63,7 +62,7 @@ export function createApp(options: AppOptions = {}): Hono {
     compositionCheckEndpoint as unknown as Endpoint,
     setPartitionsEndpoint as unknown as Endpoint,
     setPartitionsCountEndpoint as unknown as Endpoint,
-    ...rankEndpoints(),
+    ...rankEndpoints,
     healthEndpoint as unknown as Endpoint,
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
@@ -105,13 +104,8 @@ export function createApp(options: AppOptions = {}): Hono {
   return app;
 }
 
-/** Listing, rank and unrank, for partitions and compositions. */
-function rankEndpoints(): Endpoint[] {
-  return [partitionsListEndpoint, partitionsRankEndpoint, partitionsUnrankEndpoint, compositionsListEndpoint, compositionsRankEndpoint, compositionsUnrankEndpoint] as unknown as Endpoint[];
-}
-
 /** Parameters that define a family (as opposed to how many samples and in which form). */
-const FAMILY_PARAMS = ['n', 'parts', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
+const FAMILY_PARAMS = ['n', 'parts', 'rgs', 'distinct', 'minPart', 'maxPart', 'length', 'maxLength', 'allowed', 'blocks', 'maxBlocks', 'minBlockSize', 'maxBlockSize'] as const;
 
 /**
  * An error the library or the core raised for the request's family, as the library reports it

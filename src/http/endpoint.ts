@@ -1,8 +1,7 @@
 import type { z } from 'zod';
 import type { Compositions } from '../library/compositions.js';
 import type { Partitions } from '../library/partitions.js';
-import type { SetPartitionSampler } from '../core/set-partitions/sampler.js';
-import type { SampleStreams } from '../core/seeding.js';
+import type { SetPartitions } from '../library/set-partitions.js';
 import type { Limits } from './limits.js';
 import type { LruCache } from './lru-cache.js';
 import type { QueryMemo } from './query.js';
@@ -20,16 +19,10 @@ export interface AppContext {
   readonly partitionFamilies: LruCache<Partitions>;
   /** The library's composition families by family key. */
   readonly compositionFamilies: LruCache<Compositions>;
-  /** Planned set-partition samplers (with their families' streams) by family key. */
-  readonly setPartitionSamplers: LruCache<PlannedFamily<SetPartitionSampler>>;
-  /** Rankers (with their counting tables) by family key. */
+  /** The library's set-partition families by family key. */
+  readonly setPartitionFamilies: LruCache<SetPartitions>;
+  /** The library's families the rank endpoints use (with their rankers' counting tables) by family key. */
   readonly rankers: RankerCache;
-}
-
-/** What is prepared once per family and reused by every request for it. */
-export interface PlannedFamily<S> {
-  readonly sampler: S;
-  readonly streams: SampleStreams;
 }
 
 export interface ResponseDoc {

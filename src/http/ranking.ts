@@ -1,4 +1,5 @@
-import { LimitExceededError, NotAMemberError } from '../core/errors.js';
+import { PartsmithError } from '../client/errors.js';
+import { LimitExceededError } from '../core/errors.js';
 import type { Partition } from '../core/partition.js';
 import type { Ranker } from '../core/ranks/ranker.js';
 import { IMMUTABLE, matchesIfNoneMatch, strongEtag } from './caching.js';
@@ -8,22 +9,39 @@ import type { Limits } from './limits.js';
 import { completeResponse } from './middleware/complete-response.js';
 import { ProblemError } from './problem.js';
 import { bodyStream, contentTypeOf, type Chunk } from './sampling.js';
+import { setPartitionAsBlocks, setPartitionAsRgs } from './set-partition-encode.js';
 import type { SampleFormat } from '../schemas/common.js';
 
 /**
- * What the rank endpoints share: the per-isolate cache of rankers (their counting tables are the
- * expensive part), the limits of a listing, and the listing's body in its three formats.
+ * What the rank endpoints share: the per-isolate cache of the library's families they rank with
+ * (their counting tables are the expensive part), the limits of a listing, and the listing's
+ * body in its three formats.
  */
 
 /**
- * Rankers by family key, least recently used first out, within a memory budget: a ranker holds
- * its family's counting table (up to RANK_TABLE_BYTES), so the cache is bounded by the tables'
- * estimated bytes as well as by entries. A family refused for its table size is remembered too
- * (saying what fits takes a search over n), and refused again at once. Entries are pure
- * functions of their key.
+ * What the rank endpoints need of a library family (LibraryFamily): its ranker, and the
+ * library's checks of members, ranks and starts, which answer what the library answers.
  */
-export class RankerCache {
-  private readonly entries = new Map<string, { readonly ranker?: Ranker; readonly refused?: LimitExceededError; readonly bytes: number }>();
+export interface RankedSource {
+  readonly description: object;
+  /** The canonical family as JSON. */
+  readonly key: string;
+  readonly ranker: Ranker;
+  readonly rankTableBytes: number;
+  rank(member: readonly number[]): bigint;
+  checkedRank(rank: unknown): bigint;
+  checkedStart(start: unknown): bigint;
+}
+
+/**
+ * Values (the library's ranked families) by family key, least recently used first out, within
+ * a memory budget: a ranker holds its family's counting table (up to RANK_TABLE_BYTES), so the
+ * cache is bounded by the tables' estimated bytes as well as by entries. A family refused for
+ * its table size is remembered too (saying what fits takes a search over n), and refused again
+ * at once. Entries are pure functions of their key.
+ */
+export class RankerCache<V = RankedSource> {
+  private readonly entries = new Map<string, { readonly value?: V; readonly refused?: unknown; readonly bytes: number }>();
   private bytes = 0;
 
   constructor(
@@ -31,8 +49,8 @@ export class RankerCache {
     readonly maxEntries: number = 16,
   ) {}
 
-  /** The ranker for `key`, made (with its estimated table bytes) the first time. */
-  getOrCreate(key: string, make: () => { ranker: Ranker; bytes: number }): Ranker {
+  /** The value for `key`, made (with its estimated table bytes) the first time. */
+  getOrCreate(key: string, make: () => { value: V; bytes: number }): V {
     let entry = this.entries.get(key);
     if (entry) {
       this.entries.delete(key);
@@ -41,7 +59,8 @@ export class RankerCache {
       try {
         entry = make();
       } catch (error) {
-        if (!(error instanceof LimitExceededError)) throw error;
+        // A limit refusal, raw or as the library's 422: a pure function of the family.
+        if (!(error instanceof LimitExceededError || (error instanceof PartsmithError && error.status === 422))) throw error;
         entry = { refused: error, bytes: 0 };
       }
       this.entries.set(key, entry);
@@ -53,8 +72,8 @@ export class RankerCache {
         this.bytes -= value.bytes;
       }
     }
-    if (entry.refused) throw entry.refused;
-    return entry.ranker!;
+    if (entry.refused !== undefined) throw entry.refused;
+    return entry.value!;
   }
 
   get size(): number {
@@ -86,12 +105,31 @@ export function runsOf(parts: readonly number[]): Partition {
   return { sizes, multiplicities };
 }
 
+/** Set partitions (as restricted growth strings, the ranker's form) as their blocks. */
+export const membersAsBlocks: SampleEncoder<number[]> = {
+  field: 'blocks',
+  json: (rgs) => setPartitionAsBlocks.json(setPartitionOf(rgs)),
+  text: (rgs) => setPartitionAsBlocks.text(setPartitionOf(rgs)),
+};
+
+/** Set partitions as their restricted growth strings. */
+export const membersAsRgs: SampleEncoder<number[]> = {
+  field: 'rgs',
+  json: (rgs) => setPartitionAsRgs.json(setPartitionOf(rgs)),
+  text: (rgs) => setPartitionAsRgs.text(setPartitionOf(rgs)),
+};
+
+function setPartitionOf(rgs: readonly number[]): { rgs: Int32Array; blocks: number } {
+  let blocks = 0;
+  for (const v of rgs) if (v >= blocks) blocks = v + 1;
+  return { rgs: Int32Array.from(rgs), blocks };
+}
+
 /** A page of a family's listing. */
 export interface ListingJob {
-  readonly ranker: Ranker;
-  /** The canonical family as JSON (its key). */
-  readonly familyJson: string;
-  readonly start: bigint;
+  readonly family: RankedSource;
+  /** The first rank, as the query gives it (checked by the family, after the count). */
+  readonly start: string;
   readonly count: number;
   readonly format: SampleFormat;
   readonly encoder: SampleEncoder<number[]>;
@@ -99,40 +137,14 @@ export interface ListingJob {
   readonly numbersPerMember: number;
 }
 
-/** The problem for a rank parameter past the end of the family. */
-export function rankProblem(param: 'rank' | 'start', value: bigint, total: bigint): ProblemError {
-  const fits = param === 'start' ? `from 0 to ${total}` : total === 0n ? 'none: the family has no member' : `from 0 to ${total - 1n}`;
-  const message = `must be a rank of this family (${fits}; it has ${total} members)`;
-  return new ProblemError(422, `${param} ${message}, got ${value}.`, [{ param, message }]);
-}
-
-/** The rank, with a member that is not one answered as 422 naming `parts`. */
-export function rankOf(ranker: Ranker, parts: readonly number[]): bigint {
-  try {
-    return ranker.rank(parts);
-  } catch (error) {
-    if (error instanceof NotAMemberError) {
-      const message = error.message.charAt(0).toUpperCase() + error.message.slice(1);
-      throw new ProblemError(422, `${message}.`, [{ param: 'parts', message: error.message }]);
-    }
-    throw error;
-  }
-}
-
-/** The member at `rank`, with a rank past the end answered as 422 naming `rank`. */
-export function unrankOf(ranker: Ranker, rank: bigint): number[] {
-  if (rank >= ranker.count) throw rankProblem('rank', rank, ranker.count);
-  return ranker.unrank(rank);
-}
-
-/** Refuses a listing over the configured limits before any member is listed. */
-export function checkListingLimits(job: ListingJob, limits: Limits): void {
+/** Refuses a listing over the configured limits before any member is listed; the first rank, checked. */
+export function checkListingLimits(job: ListingJob, limits: Limits): bigint {
   if (job.count > limits.maxCount) {
     const message = `must be a whole number from 1 to ${limits.maxCount}, written with digits only`;
     throw new ProblemError(400, `Invalid query: count ${message}.`, [{ param: 'count', message }]);
   }
-  if (job.start > job.ranker.count) throw rankProblem('start', job.start, job.ranker.count);
-  const members = Math.min(job.count, Number(job.ranker.count - job.start));
+  const start = job.family.checkedStart(job.start);
+  const members = Math.min(job.count, Number(job.family.ranker.count - start));
   const numbers = members * job.numbersPerMember;
   if (numbers > limits.maxNumbers) {
     const fits = Math.max(1, Math.floor(limits.maxNumbers / job.numbersPerMember));
@@ -142,6 +154,7 @@ export function checkListingLimits(job: ListingJob, limits: Limits): void {
       [{ param: 'count', message: `at most ${fits} members of this family fit in one response (limit: ${limits.maxNumbers} numbers)` }],
     );
   }
+  return start;
 }
 
 /** Characters gathered before the first answer is committed (as for samples: one network chunk). */
@@ -153,12 +166,12 @@ const FIRST_CHUNK_CHARS = 64 * 1024;
  * the sampling endpoints' `bodyStream`.
  */
 export function respondWithListing(request: Request, path: string, query: Record<string, unknown>, job: ListingJob, limits: Limits): Response {
-  checkListingLimits(job, limits);
+  const start = checkListingLimits(job, limits);
   const etag = strongEtag(path, query);
-  const headers: Record<string, string> = { 'content-type': contentTypeOf(job.format), 'cache-control': IMMUTABLE, etag, 'partsmith-total': String(job.ranker.count) };
+  const headers: Record<string, string> = { 'content-type': contentTypeOf(job.format), 'cache-control': IMMUTABLE, etag, 'partsmith-total': String(job.family.ranker.count) };
   if (matchesIfNoneMatch(request, etag)) return completeResponse(null, 304, { etag, 'cache-control': IMMUTABLE });
   if (request.method === 'HEAD') return completeResponse(null, 200, headers);
-  const pieces = listingPieces(job, deadlineOf(limits));
+  const pieces = listingPieces(job, start, deadlineOf(limits));
   let text = '';
   for (;;) {
     const next = pieces.next(); // a stop before the first chunk is thrown: the app answers with its problem
@@ -171,10 +184,11 @@ export function respondWithListing(request: Request, path: string, query: Record
 }
 
 /** The body of a listing, one piece per member (plus the JSON head and tail). */
-function* listingPieces(job: ListingJob, deadline?: Deadline): Generator<string> {
-  const { ranker, encoder, format, start } = job;
+function* listingPieces(job: ListingJob, start: bigint, deadline?: Deadline): Generator<string> {
+  const { encoder, format } = job;
+  const { ranker } = job.family;
   const field = encoder.field;
-  if (format === 'json') yield `{"family":${job.familyJson},"total":"${ranker.count}","start":"${start}","members":[`;
+  if (format === 'json') yield `{"family":${job.family.key},"total":"${ranker.count}","start":"${start}","members":[`;
   const members = ranker.list(start);
   let rank = start;
   for (let i = 0; i < job.count; i++) {

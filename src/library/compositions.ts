@@ -1,5 +1,6 @@
 import { countCompositions, planCompositionSampler } from '../core/compositions/plan.js';
 import { canonicalFamily, type CompositionFamily } from '../core/family.js';
+import { compositionRanker, compositionRankTableSize } from '../core/ranks/composition-ranker.js';
 import type { CompositionSampler } from '../core/sampler.js';
 import type { CompositionsCountParams } from '../client/params.js';
 import { compositionsCountQuery, type CompositionsCountQuery } from '../schemas/compositions.js';
@@ -36,6 +37,10 @@ const COMPOSITIONS: FamilyKind<CompositionFamily, number[], CompositionSampler> 
   count: countCompositions,
   member: (parts) => parts,
   contains: isCompositionMember,
+  memberParam: 'parts',
+  rankTable: (family) => ({ ranker: compositionRanker(family), bytes: compositionRankTableSize(family).bytes }),
+  toRanked: (parts) => parts as readonly number[],
+  fromRanked: (parts) => parts,
 };
 
 /** The family of a query its schema has accepted (the HTTP app's way in; users call compositionFamily). */

@@ -2,6 +2,7 @@ import { countPartitions } from '../core/counting/partition-counts.js';
 import { canonicalFamily, type PartitionFamily } from '../core/family.js';
 import { partsOf, type Partition } from '../core/partition.js';
 import { planPartitionSampler } from '../core/partitions/plan.js';
+import { partitionRanker, partitionRankTableSize } from '../core/ranks/partition-ranker.js';
 import type { PartitionSampler } from '../core/sampler.js';
 import type { PartitionsCountParams } from '../client/params.js';
 import { partitionsCountQuery, type PartitionsCountQuery } from '../schemas/partitions.js';
@@ -40,6 +41,10 @@ const PARTITIONS: FamilyKind<PartitionFamily, Partition, PartitionSampler> = {
   count: (family) => countPartitions(family),
   member: partsOf,
   contains: isPartitionMember,
+  memberParam: 'parts',
+  rankTable: (family) => ({ ranker: partitionRanker(family), bytes: partitionRankTableSize(family).bytes }),
+  toRanked: (parts) => parts as readonly number[],
+  fromRanked: (parts) => parts,
 };
 
 /** The family of a query its schema has accepted (the HTTP app's way in; users call partitionFamily). */
@@ -55,6 +60,9 @@ export function partitionsOf(query: PartitionsCountQuery): Partitions {
  * const family = partitionFamily({ n: 60, maxPart: 20 });
  * family.count;                  // the exact number of members, a BigInt
  * family.sample('fixtures', 3);  // sample 3 of seed "fixtures", as GET /v1/partitions returns it
+ * family.rank([20, 20, 20]);     // its position in the family's order (GET /v1/partitions/rank), a BigInt
+ * family.unrank(0n);             // [20, 20, 20]: the first member (GET /v1/partitions/unrank)
+ * [...family.list(0n, 10)];      // the first ten members, in order (GET /v1/partitions/list)
  * ```
  */
 export function partitionFamily(constraints: PartitionConstraints): Partitions {

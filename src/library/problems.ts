@@ -1,4 +1,5 @@
-import { LimitExceededError } from '../core/errors.js';
+import { LimitExceededError, NotAMemberError } from '../core/errors.js';
+import { ContradictoryConstraintError } from '../core/set-partitions/resolve.js';
 import type { ParamError } from '../schemas/issues.js';
 
 /**
@@ -61,10 +62,28 @@ export function limitDetail(error: LimitExceededError): string {
  */
 export function familyProblem(error: unknown, familyParams: readonly string[]): Problem | undefined {
   if (error instanceof LimitExceededError) return problemOf(422, limitDetail(error));
+  // A parameter at odds with n or with another one (set partitions: blocks > n, minBlockSize > maxBlockSize): 422 naming it.
+  if (error instanceof ContradictoryConstraintError) return problemOf(422, `${error.message}.`, [{ param: error.param, message: error.message }]);
   if (!(error instanceof RangeError)) return undefined;
   return problemOf(
     422,
     error.message,
     familyParams.map((param) => ({ param, message: 'together with the other family parameters, describes no member (see detail)' })),
   );
+}
+
+/**
+ * The problem of a member given to rank that is not one (422 naming the rank endpoint's member
+ * parameter, `parts` or `rgs`, with the core's reason); undefined for any other error.
+ */
+export function notAMemberProblem(error: unknown, param: string): Problem | undefined {
+  if (!(error instanceof NotAMemberError)) return undefined;
+  return problemOf(422, `${error.message.charAt(0).toUpperCase()}${error.message.slice(1)}.`, [{ param, message: error.message }]);
+}
+
+/** The problem of a rank (`rank`) or a listing's first rank (`start`) past the end of the family. */
+export function rankProblem(param: 'rank' | 'start', value: bigint, total: bigint): Problem {
+  const fits = param === 'start' ? `from 0 to ${total}` : total === 0n ? 'none: the family has no member' : `from 0 to ${total - 1n}`;
+  const message = `must be a rank of this family (${fits}; it has ${total} members)`;
+  return problemOf(422, `${param} ${message}, got ${value}.`, [{ param, message }]);
 }

@@ -45,7 +45,8 @@ export function familyError(error: unknown, params: Readonly<Record<string, unkn
   return problem ? partsmithError(problem, path, params) : error;
 }
 
-function partsmithError(problem: Problem, path: string, params: unknown): PartsmithError {
+/** The error the library throws for a problem, naming the equivalent API request (path and parameters). */
+export function partsmithError(problem: Problem, path: string, params: unknown): PartsmithError {
   let query = '';
   try {
     query = typeof params === 'object' && params !== null ? toQueryString(params) : '';

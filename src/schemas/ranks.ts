@@ -3,11 +3,13 @@ import { DEFAULT_MAX_COUNT, MAX_COUNT, MAX_N } from './bounds.js';
 import { choiceParam, integerParam, partsParam, rankParam, withThousands } from './params.js';
 import { compositionConstraints, weakNeedsLength } from './compositions.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
+import { noBlocksWithMaxBlocks, setPartitionConstraints } from './set-partitions.js';
+import { MAX_SET_PARTITION_N } from '../core/set-partitions/resolve.js';
 
 /**
  * The schemas of the rank endpoints: listing a family in its order, the rank of a member, and the
- * member at a rank, for partitions and for compositions (one schema per endpoint). The families
- * take the same constraint parameters as sampling.
+ * member at a rank, for partitions, compositions and set partitions (one schema per endpoint).
+ * The families take the same constraint parameters as sampling.
  */
 
 /** Default page of a listing: small families come whole in one answer. */
@@ -28,6 +30,9 @@ const unrankFields = {
   n: integerParam(0, MAX_N, 'The size: the member sums to exactly n.'),
   rank: rankParam('The rank of the member (a decimal string, from 0 to the number of members - 1).'),
 };
+
+/** The rank parameters as the library checks them too (`family.unrank(rank)`, `family.list(start)`). */
+export const rankValueFields = { start: listFields.start, rank: unrankFields.rank };
 
 const rankFields = {
   n: integerParam(0, MAX_N, 'The size of the family; defaults to the sum of the parts.').optional(),
@@ -86,9 +91,46 @@ export const compositionsUnrankQuery = z
   })
   .superRefine(weakNeedsLength);
 
+const SET_N = MAX_SET_PARTITION_N;
+const setPartitionForms = (what: string) =>
+  choiceParam(['blocks', 'rgs'], `blocks: ${what} a list of blocks, each a list of items (increasing), blocks ordered by their smallest item; rgs: its restricted growth string (entry i the block of item i + 1, blocks numbered 0, 1, ... in order of first appearance).`).default('blocks');
+
+/** GET /v1/set-partitions/list */
+export const setPartitionsListQuery = z
+  .strictObject({
+    ...listFields,
+    n: integerParam(0, SET_N, 'The number of items, numbered 1 to n: every member is a set partition of them.'),
+    format: choiceParam(['json', 'ndjson', 'text'], 'json: one document; ndjson: one line {"rank": "...", "blocks": [...]} (or "rgs") per member, streamed; text: one member per line, its rank, a tab, then the member as sampling writes it (blocks: items separated by spaces, blocks by " | "; rgs: entries separated by spaces).').default('json'),
+    as: setPartitionForms('each member'),
+    ...setPartitionConstraints,
+  })
+  .superRefine(noBlocksWithMaxBlocks);
+
+/** GET /v1/set-partitions/rank */
+export const setPartitionsRankQuery = z
+  .strictObject({
+    rgs: partsParam(0, SET_N, MAX_RANKED_PARTS, 'The set partition as its restricted growth string, e.g. 0,1,0,2 for the blocks {1, 3}, {2}, {4} (empty for the set partition of 0 items).'),
+    n: integerParam(0, SET_N, 'The number of items of the family; defaults to the length of rgs.').optional(),
+    ...setPartitionConstraints,
+  })
+  .superRefine(noBlocksWithMaxBlocks);
+
+/** GET /v1/set-partitions/unrank */
+export const setPartitionsUnrankQuery = z
+  .strictObject({
+    n: integerParam(0, SET_N, 'The number of items: the member is a set partition of 1..n.'),
+    rank: unrankFields.rank,
+    as: setPartitionForms('the member as'),
+    ...setPartitionConstraints,
+  })
+  .superRefine(noBlocksWithMaxBlocks);
+
 export type PartitionsListQuery = z.output<typeof partitionsListQuery>;
 export type PartitionsRankQuery = z.output<typeof partitionsRankQuery>;
 export type PartitionsUnrankQuery = z.output<typeof partitionsUnrankQuery>;
 export type CompositionsListQuery = z.output<typeof compositionsListQuery>;
 export type CompositionsRankQuery = z.output<typeof compositionsRankQuery>;
 export type CompositionsUnrankQuery = z.output<typeof compositionsUnrankQuery>;
+export type SetPartitionsListQuery = z.output<typeof setPartitionsListQuery>;
+export type SetPartitionsRankQuery = z.output<typeof setPartitionsRankQuery>;
+export type SetPartitionsUnrankQuery = z.output<typeof setPartitionsUnrankQuery>;

@@ -44,11 +44,25 @@ describe('partsmith list, rank, unrank', () => {
     expect(empty).toEqual({ code: 0, stdout: '', stderr: '' });
   });
 
+  it('list set-partitions: every member over several pages (B_9 = 21147, OEIS A000110), text pages concatenated', async () => {
+    const result = await runInProcess(['list', 'set-partitions', '--n', '9', '--as', 'rgs', '--format', 'text']);
+    expect(result.code).toBe(0);
+    const lines = result.stdout.split('\n').filter(Boolean);
+    expect(lines).toHaveLength(21147);
+    expect(lines[0]).toBe('0\t0 0 0 0 0 0 0 0 0');
+    expect(lines.at(-1)).toBe('21146\t0 1 2 3 4 5 6 7 8');
+    const page = await runInProcess(['list', 'set-partitions', '--n', '6', '--blocks', '2', '--format', 'json']);
+    expect(page).toEqual({ code: 0, stdout: await apiBody('/v1/set-partitions/list?n=6&blocks=2&format=json&count=10000'), stderr: '' });
+  });
+
   it.each([
     [['rank', '--parts', '5,4,2,1'], '/v1/partitions/rank?parts=5,4,2,1'],
     [['rank', 'compositions', '--parts', '1,3,1'], '/v1/compositions/rank?parts=1,3,1'],
     [['unrank', '--n', '30', '--rank', '100', '--distinct'], '/v1/partitions/unrank?n=30&rank=100&distinct=true'],
     [['unrank', 'compositions', '--n', '10', '--rank', '17', '--length', '4'], '/v1/compositions/unrank?n=10&rank=17&length=4'],
+    [['rank', 'set-partitions', '--rgs', '0,1,0,2', '--max-blocks', '3'], '/v1/set-partitions/rank?rgs=0,1,0,2&maxBlocks=3'],
+    [['unrank', 'set-partitions', '--n', '10', '--rank', '1234', '--blocks', '3'], '/v1/set-partitions/unrank?n=10&rank=1234&blocks=3'],
+    [['unrank', 'set-partitions', '--n', '10', '--rank', '1234', '--as', 'rgs'], '/v1/set-partitions/unrank?n=10&rank=1234&as=rgs'],
   ])('%j prints the API document', async (args, path) => {
     expect(await runInProcess(args)).toEqual({ code: 0, stdout: await apiBody(path), stderr: '' });
   });

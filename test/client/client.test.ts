@@ -95,6 +95,56 @@ describe('client against the real app', () => {
     expect(missing.status).toBe(404);
   });
 
+  it('listPartitions(), listCompositions() and listSetPartitions() yield the NDJSON listing, each member with its rank', async () => {
+    const lines = [];
+    for await (const line of client.listPartitions({ n: 12, maxLength: 4, start: 30n })) lines.push(line);
+    expect(lines).toEqual([
+      { rank: '30', parts: [4, 4, 3, 1] },
+      { rank: '31', parts: [4, 4, 2, 2] },
+      { rank: '32', parts: [4, 3, 3, 2] },
+      { rank: '33', parts: [3, 3, 3, 3] },
+    ]);
+    const compositions = [];
+    for await (const line of client.listCompositions({ n: 10, allowed: [1, 2, 3], start: '100', count: 50 })) compositions.push(`${JSON.stringify(line)}\n`);
+    expect(compositions.join('')).toBe(await direct('/v1/compositions/list?n=10&allowed=1,2,3&start=100&count=50&format=ndjson'));
+    const setPartitions = [];
+    for await (const line of client.listSetPartitions({ n: 4, blocks: 2, as: 'rgs' })) setPartitions.push(line);
+    // S(4, 2) = 7 (OEIS A008277), in the order of their restricted growth strings.
+    expect(setPartitions.map((l) => l.rgs)).toEqual([[0, 0, 0, 1], [0, 0, 1, 0], [0, 0, 1, 1], [0, 1, 0, 0], [0, 1, 0, 1], [0, 1, 1, 0], [0, 1, 1, 1]]);
+    // Leaving the loop early closes the stream.
+    let seen = 0;
+    for await (const line of client.listPartitions({ n: 60, count: 10000 })) {
+      expect(line.rank).toBe(String(seen));
+      if (++seen === 3) break;
+    }
+    expect(seen).toBe(3);
+  });
+
+  it('rank and unrank of every kind return the service documents; ranks are decimal strings (BigInts accepted)', async () => {
+    expect(await client.rankPartition({ parts: [5, 4, 2, 1] })).toEqual({ family: { kind: 'partition', n: 12 }, parts: [5, 4, 2, 1], rank: '33', total: '77' });
+    expect(await client.unrankPartition({ n: 12, rank: 33n })).toEqual({ family: { kind: 'partition', n: 12 }, rank: '33', total: '77', parts: [5, 4, 2, 1] });
+    expect((await client.unrankPartition({ n: 12, rank: '33', as: 'multiplicities' })).multiplicities).toEqual([[5, 1], [4, 1], [2, 1], [1, 1]]);
+    expect(JSON.stringify(await client.rankComposition({ parts: [1, 3, 1] }))).toBe(await direct('/v1/compositions/rank?parts=1,3,1'));
+    const big = 12345678901234567890123456789n;
+    expect((await client.unrankComposition({ n: 200, rank: big })).rank).toBe(String(big));
+    expect(await client.rankSetPartition({ rgs: [0, 1, 0, 2] })).toEqual({ family: { kind: 'set-partition', n: 4 }, rgs: [0, 1, 0, 2], rank: '7', total: '15' });
+    expect((await client.unrankSetPartition({ n: 4, rank: 7n })).blocks).toEqual([[1, 3], [2], [4]]);
+    expect((await client.unrankSetPartition({ n: 4, rank: 7n, as: 'rgs' })).rgs).toEqual([0, 1, 0, 2]);
+  });
+
+  it('a non-member or a rank past the end is a 422 PartsmithError naming the parameter', async () => {
+    const notMember = (await client.rankPartition({ parts: [1, 2] }).catch((e: unknown) => e)) as PartsmithError;
+    expect(notMember.status).toBe(422);
+    expect(notMember.errors.map((e) => e.param)).toEqual(['parts']);
+    const past = (await client.unrankSetPartition({ n: 4, rank: 15n }).catch((e: unknown) => e)) as PartsmithError;
+    expect(past.status).toBe(422);
+    expect(past.errors.map((e) => e.param)).toEqual(['rank']);
+    const start = (await (async () => {
+      for await (const _ of client.listCompositions({ n: 5, start: 17n })) void _;
+    })().catch((e: unknown) => e)) as PartsmithError;
+    expect(start.errors.map((e) => e.param)).toEqual(['start']);
+  });
+
   it('validates the way the service does: a bad value is a 400 from the service, not a client-side guess', async () => {
     const error = (await client.partitions({ n: 2.5, seed: 'x' }).catch((e: unknown) => e)) as PartsmithError;
     expect(error.status).toBe(400);

@@ -98,6 +98,14 @@ const ranks: ParityRequest[] = [
   get('/v1/partitions/unrank?n=30&length=5&rank=17&as=multiplicities'),
   get('/v1/compositions/unrank?n=200&rank=98765432109876543210987654321'),
   get('/v1/compositions/unrank?n=30&length=4&maxPart=12&rank=500'),
+  // Set partitions in the order of their restricted growth strings: both forms, every format.
+  ...FORMATS.map((format) => get(`/v1/set-partitions/list?n=6&maxBlocks=3&format=${format}`)),
+  ...FORMATS.map((format) => get(`/v1/set-partitions/list?n=9&minBlockSize=2&as=rgs&start=100&count=40&format=${format}`)),
+  get('/v1/set-partitions/rank?rgs=0,1,0,2,1'),
+  get('/v1/set-partitions/rank?rgs=0,0,1,1,2,2&minBlockSize=2&maxBlockSize=3'),
+  get('/v1/set-partitions/unrank?n=40&rank=123456789012345678901234567890'), // B_40 ~ 1.6e35 (OEIS A000110): a rank past 2^53
+  get('/v1/set-partitions/unrank?n=12&blocks=3&rank=500&as=rgs'),
+  get('/v1/set-partitions/unrank?n=5000&blocks=3&rank=12345678901234567890&as=rgs'), // 5000 items: counted without recursion (a worker's stack)
 ];
 
 /** Pictures: Ferrers diagrams (svg, text, conjugate; parts= and n/seed/index), distribution checks (json, svg). */
@@ -191,6 +199,8 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/healthz?verbose=1'),
   get('/v1/partitions/rank?parts=1,a'),
   get('/v1/partitions/unrank?n=5&rank=-2'),
+  get('/v1/set-partitions/rank?rgs=0,x'),
+  get('/v1/set-partitions/unrank?n=5&rank=1&as=parts'),
   // 404.
   get('/index.html'),
   get('/v1/partition?n=10'),
@@ -216,4 +226,9 @@ export const PARITY_REQUESTS: readonly ParityRequest[] = [
   get('/v1/partitions/unrank?n=12&rank=77'),
   get('/v1/compositions/list?n=5&start=17'),
   get('/v1/partitions/list?n=5000'),
+  get('/v1/set-partitions/rank?rgs=0,2,1'),
+  get('/v1/set-partitions/rank?rgs=0,1,2&blocks=2'),
+  get('/v1/set-partitions/unrank?n=4&rank=15'),
+  get('/v1/set-partitions/list?n=4&blocks=5'),
+  get('/v1/set-partitions/list?n=6000'),
 ];

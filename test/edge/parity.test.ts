@@ -42,7 +42,7 @@ describe('runtime parity: in-process, Node server, workerd', () => {
     expect(PARITY_REQUESTS.length).toBeGreaterThanOrEqual(50);
     const servedAt = (path: string) => SERVED.filter((r) => r.path.split('?')[0] === path).map((r) => r.path);
     const endpoints = ['/v1/partitions', '/v1/partitions/count', '/v1/compositions', '/v1/compositions/count', '/v1/set-partitions', '/v1/set-partitions/count', '/v1/partitions/diagram', '/v1/partitions/check', '/v1/compositions/check', '/healthz', '/openapi.json'];
-    endpoints.push('/v1/partitions/list', '/v1/partitions/rank', '/v1/partitions/unrank', '/v1/compositions/list', '/v1/compositions/rank', '/v1/compositions/unrank');
+    endpoints.push('/v1/partitions/list', '/v1/partitions/rank', '/v1/partitions/unrank', '/v1/compositions/list', '/v1/compositions/rank', '/v1/compositions/unrank', '/v1/set-partitions/list', '/v1/set-partitions/rank', '/v1/set-partitions/unrank');
     for (const path of [...endpoints, '/', '/assets/page.css', '/assets/page.js', '/favicon.ico']) expect(servedAt(path).length, path).toBeGreaterThan(0);
     // Every constraint answered with samples and with a count.
     for (const path of ['/v1/partitions', '/v1/partitions/count']) {

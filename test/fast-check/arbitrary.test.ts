@@ -7,6 +7,7 @@ import { chiSquareTest } from '../support/chi-square.js';
 import { enumerateCompositions } from '../support/enumerate-compositions.js';
 import { enumeratePartitions } from '../support/enumerate-partitions.js';
 import { satisfies } from '../support/enumerate-constrained.js';
+import { valuesAndShrinks } from '../support/shrink-tree.js';
 
 /**
  * The arbitraries of partsmith/fast-check: every value and every shrink candidate is a member
@@ -27,29 +28,6 @@ function isPartitionOf(constraints: Omit<PartitionFamily, 'kind' | 'n'>, parts: 
 function isCompositionOf(constraints: Omit<CompositionFamily, 'kind' | 'n'>, parts: readonly number[]): boolean {
   const family: CompositionFamily = { kind: 'composition', n: sum(parts), ...constraints };
   return enumerateCompositions(family).some((c) => c.length === parts.length && c.every((v, i) => v === parts[i]));
-}
-
-/** The values of an arbitrary and the shrink tree below each, to `depth` levels (at most `width` per level). */
-function valuesAndShrinks(arb: FamilyArbitrary, seed: number, runs: number, depth = 3, width = 6): { values: number[][]; shrinks: [number[], number[]][] } {
-  const values: number[][] = [];
-  const shrinks: [number[], number[]][] = [];
-  for (const value of fc.sample(arb, { seed, numRuns: runs })) {
-    values.push(value);
-    let level: number[][] = [value];
-    for (let d = 0; d < depth; d++) {
-      const next: number[][] = [];
-      for (const v of level) {
-        let taken = 0;
-        for (const candidate of arb.shrink(v, undefined)) {
-          shrinks.push([v, candidate.value]);
-          next.push(candidate.value);
-          if (++taken >= width) break;
-        }
-      }
-      level = next;
-    }
-  }
-  return { values, shrinks };
 }
 
 /** Random constraint sets of small families (n up to 24, so brute force stays cheap). */
@@ -281,7 +259,24 @@ describe('replay and reporting', () => {
     const again = fc.check(property, { seed: 42, path: first.counterexamplePath! });
     expect(again.counterexample).toEqual(first.counterexample);
     const report = fc.stringify(first.counterexample![0]);
-    expect(report).toMatch(/^\[[0-9,]+\] \/\* partition of \d+; shrunk from sample \d+ of seed "fast-check" of \{"kind":"partition","n":\d+,"maxPart":30\} \*\/$/);
+    expect(report).toMatch(/^\[[0-9,]+\] \/\* partition of \d+ \(rank \d+ of \{"kind":"partition","n":\d+,"maxPart":30\}\); shrunk from sample \d+ of seed "fast-check" of \{"kind":"partition","n":\d+,"maxPart":30\} \*\/$/);
+  });
+
+  it("the report shows the member's rank in its family where the family is rankable, and none past the ranking limits", () => {
+    // [1 x 12] is the last partition of 12 with parts of at most 30 (all of them): rank p(12) - 1 = 76 (p(12) = 77, OEIS A000041).
+    const property = fc.property(partitionArb({ n: { min: 10, max: 200 }, maxPart: 30 }), (parts) => parts.length < 12);
+    const shrunk = fc.check(property, { seed: 42 }).counterexample![0];
+    expect(shrunk).toEqual(new Array(12).fill(1));
+    expect(fc.stringify(shrunk)).toContain('(rank 76 of {"kind":"partition","n":12,"maxPart":30})');
+    for (const value of fc.sample(compositionArb({ n: 12, allowed: [1, 2, 3] }), { seed: 11, numRuns: 10 })) {
+      const rank = BigInt(/\(rank (\d+) of /.exec(fc.stringify(value))![1]);
+      const family = compositionFamily({ n: 12, allowed: [1, 2, 3] });
+      expect(family.rank(value)).toBe(rank);
+      expect(family.unrank(rank)).toEqual(value);
+    }
+    // Partitions of 10^6 are past the rank tables (n <= 1,670 unrestricted): the report has no rank.
+    const [large] = fc.sample(partitionArb({ n: 1_000_000 }), { seed: 12, numRuns: 1 });
+    expect(fc.stringify(large)).toMatch(/\/\* partition of 1000000; sample \d+ of seed "fast-check" of \{"kind":"partition","n":1000000\} \*\/$/);
   });
 
   it('an unshrunk value is sample (seed, index) of its family, as the library and the API give it', () => {

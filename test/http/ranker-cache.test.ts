@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { PartsmithError } from '../../src/client/errors.js';
 import { LimitExceededError } from '../../src/core/errors.js';
 import { emptyRanker } from '../../src/core/ranks/ranker.js';
 import { RankerCache } from '../../src/http/ranking.js';
@@ -7,11 +8,11 @@ describe('RankerCache', () => {
   const ranker = emptyRanker('none');
 
   it('keeps rankers within its byte budget, least recently used out, but always the newest', () => {
-    const cache = new RankerCache(100, 8);
+    const cache = new RankerCache<typeof ranker>(100, 8);
     let made = 0;
     const make = (bytes: number) => () => {
       made++;
-      return { ranker, bytes };
+      return { value: ranker, bytes };
     };
     cache.getOrCreate('a', make(40));
     cache.getOrCreate('b', make(40));
@@ -28,8 +29,8 @@ describe('RankerCache', () => {
   });
 
   it('bounds the number of entries too', () => {
-    const cache = new RankerCache(1e9, 3);
-    for (const key of ['a', 'b', 'c', 'd']) cache.getOrCreate(key, () => ({ ranker, bytes: 1 }));
+    const cache = new RankerCache<typeof ranker>(1e9, 3);
+    for (const key of ['a', 'b', 'c', 'd']) cache.getOrCreate(key, () => ({ value: ranker, bytes: 1 }));
     expect(cache.size).toBe(3);
   });
 
@@ -43,6 +44,15 @@ describe('RankerCache', () => {
     expect(() => cache.getOrCreate('big', refuse)).toThrow('too big');
     expect(() => cache.getOrCreate('big', refuse)).toThrow(LimitExceededError);
     expect(tries).toBe(1);
+    // The library's refusal of the same (a 422 PartsmithError) likewise.
+    let refusals = 0;
+    const library = () => {
+      refusals++;
+      throw new PartsmithError({ status: 422, detail: 'too big' }, '/v1/partitions/list');
+    };
+    expect(() => cache.getOrCreate('big-family', library)).toThrow(PartsmithError);
+    expect(() => cache.getOrCreate('big-family', library)).toThrow('too big');
+    expect(refusals).toBe(1);
     // Other errors (malformed families) are not remembered.
     let bad = 0;
     const malformed = () => {

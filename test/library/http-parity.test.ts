@@ -1,8 +1,9 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
-import { compositionFamily, partitionFamily, PartsmithError, type SampledFamily } from 'partsmith';
+import { compositionFamily, partitionFamily, PartsmithError, setPartitionFamily, type SampledFamily } from 'partsmith';
 import { toQueryString } from '../../src/client/params.js';
 import { createApp } from '../../src/http/app.js';
+import { thrown } from '../support/thrown.js';
 
 /**
  * The synchronous library equals the HTTP API: for the same family and seed it returns the same
@@ -30,18 +31,6 @@ async function expectSameSamples(kind: 'partition' | 'composition', constraints:
   const answer = await service(`${path(kind)}${toQueryString({ ...constraints, seed, start, count })}`);
   expect(answer.status, JSON.stringify(constraints)).toBe(200);
   expect(libraryDocument(family, seed, start, count), JSON.stringify(constraints)).toBe(answer.text);
-}
-
-/** The library's error, as the fields of a problem document. */
-function thrown(call: () => unknown): Record<string, unknown> {
-  try {
-    call();
-  } catch (error) {
-    expect(error).toBeInstanceOf(PartsmithError);
-    const e = error as PartsmithError;
-    return e.errors.length > 0 ? { type: e.type, title: e.title, status: e.status, detail: e.detail, errors: e.errors } : { type: e.type, title: e.title, status: e.status, detail: e.detail };
-  }
-  throw new Error('expected a PartsmithError');
 }
 
 describe('the library returns the samples of the API, byte for byte', () => {
@@ -75,6 +64,27 @@ describe('the library returns the samples of the API, byte for byte', () => {
   it.each(compositionCases)('compositions %j', async (constraints) => {
     await expectSameSamples('composition', constraints, 'parity', 0, 4);
     await expectSameSamples('composition', constraints, 'parity', 1_000_000, 2);
+  });
+
+  const setPartitionCases: Constraints[] = [
+    { n: 0 },
+    { n: 12 },
+    { n: 12, blocks: 3 },
+    { n: 20, maxBlocks: 4, maxBlockSize: 6 },
+    { n: 30, minBlockSize: 2 },
+    { n: 5000, blocks: 10 },
+    { n: 20000 },
+  ];
+  it.each(setPartitionCases)('set partitions %j (members as blocks, the API\'s as=blocks)', async (constraints) => {
+    const family = setPartitionFamily(constraints as never);
+    for (const [start, count] of [[0, 3], [99, 2]]) {
+      const answer = await service(`/v1/set-partitions${toQueryString({ ...constraints, seed: 'parity', start, count })}`);
+      expect(answer.status).toBe(200);
+      const doc = JSON.stringify({ family: family.description, seed: 'parity', start, method: family.method, samples: [...family.samples('parity', start, count)] });
+      expect(doc).toBe(answer.text);
+    }
+    if (constraints.n <= 1000) expect(String(family.count)).toBe(JSON.parse((await service(`/v1/set-partitions/count${toQueryString(constraints)}`)).text).count);
+    for (const blocks of family.samples('members', 0, 20)) expect(family.contains(blocks)).toBe(true);
   });
 
   it('sample(seed, i) is sample i of samples(seed, ...) and of the API, whatever framing', async () => {

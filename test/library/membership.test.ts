@@ -1,6 +1,8 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
-import { compositionFamily, partitionFamily } from 'partsmith';
+import { blocksOfRgs, compositionFamily, partitionFamily, setPartitionFamily } from 'partsmith';
+import { enumerateSetPartitions } from '../support/enumerate-set-partitions.js';
+import { CONSTRAINT_SHAPES } from '../set-partitions/support.js';
 import type { CompositionFamily, PartitionFamily } from '../../src/core/family.js';
 import { samplingFields } from '../../src/schemas/common.js';
 import { withThousands } from '../../src/schemas/params.js';
@@ -53,6 +55,30 @@ describe('contains() is membership as defined', () => {
       const keys = new Set(members.map((m) => m.join(',')));
       for (const m of all) expect(family.contains(m), `${JSON.stringify(m)} in ${JSON.stringify(c)}`).toBe(keys.has(m.join(',')));
     }
+  });
+});
+
+describe('set partitions: contains() is membership as defined', () => {
+  it('for every shape of constraints at n <= 6, contains(blocks) holds exactly for the brute-force members, and only in the written form', () => {
+    for (const shape of CONSTRAINT_SHAPES) {
+      for (let n = 0; n <= 6; n++) {
+        if (shape.blocks !== undefined && shape.blocks > n) continue;
+        const family = setPartitionFamily({ n, ...shape } as never);
+        // Every restricted growth string of length n is a set partition of 1..n; the family's are the brute-force members.
+        const all = enumerateSetPartitions({ n });
+        const members = new Set(enumerateSetPartitions({ n, ...shape }).map((rgs) => rgs.join(',')));
+        expect(BigInt(members.size)).toBe(family.count);
+        for (const rgs of all) {
+          const blocks = blocksOfRgs(rgs);
+          expect(family.contains(blocks), `${JSON.stringify(blocks)} in ${JSON.stringify(shape)}`).toBe(members.has(rgs.join(',')));
+          if (blocks.length > 1) expect(family.contains([...blocks].reverse())).toBe(false); // not ordered by smallest item
+          if (blocks[0]?.length > 1) expect(family.contains([[...blocks[0]].reverse(), ...blocks.slice(1)])).toBe(false); // a block not increasing
+        }
+        expect(family.contains(enumerateSetPartitions({ n: n + 1 }).map(blocksOfRgs)[0])).toBe(false); // n + 1 items
+      }
+    }
+    const family = setPartitionFamily({ n: 3 });
+    for (const bad of [[[1, 2, 2]], [[1], [2], []], [[1], [2], [4]], [[1.5], [2], [3]], [0, 1, 2], '1 2 | 3', [[1, 2], [3], [3]]]) expect(family.contains(bad), JSON.stringify(bad)).toBe(false);
   });
 });
 

@@ -37,6 +37,29 @@ describe('the page: list mode and ranks of samples', () => {
     }
   });
 
+  it('lists set partitions in the order of their restricted growth strings, drawn as blocks, as the API lists them', async () => {
+    const shown = await captions('/?family=set-partitions&n=5&blocks=2&mode=list&count=48');
+    const api = await (await get('/v1/set-partitions/list?n=5&blocks=2&count=48')).json();
+    // S(5, 2) = 15 (OEIS A008277), the first {1, 2, 3, 4} {5}.
+    expect(api.members).toHaveLength(15);
+    expect(shown).toEqual(api.members.map((m: { rank: string; blocks: number[][] }) => `rank ${m.rank} ${m.blocks.map((b) => `{${b.join(', ')}}`).join(' ')}`));
+    expect(shown[0]).toBe('rank 0 {1, 2, 3, 4} {5}');
+    const page = await (await get('/?family=set-partitions&n=5&blocks=2&mode=list&count=48')).text();
+    expect(page).toContain('restricted growth strings');
+    expect(page).toContain('partsmith list set-partitions --n 5 --blocks 2');
+  });
+
+  it('shows the rank of each random set partition beside it, and none past the page limit', async () => {
+    const shown = await captions('/?family=set-partitions&n=12&count=4&seed=page-ranks&maxBlockSize=4');
+    const samples = (await (await get('/v1/set-partitions?n=12&count=4&seed=page-ranks&maxBlockSize=4&as=rgs')).json()).samples as number[][];
+    for (const [i, rgs] of samples.entries()) {
+      const { rank } = await (await get(`/v1/set-partitions/rank?rgs=${rgs.join(',')}&maxBlockSize=4`)).json();
+      expect(shown[i]).toMatch(new RegExp(`^#${i} .* rank ${rank}$`));
+    }
+    expect((await captions('/?family=set-partitions&n=30&count=1&seed=big'))[0]).not.toMatch(/rank/);
+    expect(await (await get('/?family=set-partitions&n=30&mode=list')).text()).toMatch(/ranks set partitions of up to 24 items/);
+  });
+
   it('says when a family is too large to rank on the page, and draws its samples without ranks', async () => {
     const page = await (await get('/?family=partitions&n=3000&mode=list')).text();
     expect(page).toMatch(/too large to rank on this page/);

@@ -6,6 +6,7 @@ import type { CompositionFamily, PartitionFamily } from '../../src/core/family.j
 import { compositionRanker, compositionRankTableSize, largestRankableCompositionN } from '../../src/core/ranks/composition-ranker.js';
 import { RANK_TABLE_BYTES } from '../../src/core/ranks/limits.js';
 import { largestRankablePartitionN, partitionRanker, partitionRankTableSize } from '../../src/core/ranks/partition-ranker.js';
+import { setPartitionRanker } from '../../src/core/set-partitions/ranker.js';
 import { PROJECT_ROOT } from '../edge/runtimes.js';
 
 /** The README's table of the largest n per family shape: [kind, constraints as a query, n]. */
@@ -28,7 +29,37 @@ function readmeLimits(): [string, Record<string, unknown>, number][] {
   return out;
 }
 
+/** The README's table of the largest n per set-partition shape: [constraints, n]. */
+function readmeSetPartitionLimits(): [Record<string, number>, number][] {
+  const readme = readFileSync(join(PROJECT_ROOT, 'README.md'), 'utf8');
+  const lines = readme.slice(readme.indexOf('| set partitions | largest `n` |')).split('\n').slice(2);
+  return lines.slice(0, lines.findIndex((line) => !line.startsWith('|'))).map((row) => {
+    const [shape, n] = row.split('|').slice(1, -1).map((c) => c.trim());
+    const query = shape.startsWith('no constraint') ? '' : /`([^`]+)`/.exec(shape)![1];
+    return [Object.fromEntries([...new URLSearchParams(query)].map(([k, v]) => [k, Number(v)])), Number(n.replace(/,/g, ''))];
+  });
+}
+
+const rankable = (family: Record<string, number> & { n: number }) => {
+  try {
+    setPartitionRanker({ kind: 'set-partition', ...family });
+    return true;
+  } catch (error) {
+    if (error instanceof LimitExceededError) return false;
+    throw error;
+  }
+};
+
 describe('rank table limits', () => {
+  it('set partitions: the README states the largest n per shape the code ranks (it ranks n and refuses n + 1)', () => {
+    const rows = readmeSetPartitionLimits();
+    expect(rows.length).toBeGreaterThanOrEqual(8);
+    for (const [constraints, n] of rows) {
+      expect(rankable({ ...constraints, n }), `${JSON.stringify(constraints)} at ${n}`).toBe(true);
+      expect(rankable({ ...constraints, n: n + 1 }), `${JSON.stringify(constraints)} at ${n + 1}`).toBe(false);
+    }
+  });
+
   it('the README states the largest n per family shape that the code enforces', () => {
     const rows = readmeLimits();
     expect(rows.length).toBeGreaterThanOrEqual(15);

@@ -16,7 +16,8 @@ import { runCompositionCheck, type CompositionCheck } from '../routes/compositio
 import { compositionFamilyOf } from '../../library/compositions.js';
 import { partitionFamilyOf } from '../../library/partitions.js';
 import type { PartitionsQuery } from '../../schemas/partitions.js';
-import { setPartitionFamilyOf } from '../routes/set-partitions.js';
+import { setPartitionFamilyOf } from '../../library/set-partitions.js';
+import { rgsOfBlocks } from '../../library/set-partition-forms.js';
 import type { SetPartitionsQuery } from '../../schemas/set-partitions.js';
 import { planSetPartitionSampler } from '../../core/set-partitions/plan.js';
 import { blocksOf } from '../../core/set-partitions/set-partition.js';
@@ -77,7 +78,7 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
     ${form.query === null ? errorSummary(form) : null}
     ${problem ? html`<section class="card" aria-labelledby="problem-title"><h2 id="problem-title">This request cannot be served</h2><div class="problem" role="alert"><p>${problem}</p></div></section>` : null}
     ${listing ? listSection(form, context) : null}
-    ${drawn ? samplesSection(url, form, drawn, sampleRanks(form, context, drawn.samples)) : null}
+    ${drawn ? samplesSection(url, form, drawn, sampleRanks(form, context, drawn.blocks ? drawn.blocks.map(rgsOfBlocks) : drawn.samples)) : null}
     ${drawn ? snippetsSection(url, form, drawn) : null}
     ${drawn ? jsonSection(form, drawn) : null}
     ${drawn && form.check && form.family.kind === 'set-partition' ? html`<section class="card" aria-labelledby="check-title"><h2 id="check-title">Distribution check</h2><div class="note"><p>The page checks partitions and compositions against exact laws. For set partitions, the exact number of members is at <a href="/v1/set-partitions/count?${queryString(form.apiParams.filter(([k]) => k !== 'count' && k !== 'seed'))}">/v1/set-partitions/count</a>, and the test suite checks every sampler against enumerations and the exact law of the number of blocks.</p></div></section>` : null}
@@ -221,7 +222,7 @@ function errorSummary(form: FormState): Html {
 }
 
 function samplesSection(url: URL, form: FormState, drawn: Drawn, ranks: readonly string[] | null): Html {
-  if (drawn.blocks) return setPartitionsSection(form, drawn, drawn.blocks);
+  if (drawn.blocks) return setPartitionsSection(form, drawn, drawn.blocks, ranks);
   const query = form.query!;
   const partitions = form.family.kind === 'partition';
   const noun = partitions ? 'partition' : 'composition';
@@ -271,7 +272,7 @@ function permalinkOf(form: FormState, seed: string): string {
   return `/?${queryString([['family', form.family.value], ...form.apiParams.filter(([k]) => k !== 'seed'), ['seed', seed], ...(form.check ? ([['check', 'true'], ['samples', String(form.samples)]] as [string, string][]) : [])])}`;
 }
 
-function setPartitionsSection(form: FormState, drawn: Drawn, samples: number[][][]): Html {
+function setPartitionsSection(form: FormState, drawn: Drawn, samples: number[][][], ranks: readonly string[] | null): Html {
   const query = form.query!;
   const limits = SET_PARTITION_DRAWING_LIMITS;
   const figures = samples.map((blocks, i) => {
@@ -282,7 +283,7 @@ function setPartitionsSection(form: FormState, drawn: Drawn, samples: number[][]
         : html`<div class="drawing">${trusted(setPartitionSvg(blocks, { fit: 200 }))}</div>`;
     return html`<li><figure>
   ${drawing}
-  <figcaption><strong>#${i}</strong> ${blocks.length === 0 ? 'the empty set partition' : shortBlocks(blocks)}</figcaption>
+  <figcaption><strong>#${i}</strong> ${blocks.length === 0 ? 'the empty set partition' : shortBlocks(blocks)}${rankNote(ranks, i)}</figcaption>
 </figure></li>`;
   });
   return html`<section class="card" aria-labelledby="samples-title">

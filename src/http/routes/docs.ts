@@ -28,6 +28,9 @@ export const PARTITION_ORDER =
 export const COMPOSITION_ORDER =
   'Order: lexicographic order of the part sequence — (1, ..., 1) first and (n) last when the parts are free; the first part decides, then the second, and so on. Ranks are decimal strings, from 0.';
 
+export const SET_PARTITION_ORDER =
+  'Order: lexicographic order of the restricted growth strings (entry i the block of item i + 1, blocks numbered 0, 1, ... in order of their smallest items) — one block (0, ..., 0) first and, when the family has it, all singletons (0, 1, ..., n-1) last. Ranks are decimal strings, from 0.';
+
 /** Responses of a listing. */
 export const LIST_RESPONSES: Record<string, ResponseDoc> = {
   '200': { description: 'The members, each with its rank; header Partsmith-Total: the number of members of the family.', contentTypes: SAMPLE_CONTENT_TYPES },
@@ -37,7 +40,7 @@ export const LIST_RESPONSES: Record<string, ResponseDoc> = {
 
 /** Responses of rank and unrank. */
 export const RANK_RESPONSES: Record<string, ResponseDoc> = {
-  '200': { description: '{"family": {...}, "rank": "decimal string", "total": "decimal string", "parts": [...]}', contentTypes: ['application/json'] },
+  '200': { description: '{"family": {...}, "rank": "decimal string", "total": "decimal string", "parts": [...]} (set partitions: "blocks" or "rgs")', contentTypes: ['application/json'] },
   '304': { description: 'Not modified (If-None-Match matched the ETag).', contentTypes: [] },
   ...PROBLEM_RESPONSES,
 };

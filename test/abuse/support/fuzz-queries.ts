@@ -77,6 +77,17 @@ function randomValue(rng: Rng, key: string): string {
     const parts = Array.from({ length: below(rng, 6) }, () => 1 + below(rng, 9));
     return (r < 0.6 ? parts.sort((a, b) => b - a) : parts).join(',');
   }
+  if (key === 'rgs' && r < 0.8) {
+    // A plausible set partition: a restricted growth string of up to 7 items (or, a third of the time, any small numbers).
+    const rgs: number[] = [];
+    let max = -1;
+    for (let i = below(rng, 8); i > 0; i--) {
+      const v = r < 0.6 ? below(rng, max + 2) : below(rng, 4);
+      rgs.push(v);
+      max = Math.max(max, v);
+    }
+    return rgs.join(',');
+  }
   if (key === 'n' || key === 'count' || key === 'start' || key === 'rank' || key.endsWith('Part') || key.endsWith('ength') || key.endsWith('locks') || key.endsWith('BlockSize')) {
     // Mostly small, plausible values so that a good share of requests succeed and get checked.
     if (r < 0.8) return String(below(rng, r < 0.7 ? 30 : 400));
@@ -107,9 +118,9 @@ function randomQuery(rng: Rng, endpoint: EndpointSpec): string {
   if (rng() < 0.125) return plausibleQuery(rng, usual);
   // Most queries give the required n; others are free-form.
   // (Less often where a member can be given instead: n then defaults to its sum, or must be absent.)
-  if (usual.includes('n') && rng() < (usual.includes('parts') ? 0.3 : 0.85)) pairs.push(`n=${encode(rng, randomValue(rng, 'n'))}`);
+  if (usual.includes('n') && rng() < (usual.includes('parts') || usual.includes('rgs') ? 0.3 : 0.85)) pairs.push(`n=${encode(rng, randomValue(rng, 'n'))}`);
   // The rank endpoints' member or rank, likewise (drawn only for endpoints that have them).
-  for (const key of ['parts', 'rank']) if (usual.includes(key) && rng() < 0.9) pairs.push(`${key}=${encode(rng, randomValue(rng, key))}`);
+  for (const key of ['parts', 'rgs', 'rank']) if (usual.includes(key) && rng() < 0.9) pairs.push(`${key}=${encode(rng, randomValue(rng, key))}`);
   const extra = below(rng, 5);
   for (let i = 0; i < extra; i++) {
     const r = rng();
@@ -130,7 +141,7 @@ function randomQuery(rng: Rng, endpoint: EndpointSpec): string {
 
 /** n and up to two other parameters of the endpoint, each with a value from randomValue's plausible branches. */
 function plausibleQuery(rng: Rng, usual: readonly string[]): string {
-  const keys = new Set<string>(usual.filter((key) => key === 'n' || key === 'parts' || key === 'rank'));
+  const keys = new Set<string>(usual.filter((key) => key === 'n' || key === 'parts' || key === 'rgs' || key === 'rank'));
   for (let i = below(rng, 3); i > 0 && usual.length > 0; i--) keys.add(pick(rng, usual));
   const pairs: string[] = [];
   for (const key of keys) {
