@@ -46,10 +46,10 @@ describe('stream derivation (since ALGORITHM_VERSION 2)', () => {
     for (let i = 0; i < 100; i++) expect(ours.nextUint32()).toBe(alea.int32() >>> 0);
   });
 
-  it('golden: the first words of one stream (recorded from this implementation at version 3)', () => {
-    expect(ALGORITHM_VERSION).toBe(3);
+  it('golden: the first words of one stream (recorded from this implementation at version 4)', () => {
+    expect(ALGORITHM_VERSION).toBe(4);
     const source = sampleSource('golden', 0, '{"kind":"partition","n":10}');
-    expect([source.nextUint32(), source.nextUint32(), source.nextUint32(), source.nextDouble()]).toEqual([3940003544, 287403733, 3611379653, 0.4852913843803942]);
+    expect([source.nextUint32(), source.nextUint32(), source.nextUint32(), source.nextDouble()]).toEqual([429973111, 3164559155, 1272368183, 0.8967279346861344]);
   });
 });
 

@@ -19,8 +19,11 @@ import type { RandomSource } from './random.js';
  *    (box-subset, box-mixture, allowed-length-boltzmann, allowed-subset, samplers of the family
  *    without one constraint plus rejection) and plans a maxLength no member can reach as absent
  *    (plan-length.ts).
+ * 4: same stream derivation; every stream changed with the version. New large-n methods for
+ *    distinct parts and for a smallest-part bound (issue 13) change what the planner picks for
+ *    families it already served.
  */
-export const ALGORITHM_VERSION = 3;
+export const ALGORITHM_VERSION = 4;
 
 /** Characters a seed may use: URL-safe without escaping, so a seed pastes into a query string. */
 export const SEED_PATTERN = /^[A-Za-z0-9._~:-]{1,64}$/;
