@@ -21,6 +21,11 @@ import { DistinctPartitionNumbers } from './distinct-partition-numbers.js';
 export class LogDistinctPartitionNumbers {
   /** Largest m served from the exact table. */
   static readonly EXACT_UP_TO = 2000;
+  /**
+   * From here on Hua's leading term is within double rounding of q(m) (z >= 57, e^{−2z/3} < 1e-16);
+   * log-ratios across the table's end use it on both sides.
+   */
+  static readonly HUA_ACCURATE_FROM = 1000;
   /** Largest m accepted (the service's limit on n). */
   static readonly MAX_M = 1_000_000_000;
 
@@ -50,7 +55,8 @@ export class LogDistinctPartitionNumbers {
       const t = this.table();
       return Math.log(t[a] / t[b]);
     }
-    if (a <= limit || b <= limit) return this.log(a) - this.log(b);
+    // One side tabulated: the stable form still applies while both are >= HUA_ACCURATE_FROM.
+    if (Math.min(a, b) < LogDistinctPartitionNumbers.HUA_ACCURATE_FROM) return this.log(a) - this.log(b);
     const na = a + 1 / 24;
     const nb = b + 1 / 24;
     const ra = Math.sqrt(na);

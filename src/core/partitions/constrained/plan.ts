@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
@@ -169,6 +170,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   if (!hasLength && feasible === true) {
     if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
+    // Plain distinct parts (no bound on the sizes): the self-similar method (distinct-self-similar.ts).
+    if (distinct && open && lo <= 1) boltzmann(() => new DistinctSelfSimilarSampler(n));
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
