@@ -38,6 +38,11 @@ import { DistinctPartitionTable } from './distinct-table.js';
  * used are the Hua term, concave in m), so the local maximum on [33, n/2] is global, and m' <= 32
  * is compared directly when it could matter. Acceptance uses the stable log-ratio
  * log q(m) − log q(m*) (log-distinct-partition-number.ts).
+ *
+ * Glaisher's bijection (partitions into odd parts ↔ distinct parts) was the alternative: it would
+ * still need an exact-size sampler for odd-part partitions, the same problem with geometric
+ * multiplicities and no smaller sub-problem to recurse on; the split above recurses on n/4
+ * and has a closed-form acceptance rate, as the unrestricted method does.
  */
 export interface DistinctSelfSimilarOptions {
   /** Sub-problems of size <= this use the table (its maxN must be >= this). */
