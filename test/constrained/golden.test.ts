@@ -30,6 +30,17 @@ const large: Array<{ family: PartitionFamily; method: string; heads: Array<[numb
     method: 'distinct-boltzmann/1',
     heads: [[31, [254, 190, 160, 139, 127]], [32, [171, 158, 145, 136, 115]], [36, [206, 139, 125, 121, 110]]],
   },
+  // Plain distinct parts at large n (distinct-self-similar, new in ALGORITHM_VERSION 4).
+  {
+    family: { kind: 'partition', n: 1_000_000, distinct: true },
+    method: 'distinct-self-similar/1',
+    heads: [[756, [7478, 7094, 6908, 6669, 6643]], [770, [7831, 7094, 7059, 6719, 6013]], [770, [7633, 7448, 7044, 6750, 6714]]],
+  },
+  {
+    family: { kind: 'partition', n: 1_000_000_000, distinct: true },
+    method: 'distinct-self-similar/1',
+    heads: [[24163, [324775, 306371, 305286, 302768, 300589]], [24221, [406939, 343878, 341244, 338929, 307112]], [24076, [412306, 396021, 330285, 307759, 302746]]],
+  },
   {
     family: { kind: 'partition', n: 5000, maxPart: 12 },
     method: 'table-sizes/1',

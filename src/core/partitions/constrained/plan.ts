@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
@@ -28,13 +29,15 @@ import { solveTilt, tiltMoments } from './tilt.js';
  * - TABLE_CELL_LIMIT = 5e6 cells (8 bytes each, 40 MB) for any counting table. Hence, roughly:
  *   table-sizes (no length constraint) needs (#sizes + 1)(n + 1) <= 5e6, e.g. distinct or
  *   minPart-only families up to n ~ 2200 this way; table-lengths needs (K + 1)(n + 1), e.g.
- *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4, exactly k parts with k = 100 up to n ~ 5e4;
+ *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4 (plain distinct parts switch to
+ *   distinct-self-similar from n ~ 2500, where it is cheaper), exactly k parts with k = 100 up to n ~ 5e4;
  *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
  * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
  *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
- *   are refused. Measured consequences (planner estimates): distinct parts up to n ~ 4e7
- *   (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   are refused. Measured consequences (planner estimates): plain distinct parts up to n = 1e9
+ *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts with a part
+ *   bound (distinct-boltzmann) up to n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); minPart = 7 up to n ~ 5e8 (2.2e6 steps, 0.6 s per sample at n = 1e8); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
@@ -167,8 +170,14 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     });
   };
   if (!hasLength && feasible === true) {
-    if (distinct) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
-    else boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
+    // Plain distinct parts (no bound on the sizes): the self-similar method (distinct-self-similar.ts).
+    // It is cheaper than distinct-boltzmann wherever Boltzmann methods are considered (checked in
+    // test/constrained/plan-distinct.test.ts), so that one, and its 2e6-cell block table (~40 ms),
+    // is only built when all candidates are asked for.
+    const plainDistinct = distinct && open && lo <= 1;
+    if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
+    if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
+    else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
