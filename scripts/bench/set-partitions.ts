@@ -5,6 +5,21 @@ import { SampleStreams } from '../../src/core/seeding.js';
 import { setPartitionAsRgs } from '../../src/http/set-partition-encode.js';
 import { fillUniformUrns, urnsPerWord } from '../../src/core/set-partitions/urns.js';
 import type { RandomSource } from '../../src/core/random.js';
+import { shuffleInPlace } from '../../src/core/shuffle.js';
+
+/** The former assignSizes shuffle: Fisher–Yates with one word per index (modulo with rejection). */
+function shuffleOneWordEach(source: RandomSource, values: Int32Array): void {
+  for (let i = values.length - 1; i > 0; i--) {
+    const bound = i + 1;
+    const limit = 2 ** 32 - (2 ** 32 % bound);
+    let word = source.nextUint32();
+    while (word >= limit) word = source.nextUint32();
+    const j = word % bound;
+    const held = values[i];
+    values[i] = values[j];
+    values[j] = held;
+  }
+}
 
 /** The former urns.ts draw, one word per urn by Lemire's multiply-and-shift with rejection: the baseline of the batched draw. */
 function oneWordPerUrn(source: RandomSource, labels: Int32Array, urns: number): void {
@@ -121,6 +136,22 @@ export async function benchSetPartitions(): Promise<void> {
       `uniform urns, 10^6 items into ${String(urns).padEnd(6)} urns (${urnsPerWord(urns)} per word): batched ${batchedMs.toFixed(2)} ms; ` +
         `one word per urn / batched ${perWord[2].toFixed(2)} (range ${perWord[0].toFixed(2)}-${perWord[4].toFixed(2)}), modulo / batched ${modulo[2].toFixed(2)}`,
     );
+  }
+  // Fisher–Yates (shuffle.ts): several indices per word against one word per index (modulo with
+  // rejection, the former assignSizes loop), 10^3 and 10^5 items; interleaved rounds, median ratio.
+  for (const n of [1e3, 1e5]) {
+    const values = new Int32Array(n);
+    const ratios: number[] = [];
+    let batchedMs = 0;
+    for (let round = 0; round < 5; round++) {
+      const source = new SampleStreams('shuffle').source('bench', round);
+      const batched = timeRow(() => shuffleInPlace(source, values), 100);
+      const single = timeRow(() => shuffleOneWordEach(source, values), 100);
+      batchedMs += batched / 5;
+      ratios.push(single / batched);
+    }
+    ratios.sort((a, b) => a - b);
+    out.push(`shuffle, ${n} items: batched ${batchedMs.toFixed(3)} ms; one word per index / batched ${ratios[2].toFixed(2)} (range ${ratios[0].toFixed(2)}-${ratios[4].toFixed(2)})`);
   }
   console.log(out.join('\n'));
 }
