@@ -42,7 +42,7 @@ export function urnsPerWord(urns: number): number {
  * still that). With k = 1 (more than 2^16 urns) this is the one-word draw. Bench: set
  * partitions, the "uniform urns" rows.
  *
- * Beyond 2^21 urns, one word per urn: the modulo of words below the largest multiple of `urns`
+ * One urn takes no words (every label is 0). Beyond 2^21 urns, one word per urn: the modulo of words below the largest multiple of `urns`
  * under 2^32. This loop is Stam's and the uniform-maps sampler's whole cost at large n.
  */
 export function fillUniformUrns(source: RandomSource, labels: Int32Array, urns: number): void {
