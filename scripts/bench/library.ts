@@ -95,6 +95,41 @@ async function perSample(): Promise<void> {
   }
 }
 
+/** partsOf written by index into new Array(total) instead of pushed: the alternative partsOf's comment measures. */
+function partsByIndex(partition: Partition): number[] {
+  const { sizes, multiplicities } = partition;
+  let total = 0;
+  for (let i = 0; i < multiplicities.length; i++) total += multiplicities[i];
+  const out = new Array<number>(total);
+  let at = 0;
+  for (let i = 0; i < sizes.length; i++) {
+    const size = sizes[i] | 0;
+    for (let j = 0; j < multiplicities[i]; j++) out[at++] = size;
+  }
+  return out;
+}
+
+/** The parts form pushed (partsOf) against preallocated (a holey array in V8), alone and then written by JSON.stringify. */
+async function partsForms(): Promise<void> {
+  console.log('\nParts form, µs per sample (median of interleaved rounds): partsOf pushes; "index" preallocates new Array(total)\n');
+  console.log('| family | sample + partsOf | sample + index | + JSON.stringify, partsOf | + JSON.stringify, index |');
+  console.log('|---|---:|---:|---:|---:|');
+  for (const [n, calls] of [[100, 250], [1000, 120], [1e6, 3]]) {
+    const family = partitionFamily({ n });
+    const { sampler, streams } = family as unknown as { sampler: { sample(source: RandomSource): Partition }; streams: SampleStreams };
+    const us = await interleaved(
+      {
+        push: (i) => partsOf(sampler.sample(streams.source('bench', i))),
+        index: (i) => partsByIndex(sampler.sample(streams.source('bench', i))),
+        pushJson: (i) => JSON.stringify(partsOf(sampler.sample(streams.source('bench', i)))),
+        indexJson: (i) => JSON.stringify(partsByIndex(sampler.sample(streams.source('bench', i)))),
+      },
+      calls,
+    );
+    console.log(`| partitions n = ${n === 1e6 ? '10^6' : n} | ${us.push.toFixed(2)} | ${us.index.toFixed(2)} | ${us.pushJson.toFixed(2)} | ${us.indexJson.toFixed(2)} |`);
+  }
+}
+
 /** Milliseconds to import `specifier` in a fresh `node [args]` process. */
 function importTime(args: readonly string[], specifier: string, cwd = ROOT): number {
   const out = execFileSync(process.execPath, [...args, join(ROOT, 'scripts/bench/import/time-import.mjs'), specifier], { cwd, encoding: 'utf8', env: { ...process.env, TSX_DISABLE_CACHE: '' } });
@@ -172,5 +207,6 @@ function importTimes(): void {
 
 export async function benchLibrary(): Promise<void> {
   await perSample();
+  await partsForms();
   importTimes();
 }

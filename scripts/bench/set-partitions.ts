@@ -3,7 +3,47 @@ import { planSetPartitionSampler } from '../../src/core/set-partitions/plan.js';
 import type { SetPartition } from '../../src/core/set-partitions/set-partition.js';
 import { SampleStreams } from '../../src/core/seeding.js';
 import { setPartitionAsRgs } from '../../src/http/set-partition-encode.js';
-import { fillUniformUrns } from '../../src/core/set-partitions/urns.js';
+import { fillUniformUrns, urnsPerWord } from '../../src/core/set-partitions/urns.js';
+import type { RandomSource } from '../../src/core/random.js';
+import { shuffleInPlace } from '../../src/core/shuffle.js';
+
+/** The former assignSizes shuffle: Fisher–Yates with one word per index (modulo with rejection). */
+function shuffleOneWordEach(source: RandomSource, values: Int32Array): void {
+  for (let i = values.length - 1; i > 0; i--) {
+    const bound = i + 1;
+    const limit = 2 ** 32 - (2 ** 32 % bound);
+    let word = source.nextUint32();
+    while (word >= limit) word = source.nextUint32();
+    const j = word % bound;
+    const held = values[i];
+    values[i] = values[j];
+    values[j] = held;
+  }
+}
+
+/** The former urns.ts draw, one word per urn by Lemire's multiply-and-shift with rejection: the baseline of the batched draw. */
+function oneWordPerUrn(source: RandomSource, labels: Int32Array, urns: number): void {
+  const threshold = (2 ** 32 - urns) % urns;
+  for (let i = 0; i < labels.length; i++) {
+    let product = source.nextUint32() * urns;
+    let urn = Math.floor(product * 2 ** -32);
+    while (product - urn * 2 ** 32 < threshold) {
+      product = source.nextUint32() * urns;
+      urn = Math.floor(product * 2 ** -32);
+    }
+    labels[i] = urn;
+  }
+}
+
+/** One word per urn, the modulo of words below the largest multiple of `urns` under 2^32. */
+function moduloPerUrn(source: RandomSource, labels: Int32Array, urns: number): void {
+  const limit = 2 ** 32 - (2 ** 32 % urns);
+  for (let i = 0; i < labels.length; i++) {
+    let word = source.nextUint32();
+    while (word >= limit) word = source.nextUint32();
+    labels[i] = word % urns;
+  }
+}
 
 /**
  * Milliseconds per set partition, after planning, beside the output-size floor: the time
@@ -72,26 +112,47 @@ export async function benchSetPartitions(): Promise<void> {
   });
   out.push('');
   out.push(`encoder, RGS of 10^6 items as JSON: ASCII bytes ${bytes.toFixed(1)} ms, string concatenation ${concat.toFixed(1)} ms (${(concat / bytes).toFixed(1)}x)`);
-  // Uniform urns (urns.ts): multiply-and-shift against the plain modulo, 10^6 items into the
-  // ~88,000 urns Stam's algorithm uses at n = 10^6; interleaved rounds, median ratio.
+  // Uniform urns (urns.ts): several urns per 32-bit word (batched multiply-and-shift) against
+  // one word per urn (multiply-and-shift) and against the plain modulo, 10^6 items; 10 and 1000
+  // urns are the blocks=10 and blocks=1000 rows, ~190 and ~88,000 the urns Stam's algorithm uses
+  // at n = 10^3 and 10^6. Interleaved rounds, median ratio.
   const labels = new Int32Array(1e6);
-  const urns = 87_828;
-  const ratios: number[] = [];
-  for (let round = 0; round < 5; round++) {
-    const source = new SampleStreams('urns').source('bench', round);
-    const multiply = timeRow(() => fillUniformUrns(source, labels, urns), 150);
-    const modulo = timeRow(() => {
-      const limit = 2 ** 32 - (2 ** 32 % urns);
-      for (let i = 0; i < labels.length; i++) {
-        let word = source.nextUint32();
-        while (word >= limit) word = source.nextUint32();
-        labels[i] = word % urns;
-      }
-    }, 150);
-    ratios.push(modulo / multiply);
+  for (const urns of [10, 190, 1000, 87_828]) {
+    const perWord: number[] = [];
+    const modulo: number[] = [];
+    let batchedMs = 0;
+    for (let round = 0; round < 5; round++) {
+      const source = new SampleStreams('urns').source('bench', round);
+      const batched = timeRow(() => fillUniformUrns(source, labels, urns), 100);
+      const single = timeRow(() => oneWordPerUrn(source, labels, urns), 100);
+      const mod = timeRow(() => moduloPerUrn(source, labels, urns), 100);
+      batchedMs += batched / 5;
+      perWord.push(single / batched);
+      modulo.push(mod / batched);
+    }
+    perWord.sort((a, b) => a - b);
+    modulo.sort((a, b) => a - b);
+    out.push(
+      `uniform urns, 10^6 items into ${String(urns).padEnd(6)} urns (${urnsPerWord(urns)} per word): batched ${batchedMs.toFixed(2)} ms; ` +
+        `one word per urn / batched ${perWord[2].toFixed(2)} (range ${perWord[0].toFixed(2)}-${perWord[4].toFixed(2)}), modulo / batched ${modulo[2].toFixed(2)}`,
+    );
   }
-  ratios.sort((a, b) => a - b);
-  out.push(`uniform urns, 10^6 items into ${urns} urns: modulo / multiply-and-shift, median of 5 rounds ${ratios[2].toFixed(2)} (range ${ratios[0].toFixed(2)}-${ratios[4].toFixed(2)})`);
+  // Fisher–Yates (shuffle.ts): several indices per word against one word per index (modulo with
+  // rejection, the former assignSizes loop), 10^3 and 10^5 items; interleaved rounds, median ratio.
+  for (const n of [1e3, 1e5]) {
+    const values = new Int32Array(n);
+    const ratios: number[] = [];
+    let batchedMs = 0;
+    for (let round = 0; round < 5; round++) {
+      const source = new SampleStreams('shuffle').source('bench', round);
+      const batched = timeRow(() => shuffleInPlace(source, values), 100);
+      const single = timeRow(() => shuffleOneWordEach(source, values), 100);
+      batchedMs += batched / 5;
+      ratios.push(single / batched);
+    }
+    ratios.sort((a, b) => a - b);
+    out.push(`shuffle, ${n} items: batched ${batchedMs.toFixed(3)} ms; one word per index / batched ${ratios[2].toFixed(2)} (range ${ratios[0].toFixed(2)}-${ratios[4].toFixed(2)})`);
+  }
   console.log(out.join('\n'));
 }
 

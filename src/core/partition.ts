@@ -26,7 +26,11 @@ export function partitionFromParts(parts: readonly number[]): Partition {
  * The parts, largest first. Samplers compute sizes in floating point, so their arrays may hold
  * doubles; the parts are pushed as small integers (`| 0` is exact: every part is at most
  * MAX_N = 10^9 < 2^31), which keeps the array in V8's integer form and halves the cost of
- * JSON.stringify on it.
+ * JSON.stringify on it. Pushed, not written by index into new Array(total): that is faster to
+ * build (sample + parts at n = 1000: 4.3 against 5.4 µs; 10^6: 171 against 192 µs) but the array
+ * is then "holey" in V8, and JSON.stringify of it is about 3x slower (sample + parts +
+ * JSON.stringify at n = 1000: 9.4 against 6.8 µs; 10^6: 397 against 258 µs). Bench: library,
+ * "Parts form" (one run, shared machine). Not kept.
  */
 export function partsOf(partition: Partition): number[] {
   const out: number[] = [];

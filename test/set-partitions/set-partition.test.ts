@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { blocksOf, blockSizesOf, fromBlocks, relabelInPlace, rgsProblem } from '../../src/core/set-partitions/set-partition.js';
-import { planSetPartitionSampler } from '../../src/core/set-partitions/plan.js';
+import type { SetPartitionFamily } from '../../src/core/family.js';
+import { forcedEqualBlocks, planSetPartitionSampler } from '../../src/core/set-partitions/plan.js';
+import { resolveSetPartitions } from '../../src/core/set-partitions/resolve.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { setPartitionAsBlocks, setPartitionAsRgs } from '../../src/http/set-partition-encode.js';
 
@@ -39,4 +41,37 @@ describe('encoders', () => {
       }
     });
   }
+});
+
+describe('families that force equal blocks (equal-blocks/1)', () => {
+  it('is planned exactly when one number of blocks fits and every block must hold n/k items', () => {
+    const forced = (shape: Omit<SetPartitionFamily, 'kind'>) => forcedEqualBlocks(resolveSetPartitions({ kind: 'set-partition', ...shape }));
+    expect(forced({ n: 1000, blocks: 1000 })).toBe(1000);
+    expect(forced({ n: 1000, blocks: 1 })).toBe(1);
+    expect(forced({ n: 1000, maxBlockSize: 1 })).toBe(1000);
+    expect(forced({ n: 1000, blocks: 10, minBlockSize: 100 })).toBe(10);
+    expect(forced({ n: 12, maxBlockSize: 4, maxBlocks: 3 })).toBe(3);
+    expect(forced({ n: 12, minBlockSize: 4, maxBlocks: 3 })).toBe(null); // 1, 2 or 3 blocks
+    expect(forced({ n: 12, blocks: 3 })).toBe(null);
+    expect(forced({ n: 12, blocks: 3, minBlockSize: 3 })).toBe(null);
+    expect(forced({ n: 12 })).toBe(null);
+  });
+
+  it('writes the one member of n singletons and of one block without drawing', () => {
+    const silent = { nextDouble: () => { throw new Error('drew'); }, nextUint32: () => { throw new Error('drew'); } };
+    const singletons = planSetPartitionSampler({ kind: 'set-partition', n: 1000, blocks: 1000 });
+    expect(singletons.method).toBe('equal-blocks/1');
+    const p = singletons.sample(silent);
+    expect(p.blocks).toBe(1000);
+    expect(Array.from(p.rgs)).toEqual(Array.from({ length: 1000 }, (_, i) => i));
+    const whole = planSetPartitionSampler({ kind: 'set-partition', n: 50, maxBlocks: 1 }).sample(silent);
+    expect(whole.blocks).toBe(1);
+    expect(whole.rgs.every((v) => v === 0)).toBe(true);
+  });
+
+  it('gives every block n/k items', () => {
+    const sampler = planSetPartitionSampler({ kind: 'set-partition', n: 1000, blocks: 10, minBlockSize: 100 });
+    const p = sampler.sample(sampleSource('equal', 0, 'equal-blocks'));
+    expect(Array.from(blockSizesOf(p))).toEqual(new Array(10).fill(100));
+  });
 });

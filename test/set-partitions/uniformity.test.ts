@@ -48,6 +48,8 @@ const SHAPES: [string, Omit<SetPartitionFamily, 'kind'>][] = [
   ['at most 3 blocks of 2 to 4 items, n = 8 (525)', { n: 8, maxBlocks: 3, minBlockSize: 2, maxBlockSize: 4 }],
   ['at most 4 blocks of <= 3 items, n = 7', { n: 7, maxBlocks: 4, maxBlockSize: 3 }],
   ['blocks of >= 3 items, n = 9 (491)', { n: 9, minBlockSize: 3 }],
+  // 9!/((3!)^3·3!) = 280 members, every block forced to 3 items.
+  ['exactly 3 blocks of >= 3 items, n = 9 (280)', { n: 9, blocks: 3, minBlockSize: 3 }],
 ];
 
 describe('set-partition samplers are uniform (chi-square over enumerated families, alpha = 1e-4 each)', () => {
@@ -67,7 +69,7 @@ describe('set-partition samplers are uniform (chi-square over enumerated familie
 
   it('every method is reached by some shape above', () => {
     const reached = new Set(SHAPES.flatMap(([, shape]) => setPartitionCandidates({ kind: 'set-partition', ...shape }).map((c) => c.method)));
-    expect([...reached].sort()).toEqual(['poisson-sizes/1', 'poisson-urns/1', 'stam/1', 'table/1', 'uniform-maps/1']);
+    expect([...reached].sort()).toEqual(['equal-blocks/1', 'poisson-sizes/1', 'poisson-urns/1', 'stam/1', 'table/1', 'uniform-maps/1']);
   });
 
   it('the y-tuned bound on the number of blocks is exercised by "at most 2 blocks, n = 8" (below the free model\'s mean)', () => {

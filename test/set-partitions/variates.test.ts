@@ -6,7 +6,7 @@ import { sizeLaw } from '../../src/core/set-partitions/size-law.js';
 import { tiltForMeanSize, tiltForTotal } from '../../src/core/set-partitions/tilt.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { binnedChiSquare } from '../../src/core/pictures/statistics.js';
-import { fillUniformUrns } from '../../src/core/set-partitions/urns.js';
+import { fillUniformUrns, urnsPerWord } from '../../src/core/set-partitions/urns.js';
 
 /** ln of a positive BigInt to double precision: its top 53 bits, shifted. */
 function lnBig(x: bigint): number {
@@ -106,4 +106,61 @@ describe('uniform urns (multiply-and-shift up to 2^21 urns, modulo above)', () =
       expect(binnedChiSquare(observed, probabilities).pValue).toBeGreaterThan(1e-4);
     });
   }
+});
+
+/** The joint counts of `width` consecutive labels starting at `offset`, `step` apart, as base-`urns` cells. */
+function jointCounts(labels: Int32Array, urns: number, width: number, offset: number, step: number): number[] {
+  const counts = new Array<number>(urns ** width).fill(0);
+  for (let i = offset; i + width <= labels.length; i += step) {
+    let cell = 0;
+    for (let j = 0; j < width; j++) cell = cell * urns + labels[i + j];
+    counts[cell]++;
+  }
+  return counts;
+}
+
+describe('uniform urns, several per 32-bit word (batched multiply-and-shift)', () => {
+  it('takes the k with urns^k <= 2^32 that accepts the most urns per word', () => {
+    // 10^9 <= 2^32 < 10^10, and 9 digits accepted with probability 1 − (2^32 mod 10^9)/2^32 ≈ 0.93
+    // (8.4 per word) beat 8 digits at ≈ 0.98 (7.8); for 3 urns, 20 digits are accepted with
+    // probability ≈ 0.81 (16.2 per word), 18 with ≈ 0.992 (17.9); 2^32 = 65536^2 exactly; past
+    // 2^16 urns only one fits.
+    expect([2, 3, 10, 1000, 65_536, 65_537, 2 ** 21].map(urnsPerWord)).toEqual([32, 18, 9, 3, 2, 1, 1]);
+    for (let urns = 2; urns <= 5000; urns++) expect(urns ** urnsPerWord(urns)).toBeLessThanOrEqual(2 ** 32);
+  });
+
+  // Urns drawn from one word must be independent, not only uniform one by one: pairs of
+  // neighbours at both parities (within a word and across words, since 3 and 9 per word are
+  // odd), chi-square against the uniform law on urns^2 cells; alpha = 1e-4 each.
+  for (const urns of [2, 3, 10, 40]) {
+    for (const offset of [0, 1]) {
+      it(`${urns} urns (${urnsPerWord(urns)} per word): neighbours at offset ${offset} are independent (chi-square, alpha = 1e-4)`, () => {
+        const labels = new Int32Array(200_001);
+        fillUniformUrns(sampleSource('urns-pairs', offset, `u-${urns}`), labels, urns);
+        const counts = jointCounts(labels, urns, 2, offset, 2);
+        expect(binnedChiSquare(counts, new Array<number>(urns * urns).fill(1 / urns ** 2)).pValue).toBeGreaterThan(1e-4);
+      });
+    }
+  }
+
+  it('a fill shorter than a word (7 of the 18 urns one word gives for 3 urns) is uniform on all 3^7 outcomes (chi-square, alpha = 1e-4)', () => {
+    const source = sampleSource('urns-tail', 0, 'u-3');
+    const counts = new Array<number>(3 ** 7).fill(0);
+    const labels = new Int32Array(7);
+    for (let t = 0; t < 200_000; t++) {
+      fillUniformUrns(source, labels, 3);
+      counts[labels.reduce((cell, urn) => cell * 3 + urn, 0)]++;
+    }
+    expect(binnedChiSquare(counts, new Array<number>(3 ** 7).fill(1 / 3 ** 7)).pValue).toBeGreaterThan(1e-4);
+  });
+
+  it('every length fills every entry with an urn in range (whole words and a partial last word)', () => {
+    for (const urns of [1, 2, 10, 1000, 70_000]) {
+      for (let length = 0; length <= 2 * urnsPerWord(Math.max(urns, 2)) + 3; length++) {
+        const labels = new Int32Array(length).fill(-1);
+        fillUniformUrns(sampleSource('urns-lengths', length, `u-${urns}`), labels, urns);
+        expect(labels.every((v) => v >= 0 && v < urns)).toBe(true);
+      }
+    }
+  });
 });

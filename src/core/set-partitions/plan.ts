@@ -1,6 +1,7 @@
 import { LimitExceededError } from '../errors.js';
 import type { SetPartitionFamily } from '../family.js';
 import { countBitsBound, MAX_COUNT_WORK } from './counts.js';
+import { equalBlocksSampler } from './equal-blocks.js';
 import { logPoissonPmf, poissonMode } from './log-poisson.js';
 import { poissonSizesSampler } from './poisson-sizes.js';
 import { poissonUrnsSampler } from './poisson-urns.js';
@@ -20,6 +21,8 @@ import { uniformMapsSampler } from './uniform-maps.js';
  * (seed, i, family, ALGORITHM_VERSION).
  *
  *  - stam/1           every set partition of n (no constraint): Stam's urn mixture, ~2n steps;
+ *  - equal-blocks/1   constraints that force one number of blocks k and every block to n/k
+ *                     items: a shuffle of the labels (~n steps; none when k = 1 or k = n);
  *  - table/1          any constraints, while the exact counting table is small
  *                     (<= TABLE_BITS_LIMIT bits, <= MAX_COUNT_WORK word operations to build);
  *  - uniform-maps/1   exactly k blocks: uniform throws into k urns, kept when every urn's size
@@ -36,7 +39,7 @@ export const TABLE_BITS_LIMIT = 2 ** 27;
 export const SAMPLE_WORK_LIMIT = 1e8;
 export const NOMINAL_SAMPLES = 100;
 
-export type SetPartitionMethod = 'stam' | 'table' | 'uniform-maps' | 'poisson-urns' | 'poisson-sizes';
+export type SetPartitionMethod = 'stam' | 'equal-blocks' | 'table' | 'uniform-maps' | 'poisson-urns' | 'poisson-sizes';
 
 export interface SetPartitionPlanOptions {
   /** Force a method by name without version (tests and benchmarks). */
@@ -88,10 +91,25 @@ export function setPartitionCandidates(family: SetPartitionFamily): SetPartition
     const work = 2 * n + 20;
     out.push({ method: 'stam/1', setupWork: 100, sampleWork: work, fits: work <= SAMPLE_WORK_LIMIT, build: () => stamSampler(n) });
   }
+  const forced = forcedEqualBlocks(resolved);
+  if (forced !== null) {
+    const sampler = equalBlocksSampler(n, forced);
+    out.push({ method: 'equal-blocks/1', setupWork: 0, sampleWork: sampler.expectedWork, fits: true, build: () => sampler });
+  }
   out.push(tableCandidate(resolved));
   if (resolved.fixed) out.push(uniformMapsCandidate(resolved), fixedUrnsCandidate(resolved));
   else out.push(...freeBoltzmannCandidates(resolved));
   return out;
+}
+
+/**
+ * The number of blocks k when the constraints force every block to n/k items (one k fits, and
+ * k·minSize = n or k·maxSize = n), else null.
+ */
+export function forcedEqualBlocks(resolved: ResolvedSetPartitions): number | null {
+  const { lo, hi } = blockRange(resolved);
+  if (lo !== hi || lo < 1) return null;
+  return lo * resolved.minSize === resolved.n || lo * resolved.maxSize === resolved.n ? lo : null;
 }
 
 function tableCandidate(resolved: ResolvedSetPartitions): SetPartitionCandidate {

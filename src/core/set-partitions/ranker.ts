@@ -127,6 +127,12 @@ class RgsRanker implements SetPartitionRanker {
   private readonly stateLimit: number;
   /** Steps spent counting while the ranker is made (afterwards every state it looks up is known). */
   private work = 0;
+  /**
+   * Without block-size bounds a state is (items left r, blocks used u), and its completions are
+   * read from this dense table D(r, u) at r·(kMax + 1) + u, copied from the counted states once
+   * (null when sizes are bounded).
+   */
+  private readonly byBlocks: bigint[] | null = null;
 
   constructor(resolved: ResolvedSetPartitions) {
     const { n, minSize, maxSize, kMin, kMax, family } = resolved;
@@ -155,6 +161,10 @@ class RgsRanker implements SetPartitionRanker {
     }
     // A key of about (types + 1) numbers, its Map entry and its BigInt count (see ranks/limits.ts).
     this.tableBytes = this.memo.size * (bigintCellBytes(bits) + 64 + 4 * (this.types + 2));
+    if (!this.bounded && minSize === 1) {
+      this.byBlocks = this.blocksTable();
+      this.tableBytes += 8 * this.byBlocks.length;
+    }
   }
 
   /** The type of a block of `size` items (sizes past minSize are alike when sizes are unbounded). */
@@ -251,6 +261,20 @@ class RgsRanker implements SetPartitionRanker {
     return this.memo.get(levels[0][0])!;
   }
 
+  /** D(r, u) for r = 0..n − 1 and the 1 <= u <= min(kMax, n − r) blocks a prefix of n − r items can have. */
+  private blocksTable(): bigint[] {
+    const width = this.kMax + 1;
+    const table = new Array<bigint>(this.n * width).fill(0n);
+    const counts = [0, 0];
+    for (let r = 0; r < this.n; r++) {
+      for (let u = 1; u <= Math.min(this.kMax, this.n - r); u++) {
+        counts[1] = u;
+        table[r * width + u] = this.completions(r, counts);
+      }
+    }
+    return table;
+  }
+
   /** Ways to place r more items given how many blocks of each type the prefix has (counts[0] unused): a look-up once the ranker is made. */
   completions(r: number, counts: number[]): bigint {
     if (!this.viable(r, counts)) return 0n;
@@ -269,6 +293,7 @@ class RgsRanker implements SetPartitionRanker {
 
   rank(member: readonly number[]): bigint {
     this.check(member);
+    if (this.byBlocks !== null) return this.rankByBlocks(member, this.byBlocks);
     const prefix = new Prefix(this);
     let rank = 0n;
     for (let i = 0; i < this.n; i++) {
@@ -284,6 +309,7 @@ class RgsRanker implements SetPartitionRanker {
 
   unrank(rank: bigint): number[] {
     checkRank(rank, this.count);
+    if (this.byBlocks !== null) return this.unrankByBlocks(rank, this.byBlocks);
     const prefix = new Prefix(this);
     const out: number[] = [];
     let left = rank;
@@ -315,6 +341,51 @@ class RgsRanker implements SetPartitionRanker {
       if (chosen < 0) throw new Error('set-partition ranker counts inconsistent (bug)');
       out.push(chosen);
       prefix.join(chosen);
+    }
+    return out;
+  }
+
+  /*
+   * Without size bounds every block has one type: with u blocks used and r items after item i,
+   * joining any of the u blocks leaves D(r, u) completions and a new block D(r, u + 1). The
+   * members before a choice v <= u are v·D(r, u): one table read and one BigInt product per item
+   * (and a division to unrank).
+   */
+
+  private rankByBlocks(member: readonly number[], table: readonly bigint[]): bigint {
+    const width = this.kMax + 1;
+    let rank = 0n;
+    let u = 0;
+    for (let i = 0; i < this.n; i++) {
+      const v = member[i];
+      if (v > 0) rank += BigInt(v) * table[(this.n - i - 1) * width + u];
+      if (v === u) u++;
+    }
+    return rank;
+  }
+
+  private unrankByBlocks(rank: bigint, table: readonly bigint[]): number[] {
+    const width = this.kMax + 1;
+    const out = new Array<number>(this.n);
+    let left = rank;
+    let u = 0;
+    for (let i = 0; i < this.n; i++) {
+      const each = u > 0 ? table[(this.n - i - 1) * width + u] : 0n;
+      if (each > 0n) {
+        if (left < each) {
+          out[i] = 0; // the first block: no division
+          continue;
+        }
+        const v = left / each;
+        if (v < BigInt(u)) {
+          out[i] = Number(v);
+          left -= v * each;
+          continue;
+        }
+        left -= BigInt(u) * each;
+      }
+      if (u >= this.kMax) throw new Error('set-partition ranker counts inconsistent (bug)');
+      out[i] = u++;
     }
     return out;
   }

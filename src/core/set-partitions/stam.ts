@@ -10,7 +10,9 @@ import { throwIntoUrns } from './urns.js';
  * the m^n throws into m urns, so its probability is
  *   sum_m m^n/(m!·e·B_n) · m!/((m−k)!·m^n) = (1/(e·B_n)) · sum_(m>=k) 1/(m−k)! = 1/B_n,
  * the same for every partition: exactly uniform, up to the double rounding of M's table.
- * Cost: n uniform words and one pass to number the blocks.
+ * Cost: n uniform urns (urns.ts: several from one 32-bit word while M <= 2^16, e.g. 4 per word
+ * for the ~190 urns of n = 1000, one per word for the ~88,000 of n = 10^6) and one pass to number
+ * the blocks.
  */
 export function stamSampler(n: number): SetPartitionSampler {
   const { law } = stamLaw(n);
@@ -19,7 +21,7 @@ export function stamSampler(n: number): SetPartitionSampler {
     expectedLength: n,
     // E[blocks] = E[M] − 1 = B_(n+1)/B_n − 1 (the mean of M is B_(n+1)/B_n; see stam-law.ts).
     expectedBlocks: law.mean - 1,
-    // One word per item (rejection is rare: under 2^-11 of words for M < 2^21), one step per item to number blocks.
+    // At most one word per item (rejection is rare), one step per item to number blocks.
     expectedWork: 2 * n + Math.log2(law.pmf.length + 1),
     sample: (source) => throwIntoUrns(source, n, law.sample(source)),
   };

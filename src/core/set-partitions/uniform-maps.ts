@@ -10,7 +10,8 @@ import { fillUniformUrns } from './urns.js';
  * blocks is k! of them (one per labelling of its blocks), so the kept partitions are uniform
  * (the classical urn argument; e.g. Flajolet & Sedgewick 2009, §II.3.1 on surjections).
  * The acceptance is about exp(−k·e^(−n/k)) without size bounds: close to 1 once n >> k·ln k,
- * and then this is the cheapest exact method — n uniform words and a pass to number blocks.
+ * and then this is the cheapest exact method — n uniform urns (several per 32-bit word, urns.ts)
+ * and a pass to number the blocks (which, without size bounds, is also the check).
  */
 export function uniformMapsSampler(n: number, k: number, minSize: number, maxSize: number, expectedTrials: number): SetPartitionSampler {
   return {
@@ -20,6 +21,14 @@ export function uniformMapsSampler(n: number, k: number, minSize: number, maxSiz
     expectedWork: expectedTrials * (n + k) + n,
     sample(source: RandomSource): SetPartition {
       const labels = new Int32Array(n);
+      if (minSize <= 1 && maxSize >= n) {
+        // Only "no urn empty" to check: the throw is kept when it numbers k blocks.
+        for (;;) {
+          fillUniformUrns(source, labels, k);
+          const partition = relabelInPlace(labels, k);
+          if (partition.blocks === k) return partition;
+        }
+      }
       const sizes = new Int32Array(k);
       for (;;) {
         fillUniformUrns(source, labels, k);
