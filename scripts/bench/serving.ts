@@ -1,0 +1,180 @@
+/**
+ * Serving at the speed of the core: each row a ratio of two figures measured in this run, with
+ * its target (issue 18).
+ *
+ * 1. A streamed NDJSON body (about 1.7 MB, many 64 KiB chunks) from a real server in this
+ *    process, read by fetch: wall time over the CPU time of the process (server and reader
+ *    both). Above 1 means the stream waited on something other than its own work.
+ * 2. A fresh server (its own process, as `npm start` runs it): the first request for an n
+ *    against the median of the repeated ones, at n = 1e3, 1e6, 1e9 (one fresh server per n).
+ * 3. Warm server, n = 1e9, as=multiplicities: the HTTP answer time (over loopback) against the
+ *    core sampler alone on the same family.
+ * 4. An unrestricted composition of 1e6 as the core returns it (number[]) against the same
+ *    algorithm writing its parts into a typed array (the floor).
+ */
+import { serve, type ServerType } from '@hono/node-server';
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { resolve } from 'node:path';
+import { sampleUnrestricted } from '../../src/core/compositions/unrestricted.js';
+import { familyKey } from '../../src/core/family.js';
+import { planPartitionSampler } from '../../src/core/partitions/plan.js';
+import type { RandomSource } from '../../src/core/random.js';
+import { SampleStreams } from '../../src/core/seeding.js';
+import { createApp } from '../../src/http/app.js';
+import { startServer } from '../load/servers.js';
+
+const ROOT = resolve(import.meta.dirname, '../..');
+
+function median(values: number[]): number {
+  const s = values.slice().sort((a, b) => a - b);
+  return s[s.length >> 1];
+}
+
+function row(name: string, a: number, b: number, unit: string, target: number): void {
+  const ratio = a / b;
+  console.log(`| ${name} | ${a.toFixed(2)} ${unit} | ${b.toFixed(2)} ${unit} | ${ratio.toFixed(2)} | <= ${target} | ${ratio <= target ? 'yes' : 'no'} |`);
+}
+
+async function listen(): Promise<{ server: ServerType; origin: string }> {
+  const app = createApp({ clock: () => performance.now() });
+  const server = serve({ fetch: app.fetch, port: 0, hostname: '127.0.0.1' });
+  await new Promise((done) => server.once('listening', done));
+  return { server, origin: `http://127.0.0.1:${(server.address() as AddressInfo).port}` };
+}
+
+async function close(server: ServerType): Promise<void> {
+  (server as { closeAllConnections?: () => void }).closeAllConnections?.();
+  await new Promise((done) => server.close(done));
+}
+
+/** Milliseconds until the whole body of `url` was read. */
+async function timeGet(url: string): Promise<{ ms: number; bytes: number }> {
+  const t0 = performance.now();
+  const response = await fetch(url);
+  const body = await response.arrayBuffer();
+  if (response.status !== 200) throw new Error(`${url}: ${response.status} ${new TextDecoder().decode(body)}`);
+  return { ms: performance.now() - t0, bytes: body.byteLength };
+}
+
+async function streamedWallOverCpu(origin: string): Promise<void> {
+  const url = (r: number) => `${origin}/v1/partitions?n=1000&count=4000&seed=stream-${r}&format=ndjson`;
+  for (let r = 0; r < 3; r++) await timeGet(url(r)); // warm-up
+  const walls: number[] = [];
+  const cpus: number[] = [];
+  let bytes = 0;
+  for (let r = 0; r < 9; r++) {
+    const cpu0 = process.cpuUsage();
+    const got = await timeGet(url(100 + r));
+    const cpu = process.cpuUsage(cpu0);
+    walls.push(got.ms);
+    cpus.push((cpu.user + cpu.system) / 1000);
+    bytes = got.bytes;
+  }
+  row(`streamed NDJSON (${(bytes / 1e6).toFixed(2)} MB, ${Math.ceil(bytes / 65536)} chunks): wall / CPU`, median(walls), median(cpus), 'ms', 1.1);
+}
+
+/** A client warmed on a throwaway node:http server, so that its own first request is not timed. */
+async function warmClient(): Promise<void> {
+  const server = createServer((_q, s) => s.end('{}'));
+  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
+  const port = (server.address() as AddressInfo).port;
+  for (let i = 0; i < 50; i++) await (await fetch(`http://127.0.0.1:${port}/`)).arrayBuffer();
+  server.closeAllConnections();
+  await new Promise((done) => server.close(done));
+}
+
+async function coldOverWarm(): Promise<void> {
+  await warmClient();
+  for (const n of [1e3, 1e6, 1e9]) {
+    const server = await startServer('partsmith', resolve(ROOT, 'src/node.ts'));
+    try {
+      const url = (seed: string) => `${server.origin}/v1/partitions?n=${n}&seed=${seed}&as=multiplicities`;
+      // A request the route has never seen in this process, but not the first of the process:
+      // the server is fresh for this n.
+      await timeGet(`${server.origin}/healthz`);
+      const first = (await timeGet(url('first'))).ms;
+      const repeated: number[] = [];
+      for (let r = 0; r < 7; r++) repeated.push((await timeGet(url(`again-${r}`))).ms);
+      row(`fresh server, n = ${n.toExponential(0)}: first / repeated request`, first, median(repeated), 'ms', 2);
+    } finally {
+      await server.stop();
+    }
+  }
+}
+
+async function httpOverCore(origin: string): Promise<void> {
+  const n = 1e9;
+  const sampler = planPartitionSampler({ kind: 'partition', n });
+  const streams = new SampleStreams(familyKey({ kind: 'partition', n }));
+  const url = (r: number) => `${origin}/v1/partitions?n=${n}&seed=core-${r}&as=multiplicities`;
+  for (let r = 0; r < 5; r++) {
+    await timeGet(url(r));
+    sampler.sample(streams.source(`core-${r}`, 0));
+  }
+  const http: number[] = [];
+  const core: number[] = [];
+  for (let r = 0; r < 21; r++) {
+    http.push((await timeGet(url(100 + r))).ms);
+    const t0 = performance.now();
+    sampler.sample(streams.source(`core-${100 + r}`, 0));
+    core.push(performance.now() - t0);
+  }
+  row('n = 1e9 as=multiplicities: HTTP answer / core sample', median(http), median(core), 'ms', 1.5);
+}
+
+/** The floor: sampleUnrestricted's loop with its parts written into a typed array. */
+function unrestrictedTyped(source: RandomSource, n: number): Float64Array {
+  const parts = new Float64Array(n);
+  let length = 0;
+  const gaps = n - 1;
+  let last = 0;
+  for (let base = 0; base < gaps; base += 32) {
+    let word = source.nextUint32();
+    const used = gaps - base;
+    if (used < 32) word &= (1 << used) - 1;
+    while (word !== 0) {
+      const lowest = word & -word;
+      const gap = base + (31 - Math.clz32(lowest)) + 1;
+      parts[length++] = gap - last;
+      last = gap;
+      word ^= lowest;
+    }
+  }
+  parts[length++] = n - last;
+  return parts.subarray(0, length);
+}
+
+function compositionOverFloor(): void {
+  const n = 1e6;
+  const streams = new SampleStreams(familyKey({ kind: 'composition', n }));
+  const core: number[] = [];
+  const floor: number[] = [];
+  for (let r = 0; r < 41; r++) {
+    const t0 = performance.now();
+    sampleUnrestricted(streams.source('floor', r), n);
+    const t1 = performance.now();
+    unrestrictedTyped(streams.source('floor', r), n);
+    const t2 = performance.now();
+    if (r >= 5) {
+      core.push(t1 - t0);
+      floor.push(t2 - t1);
+    }
+  }
+  row('composition n = 1e6: core (number[]) / typed-array floor', median(core), median(floor), 'ms', 3);
+}
+
+export async function benchServing(): Promise<void> {
+  console.log('| row | measured | baseline | ratio | target | met |');
+  console.log('|---|---:|---:|---:|---:|:---:|');
+  const { server, origin } = await listen();
+  try {
+    await streamedWallOverCpu(origin);
+    await httpOverCore(origin);
+  } finally {
+    await close(server);
+  }
+  compositionOverFloor();
+  await coldOverWarm();
+  console.log('\nImport time (library / core, target <= 2): see the library section.');
+}
