@@ -9,19 +9,21 @@
  *    against the median of the repeated ones, at n = 1e3, 1e6, 1e9 (one fresh server per n).
  * 3. Warm server, n = 1e9, as=multiplicities: the HTTP answer time (over loopback) against the
  *    core sampler alone on the same family.
- * 4. An unrestricted composition of 1e6 as the core returns it (number[]) against the same
- *    algorithm writing its parts into a typed array (the floor).
+ * 4. An unrestricted composition of 1e6 written as the JSON text the service sends, and as the
+ *    core's typed parts, against the same algorithm writing its parts into a typed array in one
+ *    pass (the floor).
  */
 import { serve, type ServerType } from '@hono/node-server';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { resolve } from 'node:path';
-import { sampleUnrestricted } from '../../src/core/compositions/unrestricted.js';
+import { unrestrictedSampler } from '../../src/core/compositions/unrestricted.js';
 import { familyKey } from '../../src/core/family.js';
 import { planPartitionSampler } from '../../src/core/partitions/plan.js';
 import type { RandomSource } from '../../src/core/random.js';
 import { SampleStreams } from '../../src/core/seeding.js';
 import { createApp } from '../../src/http/app.js';
+import { compositionAsParts } from '../../src/http/encode.js';
 import { startServer } from '../load/servers.js';
 
 const ROOT = resolve(import.meta.dirname, '../..');
@@ -58,7 +60,7 @@ async function timeGet(url: string): Promise<{ ms: number; bytes: number }> {
 }
 
 async function streamedWallOverCpu(origin: string): Promise<void> {
-  const url = (r: number) => `${origin}/v1/partitions?n=1000&count=4000&seed=stream-${r}&format=ndjson`;
+  const url = (r: number) => `${origin}/v1/partitions?n=1000&count=7000&seed=stream-${r}&format=ndjson`;
   for (let r = 0; r < 3; r++) await timeGet(url(r)); // warm-up
   const walls: number[] = [];
   const cpus: number[] = [];
@@ -123,9 +125,9 @@ async function httpOverCore(origin: string): Promise<void> {
   row('n = 1e9 as=multiplicities: HTTP answer / core sample', median(http), median(core), 'ms', 1.5);
 }
 
-/** The floor: sampleUnrestricted's loop with its parts written into a typed array. */
-function unrestrictedTyped(source: RandomSource, n: number): Float64Array {
-  const parts = new Float64Array(n);
+/** The floor: the unrestricted sampler's loop in one pass, its parts written into a typed array. */
+function unrestrictedFloor(source: RandomSource, n: number): Int32Array {
+  const parts = new Int32Array(n);
   let length = 0;
   const gaps = n - 1;
   let last = 0;
@@ -147,21 +149,27 @@ function unrestrictedTyped(source: RandomSource, n: number): Float64Array {
 
 function compositionOverFloor(): void {
   const n = 1e6;
+  const sampler = unrestrictedSampler(n);
   const streams = new SampleStreams(familyKey({ kind: 'composition', n }));
-  const core: number[] = [];
-  const floor: number[] = [];
-  for (let r = 0; r < 41; r++) {
-    const t0 = performance.now();
-    sampleUnrestricted(streams.source('floor', r), n);
-    const t1 = performance.now();
-    unrestrictedTyped(streams.source('floor', r), n);
-    const t2 = performance.now();
-    if (r >= 5) {
-      core.push(t1 - t0);
-      floor.push(t2 - t1);
+  const paths: Record<string, (i: number) => unknown> = {
+    floor: (i) => unrestrictedFloor(streams.source('floor', i), n),
+    typed: (i) => sampler.sampleParts!(streams.source('floor', i)),
+    text: (i) => compositionAsParts.json(sampler.sampleParts!(streams.source('floor', i))),
+    list: (i) => sampler.sample(streams.source('floor', i)),
+    listText: (i) => JSON.stringify(sampler.sample(streams.source('floor', i))),
+  };
+  const times: Record<string, number[]> = Object.fromEntries(Object.keys(paths).map((k) => [k, []]));
+  for (let r = 0; r < 31; r++) {
+    for (const [name, once] of Object.entries(paths)) {
+      const t0 = performance.now();
+      once(r);
+      if (r >= 5) times[name].push(performance.now() - t0);
     }
   }
-  row('composition n = 1e6: core (number[]) / typed-array floor', median(core), median(floor), 'ms', 3);
+  const floor = median(times.floor);
+  row('composition n = 1e6, JSON text as served (typed parts + int-text) / typed-array floor', median(times.text), floor, 'ms', 3);
+  row('composition n = 1e6, typed parts (sampleParts) / typed-array floor', median(times.typed), floor, 'ms', 3);
+  console.log(`| for reference: as a number[] (the library's sample), and JSON.stringify of it | ${median(times.list).toFixed(2)} ms | ${median(times.listText).toFixed(2)} ms | | | |`);
 }
 
 export async function benchServing(): Promise<void> {

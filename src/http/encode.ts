@@ -1,4 +1,5 @@
 import { partsOf, type Partition } from '../core/partition.js';
+import { listText } from './int-text.js';
 
 /**
  * How one sample is written in each response format. A sample is encoded once per format into
@@ -49,8 +50,12 @@ export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   text: (p) => p.sizes.map((size, i) => (p.multiplicities[i] > 1 ? `${size}^${p.multiplicities[i]}` : `${size}`)).join(' '),
 };
 
-export const compositionAsParts: SampleEncoder<number[]> = {
+/**
+ * A composition's parts, as a list or as the typed array of a sampler's `sampleParts` (large
+ * compositions, written without building a list; see int-text.ts).
+ */
+export const compositionAsParts: SampleEncoder<readonly number[] | Int32Array> = {
   field: 'parts',
-  json: (c) => JSON.stringify(c),
-  text: (c) => c.join(' '),
+  json: (c) => (c instanceof Int32Array ? listText(c, '[', ',', ']') : JSON.stringify(c)),
+  text: (c) => (c instanceof Int32Array ? listText(c, '', ' ', '') : c.join(' ')),
 };

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { partsOf, type Partition } from '../../src/core/partition.js';
 import { unrestrictedPartitionSampler } from '../../src/core/partitions/unrestricted.js';
 import { sampleSource } from '../../src/core/seeding.js';
+import { sampleUnrestricted, unrestrictedSampler } from '../../src/core/compositions/unrestricted.js';
 import { compositionAsParts, partitionAsMultiplicities, partitionAsParts } from '../../src/http/encode.js';
 
 describe('sample encoders', () => {
@@ -26,6 +27,35 @@ describe('sample encoders', () => {
     for (const p of partitions) {
       expect(partitionAsParts.text(p)).toBe(partsOf(p).join(' '));
       expect(compositionAsParts.json(partsOf(p))).toBe(partitionAsParts.json(p));
+    }
+  });
+
+  it('compositions from a typed array: exactly JSON.stringify and join of the same parts', () => {
+    const lists: number[][] = [
+      [],
+      [0],
+      [7],
+      // Each digit-count boundary, and the largest part an Int32Array holds (2^31 - 1).
+      [9, 10, 99, 100, 999, 1000, 9999, 10000, 99999, 100000, 999999, 1000000, 123456789, 999999999, 1000000000, 2 ** 31 - 1],
+      ...[1, 2, 33, 1000, 100000].flatMap((n) => [0, 1].map((i) => sampleUnrestricted(sampleSource('encode', i, `c=${n}`), n))),
+    ];
+    for (const list of lists) {
+      const typed = Int32Array.from(list);
+      expect(compositionAsParts.json(typed)).toBe(JSON.stringify(list));
+      expect(compositionAsParts.text(typed)).toBe(list.join(' '));
+    }
+  });
+
+  it('the typed form of an unrestricted composition is the list form, draw for draw', () => {
+    for (const n of [0, 1, 2, 31, 32, 33, 64, 65, 1000, 100000]) {
+      for (const scale of [1, 3]) {
+        const sampler = unrestrictedSampler(n, scale);
+        for (let i = 0; i < 3; i++) {
+          const list = sampler.sample(sampleSource('typed', i, `n=${n}`));
+          expect(Array.from(sampler.sampleParts!(sampleSource('typed', i, `n=${n}`)))).toEqual(list);
+          expect(list.reduce((a, b) => a + b, 0)).toBe(n * scale);
+        }
+      }
     }
   });
 });
