@@ -1,5 +1,11 @@
 import { partsOf, type Partition } from '../core/partition.js';
-import { listText } from './int-text.js';
+import { listText, pairsText } from './int-text.js';
+
+/**
+ * Lists at least this long are written byte by byte (int-text.ts); shorter ones by string
+ * concatenation, which has no buffer to allocate and decode.
+ */
+const BYTE_TEXT_NUMBERS = 64;
 
 /**
  * How one sample is written in each response format. A sample is encoded once per format into
@@ -40,8 +46,12 @@ function repeated(text: string, times: number): string {
 
 export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   field: 'multiplicities',
-  // [[part, multiplicity], ...], largest part first.
+  // [[part, multiplicity], ...], largest part first; long lists written as bytes (int-text.ts).
   json: (p) => {
+    if (p.sizes.length >= BYTE_TEXT_NUMBERS) {
+      const text = pairsText(p.sizes, p.multiplicities);
+      if (text !== undefined) return text;
+    }
     let items = '';
     for (let i = 0; i < p.sizes.length; i++) items += `${i > 0 ? ',' : ''}[${p.sizes[i]},${p.multiplicities[i]}]`;
     return `[${items}]`;
@@ -56,6 +66,6 @@ export const partitionAsMultiplicities: SampleEncoder<Partition> = {
  */
 export const compositionAsParts: SampleEncoder<readonly number[] | Int32Array> = {
   field: 'parts',
-  json: (c) => (c instanceof Int32Array ? listText(c, '[', ',', ']') : JSON.stringify(c)),
-  text: (c) => (c instanceof Int32Array ? listText(c, '', ' ', '') : c.join(' ')),
+  json: (c) => (c instanceof Int32Array ? (listText(c, '[', ',', ']') ?? JSON.stringify(Array.from(c))) : JSON.stringify(c)),
+  text: (c) => (c instanceof Int32Array ? (listText(c, '', ' ', '') ?? Array.from(c).join(' ')) : c.join(' ')),
 };

@@ -5,6 +5,14 @@ import { sampleSource } from '../../src/core/seeding.js';
 import { sampleUnrestricted, unrestrictedSampler } from '../../src/core/compositions/unrestricted.js';
 import { compositionAsParts, partitionAsMultiplicities, partitionAsParts } from '../../src/http/encode.js';
 
+/** 80 distinct sizes, largest first, with every decimal length from 10 digits down to 1; multiplicities of every length too. */
+function digitBoundaries(): Partition {
+  const sizes = [2 ** 31 - 1, 1e9, 999999999, 123456789, 1e8, 1e7, 9999999, 1e6, 999999, 100000, 99999, 10000, 9999, 1000, 999, 100];
+  for (let v = 99; sizes.length < 80; v--) sizes.push(v); // down to 36: two digits
+  sizes.push(9, 1);
+  return { sizes, multiplicities: sizes.map((_, i) => [1, 9, 10, 99, 100, 12345, 2 ** 31 - 1][i % 7]) };
+}
+
 describe('sample encoders', () => {
   // The JSON text is written by hand for speed; it must be exactly what JSON.stringify gives.
   const partitions: Partition[] = [
@@ -12,7 +20,7 @@ describe('sample encoders', () => {
     { sizes: [1], multiplicities: [1] },
     { sizes: [7, 1], multiplicities: [1, 40000] },
     { sizes: [123456, 4096, 4095, 3], multiplicities: [2, 1, 3, 1] }, // past the cached texts
-    ...[1, 2, 10, 100, 1000, 5000].flatMap((n) => [0, 1, 2].map((i) => unrestrictedPartitionSampler(n).sample(sampleSource('encode', i, `n=${n}`)))),
+    ...[1, 2, 10, 100, 1000, 5000, 1e6].flatMap((n) => [0, 1, 2].map((i) => unrestrictedPartitionSampler(n).sample(sampleSource('encode', i, `n=${n}`)))),
   ];
 
   it('partition parts: the JSON list of parts, largest first', () => {
@@ -21,6 +29,13 @@ describe('sample encoders', () => {
 
   it('partition multiplicities: the JSON list of [part, multiplicity] pairs', () => {
     for (const p of partitions) expect(partitionAsMultiplicities.json(p)).toBe(JSON.stringify(p.sizes.map((size, i) => [size, p.multiplicities[i]])));
+  });
+
+  it('long multiplicity lists (written as bytes): exactly JSON.stringify, every digit count up to 2^31 - 1, and at n = 1e9 (24,000 pairs)', () => {
+    const long = [digitBoundaries(), ...[0, 1].map((i) => unrestrictedPartitionSampler(1e9).sample(sampleSource('encode', i, 'n=1e9')))];
+    for (const p of long) {
+      expect(partitionAsMultiplicities.json(p)).toBe(JSON.stringify(p.sizes.map((size, k) => [size, p.multiplicities[k]])));
+    }
   });
 
   it('the three formats agree: text lines hold the same parts', () => {
