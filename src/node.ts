@@ -1,5 +1,6 @@
 import { serve } from '@hono/node-server';
 import { createApp } from './http/app.js';
+import { warmUp } from './http/warm-up.js';
 import { ConfigurationError, DEFAULT_LIMITS, limitsFromEnvironment, unknownSettings, type Limits } from './http/limits.js';
 
 /**
@@ -23,7 +24,9 @@ try {
 }
 for (const name of unknownSettings(process.env)) console.warn(`partsmith: ignoring ${name}, which is not a setting (typo?)`);
 
-const server = serve({ fetch: createApp({ limits, clock: () => performance.now() }).fetch, port, hostname: host }, (info) => {
+const app = createApp({ limits, clock: () => performance.now() });
+await warmUp(app.fetch);
+const server = serve({ fetch: app.fetch, port, hostname: host }, (info) => {
   const base = `http://${host.includes(':') ? `[${host}]` : host}:${info.port}`;
   const effective = { ...DEFAULT_LIMITS, ...limits };
   console.log(`partsmith listening on ${base}`);
