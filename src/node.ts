@@ -25,9 +25,15 @@ try {
 for (const name of unknownSettings(process.env)) console.warn(`partsmith: ignoring ${name}, which is not a setting (typo?)`);
 
 const app = createApp({ limits, clock: () => performance.now() });
-await warmUp(app.fetch);
-const server = serve({ fetch: app.fetch, port, hostname: host }, (info) => {
+const server = serve({ fetch: app.fetch, port, hostname: host }, async (info) => {
   const base = `http://${host.includes(':') ? `[${host}]` : host}:${info.port}`;
+  // The first requests cost what later ones do once this has run (see warm-up.ts); the server
+  // already answers meanwhile, and says it is ready after.
+  try {
+    await warmUp(async (path) => (await fetch(base + path)).arrayBuffer());
+  } catch (error) {
+    console.warn(`partsmith: warm-up failed (${error instanceof Error ? error.message : String(error)}); serving anyway`);
+  }
   const effective = { ...DEFAULT_LIMITS, ...limits };
   console.log(`partsmith listening on ${base}`);
   console.log(`limits: count <= ${effective.maxCount}, numbers <= ${effective.maxNumbers}, work <= ${effective.maxWork.toExponential(1)} steps, deadline ${effective.deadlineMs} ms`);
