@@ -151,7 +151,9 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * (see `bodyStream`).
  */
 export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
-  if (job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
+  // One sample is drawn whole whatever its size, so its body is one string too (with a
+  // Content-Length, and no stream to pump), however large.
+  if (job.count === 1 || job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
     try {
       return wholeBody(job, deadline);
     } catch (error) {
