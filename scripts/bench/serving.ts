@@ -2,8 +2,10 @@
  * Serving at the speed of the core: each row a ratio of two figures measured in this run, with
  * its target (issue 18).
  *
+ * Requests are read with node:http (keep-alive), the leanest client at hand.
+ *
  * 1. A streamed NDJSON body (about 1.7 MB, many 64 KiB chunks) from a real server in this
- *    process, read by fetch: wall time over the CPU time of the process (server and reader
+ *    process, read by a client in this process: wall time over the CPU time of the process (server and reader
  *    both). Above 1 means the stream waited on something other than its own work.
  * 2. A fresh server (its own process, as `npm start` runs it): the first request for an n
  *    against the median of the repeated ones, at n = 1e3, 1e6, 1e9 (one fresh server per n).
@@ -14,7 +16,7 @@
  *    pass (the floor).
  */
 import { serve, type ServerType } from '@hono/node-server';
-import { createServer } from 'node:http';
+import { Agent, createServer, get } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { resolve } from 'node:path';
 import { unrestrictedSampler } from '../../src/core/compositions/unrestricted.js';
@@ -50,13 +52,23 @@ async function close(server: ServerType): Promise<void> {
   await new Promise((done) => server.close(done));
 }
 
-/** Milliseconds until the whole body of `url` was read. */
-async function timeGet(url: string): Promise<{ ms: number; bytes: number }> {
+/** Keep-alive connections, as a client that sends more than one request holds them. */
+const agent = new Agent({ keepAlive: true });
+
+/**
+ * Milliseconds until the whole body of `url` was read, by node:http (the leanest client here,
+ * so that the figure is mostly the server's).
+ */
+function timeGet(url: string): Promise<{ ms: number; bytes: number }> {
   const t0 = performance.now();
-  const response = await fetch(url);
-  const body = await response.arrayBuffer();
-  if (response.status !== 200) throw new Error(`${url}: ${response.status} ${new TextDecoder().decode(body)}`);
-  return { ms: performance.now() - t0, bytes: body.byteLength };
+  return new Promise((done, fail) => {
+    get(url, { agent }, (response) => {
+      let bytes = 0;
+      response.on('data', (chunk: Buffer) => (bytes += chunk.length));
+      response.on('end', () => (response.statusCode === 200 ? done({ ms: performance.now() - t0, bytes }) : fail(new Error(`${url}: ${response.statusCode}`))));
+      response.on('error', fail);
+    }).on('error', fail);
+  });
 }
 
 async function streamedWallOverCpu(origin: string): Promise<void> {
@@ -88,7 +100,7 @@ async function warmClient(): Promise<void> {
   const server = createServer((_q, s) => s.end('{}'));
   await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
   const port = (server.address() as AddressInfo).port;
-  for (let i = 0; i < 50; i++) await (await fetch(`http://127.0.0.1:${port}/`)).arrayBuffer();
+  for (let i = 0; i < 50; i++) await timeGet(`http://127.0.0.1:${port}/`);
   server.closeAllConnections();
   await new Promise((done) => server.close(done));
 }
