@@ -53,6 +53,9 @@ describe('sample encoders', () => {
       // Each digit-count boundary, and the largest part an Int32Array holds (2^31 - 1).
       [9, 10, 99, 100, 999, 1000, 9999, 10000, 99999, 100000, 999999, 1000000, 123456789, 999999999, 1000000000, 2 ** 31 - 1],
       ...[1, 2, 33, 1000, 100000].flatMap((n) => [0, 1].map((i) => sampleUnrestricted(sampleSource('encode', i, `c=${n}`), n))),
+      // Long runs of the longest numbers: the writer's buffer (sized for two digits each) grows many times.
+      new Array<number>(10000).fill(2 ** 31 - 1),
+      [...new Array<number>(5000).fill(1), ...new Array<number>(5000).fill(123456)],
     ];
     for (const list of lists) {
       const typed = Int32Array.from(list);
