@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
@@ -8,6 +8,7 @@ import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
 import { benchRanks } from './bench/ranks.js';
+import { benchServing } from './bench/serving.js';
 import { benchShapes } from './bench/shapes.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
@@ -20,6 +21,7 @@ const sections: Record<string, () => Promise<void>> = {
   http: benchHttp,
   library: benchLibrary,
   ranks: benchRanks,
+  serving: benchServing,
 };
 
 const chosen = process.argv.slice(2);

@@ -27,8 +27,9 @@ const { values: flags } = parseArgs({
     batch: { type: 'string', default: '10' },
     'max-requests': { type: 'string', default: '2000000' },
     // Reference rows: a Hono app with partsmith's headers and a fixed body, after this many µs
-    // of busy work per request (comma-separated, e.g. 0,10,20; empty: none). See fixed-hono-server.ts.
-    ceiling: { type: 'string', default: '' },
+    // of busy work per request (comma-separated, e.g. 0,10,20; empty: none). The default, 0, puts
+    // the Hono fixed-body reference beside partsmith in every run. See fixed-hono-server.ts.
+    ceiling: { type: 'string', default: '0' },
   },
 });
 

@@ -1,5 +1,6 @@
 import { serve } from '@hono/node-server';
 import { createApp } from './http/app.js';
+import { warmUp } from './http/warm-up.js';
 import { ConfigurationError, DEFAULT_LIMITS, limitsFromEnvironment, unknownSettings, type Limits } from './http/limits.js';
 
 /**
@@ -23,8 +24,16 @@ try {
 }
 for (const name of unknownSettings(process.env)) console.warn(`partsmith: ignoring ${name}, which is not a setting (typo?)`);
 
-const server = serve({ fetch: createApp({ limits, clock: () => performance.now() }).fetch, port, hostname: host }, (info) => {
+const app = createApp({ limits, clock: () => performance.now() });
+const server = serve({ fetch: app.fetch, port, hostname: host }, async (info) => {
   const base = `http://${host.includes(':') ? `[${host}]` : host}:${info.port}`;
+  // The first requests cost what later ones do once this has run (see warm-up.ts); the server
+  // already answers meanwhile, and says it is ready after.
+  try {
+    await warmUp(async (path) => (await fetch(base + path)).arrayBuffer());
+  } catch (error) {
+    console.warn(`partsmith: warm-up failed (${error instanceof Error ? error.message : String(error)}); serving anyway`);
+  }
   const effective = { ...DEFAULT_LIMITS, ...limits };
   console.log(`partsmith listening on ${base}`);
   console.log(`limits: count <= ${effective.maxCount}, numbers <= ${effective.maxNumbers}, work <= ${effective.maxWork.toExponential(1)} steps, deadline ${effective.deadlineMs} ms`);

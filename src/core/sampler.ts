@@ -25,4 +25,9 @@ export interface PartitionSampler extends SamplerEstimate {
 export interface CompositionSampler extends SamplerEstimate {
   readonly method: string;
   sample(source: RandomSource): number[];
+  /**
+   * The same sample (the same draws and parts) as a typed array, for samplers whose output can be
+   * large: callers that only write the parts out skip building a list.
+   */
+  readonly sampleParts?: (source: RandomSource) => Int32Array;
 }

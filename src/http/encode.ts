@@ -1,4 +1,11 @@
 import { partsOf, type Partition } from '../core/partition.js';
+import { listText, pairsText } from './int-text.js';
+
+/**
+ * Lists at least this long are written byte by byte (int-text.ts); shorter ones by string
+ * concatenation, which has no buffer to allocate and decode.
+ */
+const BYTE_TEXT_NUMBERS = 64;
 
 /**
  * How one sample is written in each response format. A sample is encoded once per format into
@@ -39,8 +46,12 @@ function repeated(text: string, times: number): string {
 
 export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   field: 'multiplicities',
-  // [[part, multiplicity], ...], largest part first.
+  // [[part, multiplicity], ...], largest part first; long lists written as bytes (int-text.ts).
   json: (p) => {
+    if (p.sizes.length >= BYTE_TEXT_NUMBERS) {
+      const text = pairsText(p.sizes, p.multiplicities);
+      if (text !== undefined) return text;
+    }
     let items = '';
     for (let i = 0; i < p.sizes.length; i++) items += `${i > 0 ? ',' : ''}[${p.sizes[i]},${p.multiplicities[i]}]`;
     return `[${items}]`;
@@ -49,8 +60,12 @@ export const partitionAsMultiplicities: SampleEncoder<Partition> = {
   text: (p) => p.sizes.map((size, i) => (p.multiplicities[i] > 1 ? `${size}^${p.multiplicities[i]}` : `${size}`)).join(' '),
 };
 
-export const compositionAsParts: SampleEncoder<number[]> = {
+/**
+ * A composition's parts, as a list or as the typed array of a sampler's `sampleParts` (large
+ * compositions, written without building a list; see int-text.ts).
+ */
+export const compositionAsParts: SampleEncoder<readonly number[] | Int32Array> = {
   field: 'parts',
-  json: (c) => JSON.stringify(c),
-  text: (c) => c.join(' '),
+  json: (c) => (c instanceof Int32Array ? (listText(c, '[', ',', ']') ?? JSON.stringify(Array.from(c))) : JSON.stringify(c)),
+  text: (c) => (c instanceof Int32Array ? (listText(c, '', ' ', '') ?? Array.from(c).join(' ')) : c.join(' ')),
 };

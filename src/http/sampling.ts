@@ -6,6 +6,7 @@ import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
 import { RequestStopped, type Deadline } from './deadline.js';
 import type { SampleFormat } from '../schemas/common.js';
+import { YieldBudget } from './yield-budget.js';
 
 /** What a sampling endpoint hands to the shared response writer. */
 export interface SamplingJob<S> {
@@ -150,7 +151,9 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * (see `bodyStream`).
  */
 export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
-  if (job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
+  // One sample is drawn whole whatever its size, so its body is one string too (with a
+  // Content-Length, and no stream to pump), however large.
+  if (job.count === 1 || job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
     try {
       return wholeBody(job, deadline);
     } catch (error) {
@@ -198,6 +201,8 @@ export interface StreamOptions {
   readonly start?: number;
   /** A chunk already produced (by `startBody`), sent first. */
   readonly first?: Chunk;
+  /** Clock of the yield budget (tests); performance.now by default. */
+  readonly clock?: () => number;
 }
 
 /**
@@ -219,6 +224,7 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
   // last good chunk (and the NDJSON error line) went out.
   let failure: StreamEndedEarly | undefined;
   let cancelled = false;
+  const budget = new YieldBudget(options.clock);
   return new ReadableStream<Uint8Array>(
     {
       async pull(controller) {
@@ -226,10 +232,9 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
           controller.error(failure);
           return;
         }
-        // Node's writer asks for the next chunk from a promise callback as long as the socket
-        // takes data, which on loopback is megabytes: without a turn of the event loop between
-        // chunks, other requests would wait and a disconnect would go unnoticed that long.
-        if (!pending) await nextTurn();
+        // Produced as soon as the reader asks; the event loop gets a turn once the stream has
+        // worked for a measured budget (see yield-budget.ts), not after every chunk.
+        if (!pending && budget.due()) await budget.giveWay();
         if (cancelled) return;
         const chunk = pending ?? takeChunk(pieces);
         pending = undefined;
@@ -257,11 +262,6 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
     },
     { highWaterMark: 0 },
   );
-}
-
-/** Resolves after pending I/O events (new requests, closed sockets, timers) had their turn. */
-function nextTurn(): Promise<void> {
-  return new Promise((resolve) => setTimeout(resolve, 0));
 }
 
 export function contentTypeOf(format: SampleFormat): string {

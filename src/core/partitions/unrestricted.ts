@@ -28,6 +28,16 @@ export class UnrestrictedTables {
 /** The tables used when the caller passes none (one instance per process; pure caches). */
 const defaultTables = new UnrestrictedTables();
 
+/**
+ * Fills the process-wide tables now (the table method's triangle up to TABLE_METHOD_UP_TO, and
+ * the exact log p(m)), instead of on the first request that needs them: a server calls this at
+ * start (src/http/warm-up.ts). The tables are pure caches, so no sample changes.
+ */
+export function prepareDefaultTables(): void {
+  defaultTables.table.ensure(TABLE_METHOD_UP_TO);
+  defaultTables.logP.log(0);
+}
+
 export interface UnrestrictedOptions {
   readonly tables?: UnrestrictedTables;
 }

@@ -22,11 +22,14 @@ export const compositionsEndpoint = defineEndpoint({
     const key = memo.get('family-key', () => familyKey(compositionFamilyOf(query)));
     const family = context.compositionFamilies.getOrCreate(key, () => compositionsOf(query));
     const { sampler, streams } = family;
+    // Where the sampler has it, the typed-array form: the parts are only written out here.
+    const sampleParts = sampler.sampleParts;
+    const job = sampleParts ? { method: sampler.method, expectedWork: sampler.expectedWork, sample: sampleParts } : sampler;
     return respondWithSamples(
       request,
       COMPOSITIONS_PATH,
       seeded ? query : { ...query, seed },
-      { family: family.description, streams, sampler, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
+      { family: family.description, streams, sampler: job, encoder: compositionAsParts, numbersPerSample: sampler.expectedLength, seed, start: query.start, count: query.count, format: query.format },
       seeded,
       context.limits,
       memo,
