@@ -1,9 +1,10 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, costs) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
+import { benchCosts } from './bench/costs.js';
 import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
@@ -20,6 +21,7 @@ const sections: Record<string, () => Promise<void>> = {
   http: benchHttp,
   library: benchLibrary,
   ranks: benchRanks,
+  costs: benchCosts,
 };
 
 const chosen = process.argv.slice(2);

@@ -1,0 +1,213 @@
+/**
+ * `npm run bench -- costs`: the work-cost table (src/core/work-costs.ts) against the clock. For
+ * each sampler method, families the planners choose it for are sampled as the service samples
+ * them — the sample's stream from (seed, i, family), the sample, its JSON encoding — and the
+ * measured time per sample is printed beside the table's estimate
+ * (SEEDING_NS + expectedWork × ns/step + numbers × NS_PER_NUMBER), with their ratio and the
+ * ns/step that would make the estimate exact for that family. The last rows time whole requests
+ * through the app against the same estimate.
+ */
+import type { PartitionFamily, SetPartitionFamily } from '../../src/core/family.js';
+import { familyKey } from '../../src/core/family.js';
+import { DivideAndConquerSampler } from '../../src/core/partitions/divide-and-conquer.js';
+import { PlainRejectionSampler } from '../../src/core/partitions/plain-rejection.js';
+import { RecursiveOracle } from '../../src/core/partitions/recursive-oracle.js';
+import { planSetPartitionSampler } from '../../src/core/set-partitions/plan.js';
+import type { RandomSource } from '../../src/core/random.js';
+import { sampleSource } from '../../src/core/seeding.js';
+import { NS_PER_NUMBER, NS_PER_STEP, SEEDING_NS, baseMethod, sampleTimeNs } from '../../src/core/work-costs.js';
+import { createApp } from '../../src/http/app.js';
+import { compositionAsParts, partitionAsMultiplicities, partitionAsParts } from '../../src/http/encode.js';
+import { setPartitionAsBlocks } from '../../src/http/set-partition-encode.js';
+import { compositionFamily } from '../../src/library/compositions.js';
+import { partitionFamily } from '../../src/library/partitions.js';
+import { setPartitionFamily } from '../../src/library/set-partitions.js';
+
+/** Wall-clock per case (after warm-up); at least MIN_SAMPLES samples. */
+const CASE_MS = 200;
+const MIN_SAMPLES = 3;
+
+/** One family to time: what is sampled, how it is written, and the numbers a sample writes. */
+interface Case {
+  readonly label: string;
+  readonly method: string;
+  readonly expectedWork: number;
+  readonly numbers: number;
+  /** Sample i, encoded (the encoded text is kept so the work is not optimised away). */
+  readonly once: (i: number) => string;
+}
+
+type Params = Record<string, unknown> & { n: number };
+
+function partitions(params: Params, as: 'parts' | 'multiplicities' = 'parts'): Case {
+  const family = partitionFamily(params as never);
+  const { sampler, streams } = family;
+  const encoder = as === 'multiplicities' ? partitionAsMultiplicities : partitionAsParts;
+  return {
+    label: `partitions ${JSON.stringify(params)}${as === 'multiplicities' ? ' as=multiplicities' : ''}`,
+    method: sampler.method,
+    expectedWork: sampler.expectedWork,
+    numbers: as === 'multiplicities' ? 2 * sampler.expectedDistinct : sampler.expectedLength,
+    once: (i) => encoder.json(sampler.sample(streams.source('costs', i))),
+  };
+}
+
+function compositions(params: Params): Case {
+  const { sampler, streams } = compositionFamily(params as never);
+  return {
+    label: `compositions ${JSON.stringify(params)}`,
+    method: sampler.method,
+    expectedWork: sampler.expectedWork,
+    numbers: sampler.expectedLength,
+    once: (i) => compositionAsParts.json(sampler.sample(streams.source('costs', i))),
+  };
+}
+
+function setPartitions(params: Params): Case {
+  const { sampler, streams } = setPartitionFamily(params as never);
+  return {
+    label: `set partitions ${JSON.stringify(params)}`,
+    method: sampler.method,
+    expectedWork: sampler.expectedWork,
+    numbers: sampler.expectedLength,
+    once: (i) => setPartitionAsBlocks.json(sampler.sample(streams.source('costs', i))),
+  };
+}
+
+/** A core sampler the service does not serve (reference methods, forced plans), sampled the same way. */
+function direct<S>(label: string, sampler: { method: string; expectedWork: number; expectedLength: number; sample(source: RandomSource): S }, key: string, encode: (sample: S) => string): Case {
+  return {
+    label,
+    method: sampler.method,
+    expectedWork: sampler.expectedWork,
+    numbers: sampler.expectedLength,
+    once: (i) => encode(sampler.sample(sampleSource('costs', i, key))),
+  };
+}
+
+const ALLOWED_THOUSANDS = Array.from({ length: 40 }, (_, i) => 1000 * (i + 1));
+
+/** Families covering every method of the cost table, two sizes where the method spans a range. */
+function cases(): Case[] {
+  const forcedTable: SetPartitionFamily = { kind: 'set-partition', n: 200, blocks: 20 };
+  const unrestricted = (n: number): PartitionFamily => ({ kind: 'partition', n });
+  return [
+    partitions({ n: 0 }),
+    partitions({ n: 100 }),
+    partitions({ n: 1000 }),
+    partitions({ n: 10_000 }),
+    partitions({ n: 1_000_000 }),
+    partitions({ n: 1_000_000 }, 'multiplicities'),
+    partitions({ n: 100_000_000 }, 'multiplicities'),
+    direct('plain rejection n=1e4', new PlainRejectionSampler(10_000), familyKey(unrestricted(10_000)), (p) => partitionAsParts.json(p)),
+    direct('divide and conquer n=1e5', new DivideAndConquerSampler(100_000), familyKey(unrestricted(100_000)), (p) => partitionAsParts.json(p)),
+    direct('recursive oracle n=300', new RecursiveOracle(300), familyKey(unrestricted(300)), (p) => partitionAsParts.json(p)),
+    partitions({ n: 0, maxPart: 5 }),
+    partitions({ n: 1_000_000, length: 1_000_000 }),
+    partitions({ n: 300, maxPart: 20 }),
+    partitions({ n: 300, length: 10 }),
+    partitions({ n: 300, maxPart: 20, length: 20 }),
+    partitions({ n: 100_000, maxPart: 100 }),
+    partitions({ n: 100_000, minPart: 7 }),
+    partitions({ n: 100_000, length: 50 }),
+    partitions({ n: 1_000_000, length: 1000 }),
+    partitions({ n: 100_000, allowed: [1, 2, 5, 10, 20, 50] }),
+    partitions({ n: 1_000_000, allowed: [1, 2, 5, 10, 20, 50] }, 'multiplicities'),
+    partitions({ n: 1_000_000, distinct: true }),
+    partitions({ n: 100_000, distinct: true, maxPart: 10_000 }),
+    partitions({ n: 1_000_000, maxPart: 1000, length: 2000 }),
+    partitions({ n: 1_000_000, length: 100, maxPart: 20_000 }),
+    partitions({ n: 1_000_000, distinct: true, maxLength: 100 }),
+    partitions({ n: 1_000_000, minPart: 10, maxLength: 2000 }),
+    partitions({ n: 1_000_000, allowed: [1000, 2000, 3000, 5000, 7000, 11000], length: 300 }),
+    partitions({ n: 100_000, allowed: ALLOWED_THOUSANDS, distinct: true, length: 5 }),
+    compositions({ n: 0 }),
+    compositions({ n: 1000 }),
+    compositions({ n: 1_000_000 }),
+    compositions({ n: 100, length: 10 }),
+    compositions({ n: 1_000_000, length: 1000 }),
+    compositions({ n: 1000, allowed: [3, 7, 11], length: 100 }),
+    compositions({ n: 100, maxPart: 5 }),
+    compositions({ n: 1_000_000, maxPart: 5000, length: 2000 }),
+    compositions({ n: 100_000, maxPart: 5 }),
+    compositions({ n: 1_000_000, allowed: [3, 7, 11] }),
+    compositions({ n: 1_000_000, minPart: 1000 }),
+    compositions({ n: 100_000, maxPart: 100, length: 2000 }),
+    compositions({ n: 100_000, minPart: 2, maxPart: 9, length: 20_000 }),
+    compositions({ n: 1_000_000, allowed: [3, 7, 11], length: 100_000 }),
+    setPartitions({ n: 0 }),
+    setPartitions({ n: 1000 }),
+    setPartitions({ n: 100_000 }),
+    setPartitions({ n: 1000, blocks: 10 }),
+    setPartitions({ n: 100_000, blocks: 10 }),
+    setPartitions({ n: 10_000, maxBlocks: 10 }),
+    setPartitions({ n: 100_000, minBlockSize: 2 }),
+    setPartitions({ n: 1000, minBlockSize: 100 }),
+    direct('set partitions n=200 blocks=20 (table, forced)', planSetPartitionSampler(forcedTable, { method: 'table' }), familyKey(forcedTable), (s) => setPartitionAsBlocks.json(s)),
+  ];
+}
+
+/** Mean nanoseconds per sample of a case, after a short warm-up. */
+function timeCase(c: Case): { ns: number; samples: number } {
+  let sink = 0;
+  for (let i = 0; i < MIN_SAMPLES; i++) sink += c.once(1_000_000 + i).length;
+  let samples = 0;
+  const t0 = performance.now();
+  while (samples < MIN_SAMPLES || performance.now() - t0 < CASE_MS) sink += c.once(samples++).length;
+  const ns = ((performance.now() - t0) * 1e6) / samples;
+  if (sink < 0) console.log(sink);
+  return { ns, samples };
+}
+
+function fmtNs(ns: number): string {
+  if (ns >= 1e6) return `${(ns / 1e6).toPrecision(3)} ms`;
+  if (ns >= 1e3) return `${(ns / 1e3).toPrecision(3)} µs`;
+  return `${ns.toPrecision(3)} ns`;
+}
+
+/** Whole requests through the app (count samples, NDJSON), measured against the same estimate. */
+async function requests(): Promise<string[]> {
+  const app = createApp({ limits: { workBudgetMs: 3_600_000, deadlineMs: 3_600_000, maxCount: 1_000_000, maxNumbers: 1e12 } });
+  const rows: string[] = [];
+  const list: Array<[string, Case, number]> = [
+    ['/v1/partitions?n=1000000&count=5000&as=multiplicities&format=ndjson&seed=abort', partitions({ n: 1_000_000 }, 'multiplicities'), 5000],
+    ['/v1/partitions?n=1000&count=10000&format=ndjson&seed=x', partitions({ n: 1000 }), 10_000],
+    ['/v1/compositions?n=1000000&allowed=3,7,11&length=100000&count=2&format=ndjson&seed=x', compositions({ n: 1_000_000, allowed: [3, 7, 11], length: 100_000 }), 2],
+    ['/v1/set-partitions?n=100000&count=20&format=ndjson&seed=x', setPartitions({ n: 100_000 }), 20],
+  ];
+  for (const [path, c, count] of list) {
+    await (await app.fetch(new Request(`http://bench${path.replace(/count=\d+/, 'count=1')}`))).text(); // plan and warm up
+    const t0 = performance.now();
+    const response = await app.fetch(new Request(`http://bench${path}`));
+    await response.text();
+    const ms = performance.now() - t0;
+    const estimate = (count * sampleTimeNs(c, c.numbers)) / 1e6;
+    rows.push(`${path} | ${response.status} | ${ms.toFixed(0)} ms | estimate ${estimate.toFixed(0)} ms | measured/estimate ${(ms / estimate).toFixed(2)}`);
+  }
+  return rows;
+}
+
+export async function benchCosts(): Promise<void> {
+  console.log(`work costs: time per sample, measured vs estimated (${SEEDING_NS} ns seeding + steps × ns/step + ${NS_PER_NUMBER} ns per number written)`);
+  console.log('method | family | steps | numbers | measured | estimate | measured/estimate | fitted ns/step (table)');
+  const ratios: number[] = [];
+  const seen = new Set<string>();
+  for (const c of cases()) {
+    const { ns } = timeCase(c);
+    const estimate = sampleTimeNs(c, c.numbers);
+    const ratio = ns / estimate;
+    ratios.push(ratio);
+    seen.add(baseMethod(c.method));
+    const fitted = (ns - SEEDING_NS - c.numbers * NS_PER_NUMBER) / c.expectedWork;
+    const table = NS_PER_STEP[baseMethod(c.method)];
+    console.log(`${c.method} | ${c.label} | ${c.expectedWork.toExponential(2)} | ${Math.round(c.numbers)} | ${fmtNs(ns)} | ${fmtNs(estimate)} | ${ratio.toFixed(2)} | ${fitted.toFixed(0)} (${table ?? 'missing'})`);
+  }
+  const missing = Object.keys(NS_PER_STEP).filter((m) => !seen.has(m));
+  console.log(`measured/estimate over all rows: ${Math.min(...ratios).toFixed(2)} to ${Math.max(...ratios).toFixed(2)}${missing.length ? `; table rows not timed here: ${missing.join(', ')}` : ''}`);
+  console.log('\nwhole requests through the app (NDJSON): wall clock vs the estimate the work budget uses');
+  for (const row of await requests()) console.log(row);
+}
+
+if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop()!)) {
+  await benchCosts();
+}
