@@ -30,7 +30,7 @@ import { setPartitionFamily } from '../../src/library/set-partitions.js';
  * fastest kept, which filters out most of the noise of a shared machine.
  */
 const ROUND_MS = 80;
-const ROUNDS = 3;
+const ROUNDS = 5;
 
 /** One family to time: what is sampled, how it is written, and the numbers a sample writes. */
 interface Case {

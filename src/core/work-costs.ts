@@ -16,10 +16,10 @@
  */
 
 /** Per sample, whatever the method: deriving the sample's random stream and starting its output. */
-export const SEEDING_NS = 2_300;
+export const SEEDING_NS = 3_000;
 
 /** Per number written to the body (a part, or one of a [part, multiplicity] pair; items of a set partition). */
-export const NS_PER_NUMBER = 14;
+export const NS_PER_NUMBER = 50;
 
 /**
  * Nanoseconds per basic step of each sampler method (the method id without the
