@@ -12,11 +12,12 @@
  * machine under Node 20: for every method it times whole NDJSON requests of families the
  * planners choose that method for, and prints the measured time against this estimate. The rows
  * were fitted to the process's CPU time (best of 5 rounds), which other processes on a shared
- * machine hardly change; their wall-clock time there was 1-3x more. Steps are counted
+ * machine hardly change (wall-clock there, at a load average of ~7 on 2 cores, was 1-10x more). Steps are counted
  * differently by each method, so each method has its own row; a new sampler method must add one
  * (test/core/work-costs.test.ts fails otherwise). The estimate is a planner's mean, not a bound:
- * the bench shows it off by 0.1-1.6x per family (it overestimates where a method's expectedWork
- * is a loose upper estimate), and the request deadline stops what it misses.
+ * in the bench, CPU time was 0.08-2.0x the estimate (0.5-1.5x for the middle 80% of families;
+ * it is high where a method's expectedWork is a loose upper estimate), and the request deadline
+ * stops what it misses.
  */
 
 /** Per sample, whatever the method: deriving the sample's random stream and writing its NDJSON line. */
