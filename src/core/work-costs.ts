@@ -2,7 +2,7 @@
  * What one unit of sampler work costs in time, per method: the table that turns a planner's
  * estimate (SamplerEstimate.expectedWork, in the method's own basic steps) into nanoseconds, so
  * that a request's work can be limited by a time budget instead of a step count whose meaning
- * differs 30-fold between methods.
+ * differs many-fold between methods.
  *
  * A sample's time estimate is
  *

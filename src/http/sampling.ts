@@ -56,7 +56,8 @@ export function checkJobLimits(job: JobSize, limits: Limits): void {
     throw new ProblemError(400, `Invalid query: count ${message}.`, [{ param: 'count', message }]);
   }
   if (job.start + job.count - 1 > limits.maxIndex) {
-    throw new ProblemError(422, `start + count - 1 must be at most ${limits.maxIndex}.`, [{ param: 'start', message: `start + count - 1 must be at most ${limits.maxIndex}` }]);
+    const message = `start + count - 1 must be at most ${limits.maxIndex} (the largest sample index): with count=${job.count}, start at most ${limits.maxIndex - job.count + 1}`;
+    throw new ProblemError(422, `${message}.`, [{ param: 'start', message }]);
   }
   checkResponseSize(job, limits);
   checkWorkBudget(job, limits);
