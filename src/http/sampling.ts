@@ -5,7 +5,7 @@ import type { SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
 import { RequestStopped, type Deadline } from './deadline.js';
-import { checkWorkBudget } from './work-budget.js';
+import { checkWorkBudget, samplesText } from './work-budget.js';
 import type { SampleFormat } from '../schemas/common.js';
 
 /** What a sampling endpoint hands to the shared response writer. */
@@ -75,7 +75,7 @@ function checkResponseSize(job: JobSize, limits: Limits): void {
     throw new ProblemError(
       422,
       `This response would hold about ${Math.round(numbers).toLocaleString('en-US')} numbers (${perSample} per sample); ${limit}. Ask for count=${fits}, then page with start=${next}, start=${next + fits}, … for the rest.`,
-      [{ param: 'count', message: `at most ${fits} samples of this family fit in one response (limit: ${limits.maxNumbers} numbers); page with start for more` }],
+      [{ param: 'count', message: `at most ${samplesText(fits)} of this family fit in one response (limit: ${limits.maxNumbers} numbers); page with start for more` }],
     );
   }
   const multiplicities = job.family?.kind === 'partition' && job.encoder?.field === 'parts';

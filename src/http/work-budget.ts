@@ -57,7 +57,7 @@ export function checkWorkBudget(job: BudgetedJob, limits: Pick<Limits, 'workBudg
     throw new ProblemError(
       422,
       `This request needs about ${formatMs(total)} of work (${job.count.toLocaleString('en-US')} samples at about ${formatMs(each)} each); ${limit}. Ask for count=${fits}, then page with start=${next}, start=${next + fits}, … for the rest.`,
-      [{ param: 'count', message: `at most ${fits} samples of this family fit in the work budget of ${formatMs(budget)} per request; page with start for more` }],
+      [{ param: 'count', message: `at most ${samplesText(fits)} of this family fit in the work budget of ${formatMs(budget)} per request; page with start for more` }],
     );
   }
   const changes = familyChanges(job, budget);
@@ -82,6 +82,11 @@ function familyChanges(job: BudgetedJob, budget: number): string[] {
   return changes;
 }
 
+/** "1 sample", "2530 samples": digits only, as the parameter is written. */
+export function samplesText(count: number): string {
+  return `${count} sample${count === 1 ? '' : 's'}`;
+}
+
 function capitalised(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
@@ -98,7 +103,7 @@ export function checkSamplesBudget(what: string, samples: number, sampler: Coste
   const fits = Math.floor(budget / each);
   const needs = `${what} ${samples === 1 ? 'one sample' : `${samples} samples`} of this family needs about ${formatMs(samples * each)} of work; the limit is ${formatMs(budget)} per request`;
   throw new LimitExceededError(
-    fits >= 1 ? `${needs}: ask for at most ${fits} samples` : `${needs}, so not even one sample fits: ask for a smaller n`,
+    fits >= 1 ? `${needs}: ask for at most ${samplesText(fits)}` : `${needs}, so not even one sample fits: ask for a smaller n`,
     `work <= ${formatMs(budget)}`,
   );
 }
