@@ -1,9 +1,10 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving, costs) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
+import { benchCosts } from './bench/costs.js';
 import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
@@ -22,6 +23,7 @@ const sections: Record<string, () => Promise<void>> = {
   library: benchLibrary,
   ranks: benchRanks,
   serving: benchServing,
+  costs: benchCosts,
 };
 
 const chosen = process.argv.slice(2);

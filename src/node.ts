@@ -36,7 +36,7 @@ const server = serve({ fetch: app.fetch, port, hostname: host }, async (info) =>
   }
   const effective = { ...DEFAULT_LIMITS, ...limits };
   console.log(`partsmith listening on ${base}`);
-  console.log(`limits: count <= ${effective.maxCount}, numbers <= ${effective.maxNumbers}, work <= ${effective.maxWork.toExponential(1)} steps, deadline ${effective.deadlineMs} ms`);
+  console.log(`limits: count <= ${effective.maxCount}, numbers <= ${effective.maxNumbers}, work <= ${effective.workBudgetMs} ms (estimated), deadline ${effective.deadlineMs} ms`);
   console.log(`try: curl '${base}/v1/partitions?n=20&count=3&seed=demo'`);
 });
 

@@ -3,8 +3,9 @@ import { DEFAULT_MAX_COUNT, MAX_COUNT, MAX_INDEX, MAX_N } from '../schemas/bound
 export { MAX_COUNT, MAX_N };
 
 /**
- * The service's stated limits (documented in the README). Work is counted in the samplers'
- * own units (basic steps; see SamplerEstimate) so one budget covers every method.
+ * The service's stated limits (documented in the README). Work is limited in time: each
+ * sampler's estimate (basic steps, see SamplerEstimate) is turned into nanoseconds with the
+ * measured cost table of its method (src/core/work-costs.ts), so one budget covers every method.
  */
 export interface Limits {
   /** Samples in one response. */
@@ -12,17 +13,17 @@ export interface Limits {
   /** Numbers in one response (parts, or two per [part, multiplicity] pair), by expected size. */
   readonly maxNumbers: number;
   /**
-   * Expected work of one request, in the samplers' basic steps. Measured on a 2-core machine a
-   * step costs 40-70 ns in the unrestricted sampler and up to ~500 ns in the heavier constrained
-   * and composition methods, so the default (2e7) is about 1-10 s of one core; the deadline
-   * bounds what the estimate misses.
+   * Estimated time of one request's sampling, in milliseconds of one core of a 2-core machine
+   * (see work-costs.ts): requests estimated over it are refused before any work is done. The
+   * estimate is not exact (`npm run bench -- costs` prints how far off it is per method); the
+   * deadline is the hard stop for what it misses.
    */
-  readonly maxWork: number;
+  readonly workBudgetMs: number;
   /** Largest index of a sample (start + count - 1). */
   readonly maxIndex: number;
   /**
    * Wall-clock budget of one request in milliseconds, checked between samples. The work
-   * estimate refuses most oversized requests up front; the deadline bounds the rest.
+   * budget refuses most oversized requests up front; the deadline bounds the rest.
    */
   readonly deadlineMs: number;
 }
@@ -30,7 +31,7 @@ export interface Limits {
 export const DEFAULT_LIMITS: Limits = {
   maxCount: DEFAULT_MAX_COUNT,
   maxNumbers: 10_000_000,
-  maxWork: 2e7,
+  workBudgetMs: 2_000,
   maxIndex: MAX_INDEX,
   deadlineMs: 5_000,
 };
@@ -55,8 +56,14 @@ interface Setting {
 export const LIMIT_SETTINGS: Readonly<Record<string, Setting>> = {
   PARTSMITH_MAX_COUNT: { key: 'maxCount', min: 1, max: MAX_COUNT, example: '10000' },
   PARTSMITH_MAX_NUMBERS: { key: 'maxNumbers', min: 1, max: 1e12, example: '1e7' },
-  PARTSMITH_MAX_WORK: { key: 'maxWork', min: 1, max: 1e15, example: '2e7' },
+  PARTSMITH_WORK_BUDGET_MS: { key: 'workBudgetMs', min: 1, max: 3_600_000, example: '2000' },
   PARTSMITH_DEADLINE_MS: { key: 'deadlineMs', min: 1, max: 3_600_000, example: '5000' },
+};
+
+/** Settings that were removed, with what replaces them: set, they stop the server instead of being ignored. */
+export const RETIRED_SETTINGS: Readonly<Record<string, string>> = {
+  PARTSMITH_MAX_WORK:
+    'the work limit is now a time, set with PARTSMITH_WORK_BUDGET_MS (milliseconds per request, default 2000); remove PARTSMITH_MAX_WORK',
 };
 
 /**
@@ -69,6 +76,9 @@ export const LIMIT_SETTINGS: Readonly<Record<string, Setting>> = {
 export function limitsFromEnvironment(env: Readonly<Record<string, unknown>>): Partial<Limits> {
   const limits: Record<string, number> = {};
   const problems: string[] = [];
+  for (const [name, replacement] of Object.entries(RETIRED_SETTINGS)) {
+    if (env[name] !== undefined && env[name] !== '') problems.push(`${name} is no longer a setting: ${replacement}`);
+  }
   for (const [name, setting] of Object.entries(LIMIT_SETTINGS)) {
     const raw = env[name];
     if (raw === undefined || raw === '') continue;
@@ -86,5 +96,5 @@ export function limitsFromEnvironment(env: Readonly<Record<string, unknown>>): P
 
 /** PARTSMITH_* variables that are not settings: probably typos, worth a warning at startup. */
 export function unknownSettings(env: Readonly<Record<string, unknown>>, known: readonly string[] = []): string[] {
-  return Object.keys(env).filter((name) => name.startsWith('PARTSMITH_') && !(name in LIMIT_SETTINGS) && !known.includes(name));
+  return Object.keys(env).filter((name) => name.startsWith('PARTSMITH_') && !(name in LIMIT_SETTINGS) && !(name in RETIRED_SETTINGS) && !known.includes(name));
 }

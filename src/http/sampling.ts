@@ -5,6 +5,7 @@ import type { SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { ProblemError } from './problem.js';
 import { RequestStopped, type Deadline } from './deadline.js';
+import { checkWorkBudget, samplesText } from './work-budget.js';
 import type { SampleFormat } from '../schemas/common.js';
 import { YieldBudget } from './yield-budget.js';
 
@@ -14,7 +15,7 @@ export interface SamplingJob<S> {
   readonly family: Family;
   /** The family's random streams; their familyKey is echoed in the body. */
   readonly streams: SampleStreams;
-  readonly sampler: { readonly method: string; readonly expectedWork: number; sample(source: RandomSource): S };
+  readonly sampler: { readonly method: string; readonly expectedWork: number; readonly expectedDistinct?: number; sample(source: RandomSource): S };
   readonly encoder: SampleEncoder<S>;
   /** Expected numbers one sample adds to the body (parts, or 2 per multiplicity pair). */
   readonly numbersPerSample: number;
@@ -39,10 +40,16 @@ const CHUNK_CHARS = 64 * 1024;
  */
 const WHOLE_BODY_NUMBERS = 2000;
 
-/** What the limits look at: how many samples, from where, and their expected size and work. */
-export type JobSize = Pick<SamplingJob<unknown>, 'sampler' | 'numbersPerSample' | 'start' | 'count'>;
+/**
+ * What the limits look at: how many samples, from where, and their expected size and work; the
+ * family and encoder, when given, let a refusal say which parameter to change.
+ */
+export type JobSize = Pick<SamplingJob<unknown>, 'sampler' | 'numbersPerSample' | 'start' | 'count'> & Partial<Pick<SamplingJob<unknown>, 'family' | 'encoder'>>;
 
-/** Refuses, before any work is done, a job whose expected size or work is over the limits. */
+/**
+ * Refuses, before any work is done, a job whose count, indices, expected size or estimated time
+ * (the work budget, see work-budget.ts) are over the limits.
+ */
 export function checkJobLimits(job: JobSize, limits: Limits): void {
   if (job.count > limits.maxCount) {
     // The schema admits up to MAX_COUNT so an operator can raise the limit; the configured one is checked here.
@@ -50,27 +57,35 @@ export function checkJobLimits(job: JobSize, limits: Limits): void {
     throw new ProblemError(400, `Invalid query: count ${message}.`, [{ param: 'count', message }]);
   }
   if (job.start + job.count - 1 > limits.maxIndex) {
-    throw new ProblemError(422, `start + count - 1 must be at most ${limits.maxIndex}.`, [{ param: 'start', message: `start + count - 1 must be at most ${limits.maxIndex}` }]);
+    const message = `start + count - 1 must be at most ${limits.maxIndex} (the largest sample index): with count=${job.count}, start at most ${limits.maxIndex - job.count + 1}`;
+    throw new ProblemError(422, `${message}.`, [{ param: 'start', message }]);
   }
+  checkResponseSize(job, limits);
+  checkWorkBudget(job, limits);
+}
+
+/** Refuses a job whose response would hold more numbers than the limit, saying what would fit. */
+function checkResponseSize(job: JobSize, limits: Limits): void {
   const numbers = job.count * job.numbersPerSample;
-  if (numbers > limits.maxNumbers) {
-    const perSample = Math.ceil(job.numbersPerSample);
-    const fits = Math.max(0, Math.floor(limits.maxNumbers / job.numbersPerSample));
+  if (numbers <= limits.maxNumbers) return;
+  const perSample = Math.ceil(job.numbersPerSample).toLocaleString('en-US');
+  const limit = `the limit is ${limits.maxNumbers.toLocaleString('en-US')} per response`;
+  const fits = Math.floor(limits.maxNumbers / job.numbersPerSample);
+  if (fits >= 1) {
+    const next = job.start + fits;
     throw new ProblemError(
       422,
-      `This response would hold about ${Math.round(numbers).toLocaleString('en-US')} numbers (${perSample.toLocaleString('en-US')} per sample); the limit is ${limits.maxNumbers.toLocaleString('en-US')} per response. Ask for at most ${fits} samples per request, or page with start.`,
-      [{ param: 'count', message: `at most ${fits} samples of this family fit in one response (limit: ${limits.maxNumbers} numbers)` }],
+      `This response would hold about ${Math.round(numbers).toLocaleString('en-US')} numbers (${perSample} per sample); ${limit}. Ask for count=${fits}, then page with start=${next}, start=${next + fits}, … for the rest.`,
+      [{ param: 'count', message: `at most ${samplesText(fits)} of this family fit in one response (limit: ${limits.maxNumbers} numbers); page with start for more` }],
     );
   }
-  const work = job.count * job.sampler.expectedWork;
-  if (work > limits.maxWork) {
-    const fits = Math.max(0, Math.floor(limits.maxWork / job.sampler.expectedWork));
-    throw new ProblemError(
-      422,
-      `This request needs about ${work.toExponential(2)} steps of work; the limit is ${limits.maxWork.toExponential(2)} per request. Ask for at most ${fits} samples per request, or page with start.`,
-      [{ param: 'count', message: `at most ${fits} samples of this family fit in the work limit (${limits.maxWork.toExponential(2)} steps)` }],
-    );
-  }
+  const multiplicities = job.family?.kind === 'partition' && job.encoder?.field === 'parts';
+  const change = multiplicities ? 'Ask for as=multiplicities (each part size once, with its multiplicity) or a smaller n' : 'Ask for a smaller n';
+  throw new ProblemError(
+    422,
+    `One sample of this family holds about ${perSample} numbers; ${limit}, so not even one sample fits. ${change}.`,
+    [{ param: multiplicities ? 'as' : 'n', message: `one sample holds about ${perSample} numbers, over the limit of ${limits.maxNumbers} per response: ${change.charAt(0).toLowerCase()}${change.slice(1)}` }],
+  );
 }
 
 /**

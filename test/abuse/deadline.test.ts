@@ -29,18 +29,40 @@ describe('request deadline', () => {
     expect(readings()).toBe(6); // it stopped at the first check past the deadline
   });
 
-  it('stops a request whose work exceeds a tiny deadline quickly (real clock)', async () => {
-    // n = 10^6 costs ~0.1 ms per sample (npm run bench), so 2,000 samples take ~200 ms: ten times
-    // the deadline. (This once used n = 2000, which became fast enough to finish inside 20 ms.)
-    const app = createApp({ limits: { deadlineMs: 20 } });
-    const started = performance.now();
+  it('stops a request mid-way when its time runs out between samples (clock advancing 8 ms per sample)', async () => {
+    // The clock reads 0 at the start and 8 ms more at each check before a sample: the checks
+    // before samples 0 and 1 pass (8, 16 < 20), the one before sample 2 (24) stops the request.
+    // Samples of n = 10^6 are ~8 KB each, so the first 64 KiB chunk is still being gathered:
+    // the answer is a 503 that says where to continue. Whatever the machine's speed.
+    let readings = 0;
+    const app = createApp({ clock: () => 8 * readings++, limits: { deadlineMs: 20 } });
     const response = await app.fetch(new Request('http://x/v1/partitions?n=1000000&count=2000&seed=d&as=multiplicities'));
-    const elapsed = performance.now() - started;
     expect(response.status).toBe(503);
     expect(response.headers.get('retry-after')).toBe('1');
-    // Behaviour bound, not a speed measurement: it must stop within a few samples of 20 ms,
-    // i.e. far below the seconds the whole request would take.
-    expect(elapsed).toBeLessThan(1000);
+    const problem = await response.json();
+    expect(problem.detail).toMatch(/deadline of 20 ms/);
+    expect(problem.detail).toMatch(/2 samples were done in time; continue with start=2\./);
+    expect(readings).toBe(4); // the start, then one check per sample: it drew nothing past the deadline
+  });
+
+  it('with the real clock and a 1 ms deadline, a request of 10^5 large samples stops early (either way it can)', async () => {
+    // Behaviour that holds on slow and fast machines: 10^5 samples of n = 10^6 are seconds of work
+    // anywhere, far past 1 ms, so the request never completes. It stops either before its first
+    // byte (503 problem) or after it (200 whose stream ends with an error line and errors).
+    const app = createApp({ limits: { deadlineMs: 1, maxCount: 100_000, maxNumbers: 1e12, workBudgetMs: 3_600_000 } });
+    const response = await app.fetch(new Request('http://x/v1/partitions?n=1000000&count=100000&seed=d&as=multiplicities&format=ndjson'));
+    if (response.status === 503) {
+      expect((await response.json()).detail).toMatch(/deadline of 1 ms.*(continue with start=\d+)?/);
+      return;
+    }
+    expect(response.status).toBe(200);
+    const { text, failure } = await readAll(response);
+    expect(failure).toBeInstanceOf(Error);
+    const lines = text.trimEnd().split('\n').map((line) => JSON.parse(line));
+    const last = lines.pop();
+    expect(last.error).toMatchObject({ status: 503 });
+    expect(last.error.detail).toMatch(new RegExp(`continue with start=${lines.length}\\.`));
+    expect(lines.length).toBeLessThan(100_000);
   });
 
   it('ends an NDJSON stream that is already flowing with an error line, then errors the stream', async () => {

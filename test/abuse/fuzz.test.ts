@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../src/http/app.js';
-import { runFuzz } from './support/run-fuzz.js';
+import { runFuzz, STILL_CLOCK } from './support/run-fuzz.js';
 
 /**
  * Seeded fuzzing of every endpoint (issue 7): 2,500 random and adversarial query strings
@@ -13,7 +13,7 @@ import { runFuzz } from './support/run-fuzz.js';
  */
 describe('fuzzed queries', () => {
   it('get only 2xx/4xx answers: problem details naming a parameter or limit, or samples of the family', async () => {
-    const app = createApp({ limits: { maxWork: 2e6 }, drawSeed: () => 'fuzz-drawn-seed' });
+    const app = createApp({ limits: { workBudgetMs: 200 }, clock: STILL_CLOCK, drawSeed: () => 'fuzz-drawn-seed' });
     const report = await runFuzz(app, 'partsmith-fuzz-1', 2500);
     expect(report.failures, `${report.failureCount} failing cases; statuses ${JSON.stringify(report.byStatus)}`).toEqual([]);
     // The fuzz must reach both sides of the contract, not only the validator.
@@ -28,7 +28,7 @@ describe('fuzzed queries', () => {
     ['problems without parameter names', /names neither a parameter nor a limit/, () => true, 1000],
     ['listings out of order', /not in the documented order/, (path: string) => path.endsWith('/list'), 300],
   ] as const)('would catch a service that breaks the contract: %s', async (breakage, symptom, only, cases) => {
-    const app = createApp({ limits: { maxWork: 2e6 } });
+    const app = createApp({ limits: { workBudgetMs: 200 }, clock: STILL_CLOCK });
     const broken = {
       async fetch(request: Request): Promise<Response> {
         const response = await app.fetch(request);

@@ -5,7 +5,7 @@ import { API_CONTENT_SECURITY_POLICY, cspHash, htmlContentSecurityPolicy } from 
 import { Hono } from 'hono';
 import { securityHeaders } from '../../src/http/middleware/security-headers.js';
 
-const app = createApp({ limits: { maxWork: 2e6 } });
+const app = createApp({ limits: { workBudgetMs: 200 } });
 const get = (path: string, init?: RequestInit) => app.fetch(new Request(`http://x${path}`, init));
 
 describe('strict parameters', () => {
@@ -128,20 +128,27 @@ describe('security headers', () => {
 
 describe('configuration from the environment', () => {
   it('reads PARTSMITH_* limits, keeping defaults for absent ones', () => {
-    expect(limitsFromEnvironment({ PARTSMITH_MAX_WORK: '2e8', PARTSMITH_DEADLINE_MS: '2_500', PARTSMITH_MAX_COUNT: '' })).toEqual({ maxWork: 2e8, deadlineMs: 2500 });
+    expect(limitsFromEnvironment({ PARTSMITH_WORK_BUDGET_MS: '3e3', PARTSMITH_DEADLINE_MS: '2_500', PARTSMITH_MAX_COUNT: '' })).toEqual({ workBudgetMs: 3000, deadlineMs: 2500 });
     expect(limitsFromEnvironment({})).toEqual({});
   });
 
   it('refuses bad values with a message naming every bad variable', () => {
-    const attempt = () => limitsFromEnvironment({ PARTSMITH_MAX_WORK: 'lots', PARTSMITH_DEADLINE_MS: '0', PARTSMITH_MAX_COUNT: '1.5' });
+    const attempt = () => limitsFromEnvironment({ PARTSMITH_WORK_BUDGET_MS: 'lots', PARTSMITH_DEADLINE_MS: '0', PARTSMITH_MAX_COUNT: '1.5' });
     expect(attempt).toThrow(ConfigurationError);
-    expect(attempt).toThrow(/PARTSMITH_MAX_WORK must be .*, got "lots"/);
+    expect(attempt).toThrow(/PARTSMITH_WORK_BUDGET_MS must be .*, got "lots"/);
     expect(attempt).toThrow(/PARTSMITH_DEADLINE_MS must be .*, got "0"/);
     expect(attempt).toThrow(/PARTSMITH_MAX_COUNT must be .*, got "1.5"/);
   });
 
   it('points out PARTSMITH_* names that are not settings', () => {
-    expect(unknownSettings({ PARTSMITH_MAX_WROK: '1', PARTSMITH_MAX_WORK: '1', PATH: '/bin' })).toEqual(['PARTSMITH_MAX_WROK']);
+    expect(unknownSettings({ PARTSMITH_MAX_WROK: '1', PARTSMITH_WORK_BUDGET_MS: '1', PATH: '/bin' })).toEqual(['PARTSMITH_MAX_WROK']);
+  });
+
+  it('refuses the retired PARTSMITH_MAX_WORK at startup, naming the variable that replaces it', () => {
+    const attempt = () => limitsFromEnvironment({ PARTSMITH_MAX_WORK: '2e7' });
+    expect(attempt).toThrow(ConfigurationError);
+    expect(attempt).toThrow(/PARTSMITH_MAX_WORK is no longer a setting: .*PARTSMITH_WORK_BUDGET_MS \(milliseconds per request, default 2000\)/);
+    expect(unknownSettings({ PARTSMITH_MAX_WORK: '2e7' })).toEqual([]); // refused, not also warned about
   });
 
   it('a raised count limit is honoured by the app and a lowered one enforced', async () => {
@@ -153,7 +160,7 @@ describe('configuration from the environment', () => {
   });
 
   it('the work budget refuses oversized requests with 422 naming count', async () => {
-    const small = createApp({ limits: { maxWork: 1000 } });
+    const small = createApp({ limits: { workBudgetMs: 0.05 } });
     const response = await small.fetch(new Request('http://x/v1/partitions?n=1000&count=10'));
     expect(response.status).toBe(422);
     expect((await response.json()).errors[0].param).toBe('count');

@@ -79,10 +79,10 @@ describe('bad requests get RFC 9457 problem details naming the parameter', () =>
     expect(body.detail).toMatch(/limit is 1,000 per response/);
   });
   it('refuses, with 422 naming count, a request over the work limit', async () => {
-    const small = appClient({ limits: { maxWork: 10 } });
+    const small = appClient({ limits: { workBudgetMs: 0.01 } });
     const response = await small.get('/v1/partitions?n=200&count=5&seed=work');
     expect(response.status).toBe(422);
-    expect((await response.json()).detail).toMatch(/steps of work; the limit is/);
+    expect((await response.json()).detail).toMatch(/of work \(5 samples at about [0-9.]+ ms each\); the limit is 0.01 ms of work per request. Ask for count=\d+, then page with start=\d+/);
   });
   it.each(['POST', 'PUT', 'DELETE', 'PATCH'])('%s is 405 with Allow', async (method) => {
     const response = await get('/v1/partitions?n=5', { method });

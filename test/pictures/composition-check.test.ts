@@ -79,7 +79,7 @@ describe('GET /v1/compositions/check', () => {
     for (const query of ['n=0', 'n=1000001', 'n=10&samples=20001', 'n=10&maxPart=3', 'n=10&length=3', 'n=10&format=text']) {
       expect((await app.request(`/v1/compositions/check?${query}`)).status, query).toBe(400);
     }
-    const small = createApp({ limits: { maxWork: 1e5 } });
+    const small = createApp({ limits: { workBudgetMs: 100 } });
     const refused = await small.request('/v1/compositions/check?n=100000&samples=20000&seed=a');
     expect(refused.status).toBe(422);
     expect((await refused.json()).detail).toMatch(/ask for at most \d+ samples/);

@@ -34,7 +34,7 @@ describe('GET /v1/partitions/check', () => {
 
   it('bounds samples and work', async () => {
     expect((await app.request('/v1/partitions/check?n=30&samples=20001')).status).toBe(400);
-    const small = createApp({ limits: { maxWork: 1e5 } });
+    const small = createApp({ limits: { workBudgetMs: 10 } });
     const refused = await small.request('/v1/partitions/check?n=300&samples=20000&seed=a');
     expect(refused.status).toBe(422);
     expect((await refused.json()).detail).toMatch(/ask for at most \d+ samples/);

@@ -56,7 +56,7 @@ export function renderPage(url: URL, form: FormState, context: AppContext): stri
       problem = messageOf(error);
     }
     if (drawn && form.check) {
-      const limits = { ...context.limits, maxWork: context.limits.maxWork * PAGE_CHECK_WORK_SHARE };
+      const limits = { ...context.limits, workBudgetMs: context.limits.workBudgetMs * PAGE_CHECK_WORK_SHARE };
       try {
         if (form.family.kind === 'partition') check = runPartitionCheck(form.query as PartitionsQuery, form.samples, drawn.seed, limits);
         else if (isUnrestricted(form.query)) check = runCompositionCheck(form.query.n, form.samples, drawn.seed, limits);

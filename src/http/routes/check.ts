@@ -1,5 +1,4 @@
 import { familyKey, type PartitionFamily } from '../../core/family.js';
-import { LimitExceededError } from '../../core/errors.js';
 import type { Partition } from '../../core/partition.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { CHECK_ALPHA, checkPartitionSamples, type PartitionCheckReport } from '../../core/pictures/check.js';
@@ -8,6 +7,7 @@ import { sampleSource } from '../../core/seeding.js';
 import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { respondWithJson } from '../respond.js';
+import { checkSamplesBudget } from '../work-budget.js';
 import { checkQuery } from '../../schemas/check.js';
 import { PROBLEM_RESPONSES } from './docs.js';
 import { respondWithBody, SVG_CONTENT_TYPE } from './diagram.js';
@@ -24,19 +24,12 @@ export interface PartitionCheck {
 
 /**
  * Draws samples 0..samples−1 of the seed (the very samples GET /v1/partitions hands out) and
- * checks them. Refused up front when the expected work is over the limit.
+ * checks them. Refused up front when the estimated time is over the work budget.
  */
 export function runPartitionCheck(query: Parameters<typeof partitionFamilyOf>[0], samples: number, seed: string, limits: Limits): PartitionCheck {
   const family = partitionFamilyOf(query);
   const sampler = planPartitionSampler(family);
-  const work = samples * sampler.expectedWork;
-  if (work > limits.maxWork) {
-    const fits = Math.max(1, Math.floor(limits.maxWork / sampler.expectedWork));
-    throw new LimitExceededError(
-      `checking ${samples} samples of this family needs about ${work.toExponential(2)} steps; the limit is ${limits.maxWork.toExponential(2)}: ask for at most ${fits} samples`,
-      `work <= ${limits.maxWork}`,
-    );
-  }
+  checkSamplesBudget('checking', samples, sampler, sampler.expectedLength, limits);
   const key = familyKey(family);
   function* draws(): Generator<Partition> {
     for (let i = 0; i < samples; i++) yield sampler.sample(sampleSource(seed, i, key));

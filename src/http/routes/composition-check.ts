@@ -1,5 +1,4 @@
 import { planCompositionSampler } from '../../core/compositions/plan.js';
-import { LimitExceededError } from '../../core/errors.js';
 import { familyKey, type CompositionFamily } from '../../core/family.js';
 import { CHECK_ALPHA } from '../../core/pictures/check.js';
 import { histogramSvg, stackedSvg, verdictText, type HistogramInput } from '../../core/pictures/check-svg.js';
@@ -11,6 +10,7 @@ import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
 import { ProblemError } from '../problem.js';
 import { respondWithJson } from '../respond.js';
+import { checkSamplesBudget } from '../work-budget.js';
 import { compositionCheckQuery } from '../../schemas/composition-check.js';
 import { compositionFamilyOf } from '../../library/compositions.js';
 import { PROBLEM_RESPONSES } from './docs.js';
@@ -30,19 +30,12 @@ export interface CompositionCheck {
  * familyKey(family)))`, exactly what GET /v1/compositions returns at index i — and tests their
  * numbers of parts against the exact law 1 + Binomial(n − 1, 1/2). `sampler` defaults to the
  * service's own; tests pass a deliberately biased one through the very same code.
- * Refused up front when the expected work is over the limit; stops at the request's deadline.
+ * Refused up front when the estimated time is over the work budget; stops at the request's deadline.
  */
 export function runCompositionCheck(n: number, samples: number, seed: string, limits: Limits, sampler?: CompositionSampler): CompositionCheck {
   const family = compositionFamilyOf({ n });
   const used = sampler ?? planCompositionSampler(family);
-  const work = samples * used.expectedWork;
-  if (work > limits.maxWork) {
-    const fits = Math.max(1, Math.floor(limits.maxWork / used.expectedWork));
-    throw new LimitExceededError(
-      `checking ${samples} samples of this family needs about ${work.toExponential(2)} steps; the limit is ${limits.maxWork.toExponential(2)}: ask for at most ${fits} samples`,
-      `work <= ${limits.maxWork}`,
-    );
-  }
+  checkSamplesBudget('checking', samples, used, used.expectedLength, limits);
   const key = familyKey(family);
   const deadline = deadlineOf(limits);
   function* partCounts(): Generator<number> {

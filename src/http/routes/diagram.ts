@@ -3,10 +3,10 @@ import { lengthOf, partsOf, type Partition } from '../../core/partition.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { checkDiagramLimits, conjugateParts, DIAGRAM_LIMITS, ferrersText, sortedParts } from '../../core/pictures/ferrers.js';
 import { ferrersSvg } from '../../core/pictures/ferrers-svg.js';
-import { LimitExceededError } from '../../core/errors.js';
 import { sampleSource } from '../../core/seeding.js';
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, strongEtag } from '../caching.js';
 import { defineEndpoint } from '../endpoint.js';
+import { checkSamplesBudget } from '../work-budget.js';
 import type { Limits } from '../limits.js';
 import { diagramQuery } from '../../schemas/diagram.js';
 import { PROBLEM_RESPONSES } from './docs.js';
@@ -45,9 +45,7 @@ export async function respondWithBody(
 export function drawSample(query: Parameters<typeof partitionFamilyOf>[0], seed: string, index: number, limits: Limits): { partition: Partition; method: string } {
   const family = partitionFamilyOf(query);
   const sampler = planPartitionSampler(family);
-  if (sampler.expectedWork > limits.maxWork) {
-    throw new LimitExceededError(`drawing this sample needs about ${sampler.expectedWork.toExponential(2)} steps; the limit is ${limits.maxWork.toExponential(2)}`, `work <= ${limits.maxWork}`);
-  }
+  checkSamplesBudget('drawing', 1, sampler, sampler.expectedLength, limits);
   return { partition: sampler.sample(sampleSource(seed, index, familyKey(family))), method: sampler.method };
 }
 

@@ -47,3 +47,9 @@ export async function runFuzz(app: Fetcher, seed: string, total: number, only: (
   }
   return { total, byStatus, failures, failureCount };
 }
+
+/**
+ * A clock that stands still: the fuzzed app's deadline never passes, so whether a case is
+ * answered cannot depend on the machine's speed (the deadline has its own tests, on a driven clock).
+ */
+export const STILL_CLOCK = (): number => 0;

@@ -1,0 +1,98 @@
+/**
+ * What one unit of sampler work costs in time, per method: the table that turns a planner's
+ * estimate (SamplerEstimate.expectedWork, in the method's own basic steps) into nanoseconds, so
+ * that a request's work can be limited by a time budget instead of a step count whose meaning
+ * differs many-fold between methods.
+ *
+ * A sample's time estimate is
+ *
+ *   SEEDING_NS + expectedWork × nsPerStep(method) + numbers written × NS_PER_NUMBER
+ *
+ * The figures are measured by `npm run bench -- costs` (scripts/bench/costs.ts) on a 2-core
+ * machine under Node 20: for every method it times whole NDJSON requests of families the
+ * planners choose that method for, and prints the measured time against this estimate. The rows
+ * were fitted to the process's CPU time (best of 5 rounds), which other processes on a shared
+ * machine hardly change (wall-clock there, at a load average of ~7 on 2 cores, was 1-10x more). Steps are counted
+ * differently by each method, so each method has its own row; a new sampler method must add one
+ * (test/core/work-costs.test.ts fails otherwise). The estimate is a planner's mean, not a bound:
+ * in the bench, CPU time was 0.08-2.0x the estimate (0.5-1.5x for the middle 80% of families;
+ * it is high where a method's expectedWork is a loose upper estimate), and the request deadline
+ * stops what it misses.
+ */
+
+/** Per sample, whatever the method: deriving the sample's random stream and writing its NDJSON line. */
+export const SEEDING_NS = 2_000;
+
+/**
+ * Per number written to the body (a part, or one of a [part, multiplicity] pair; items of a set
+ * partition): about 10 ns of CPU to write it, and about as much again for the turn of the event
+ * loop the stream takes per 64 KiB chunk (see bodyStream).
+ */
+export const NS_PER_NUMBER = 30;
+
+/**
+ * Nanoseconds per basic step of each sampler method (the method id without the
+ * "+conjugate" / "+length-filter" wrappers, which count their own steps into expectedWork).
+ */
+export const NS_PER_STEP: Readonly<Record<string, number>> = {
+  // Unrestricted partitions (src/core/partitions).
+  'self-similar/1': 55,
+  'table-recursive/1': 20,
+  'plain-rejection/1': 40,
+  'recursive-oracle/1': 2,
+  'divide-and-conquer-ones/1': 70,
+  // Constrained partitions (src/core/partitions/constrained).
+  'trivial/1': 10,
+  'single-member/1': 10,
+  'table-sizes/1': 65,
+  'table-lengths/1': 160,
+  'table-sizes-lengths/1': 55,
+  'bounded-boltzmann/1': 100,
+  'allowed-boltzmann/1': 320,
+  'distinct-boltzmann/1': 95,
+  'distinct-self-similar/1': 60,
+  'box-subset/1': 50,
+  'box-mixture/1': 20,
+  'allowed-length-boltzmann/1': 70,
+  'allowed-subset/1': 30,
+  // Compositions (src/core/compositions).
+  'single/1': 10,
+  'gap-bits/1': 30,
+  'gap-subset/1': 30,
+  'count-table/1': 40,
+  'bars-reject/1': 25,
+  'tilted-renewal/1': 100,
+  'tilted-last-part/1': 35,
+  // Set partitions (src/core/set-partitions).
+  'stam/1': 30,
+  'table/1': 20,
+  'uniform-maps/1': 30,
+  'poisson-urns/1': 30,
+  'poisson-sizes/1': 35,
+  'equal-blocks/1': 20,
+};
+
+/** For a method missing from the table (never in a release; the test forbids it): the dearest known step. */
+export const UNKNOWN_NS_PER_STEP = Math.max(...Object.values(NS_PER_STEP));
+
+/** The method id a row is kept under: "bounded-boltzmann/1+conjugate" -> "bounded-boltzmann/1". */
+export function baseMethod(method: string): string {
+  const plus = method.indexOf('+');
+  return plus < 0 ? method : method.slice(0, plus);
+}
+
+/** Nanoseconds per step of a method, as measured (see the table). */
+export function nsPerStep(method: string): number {
+  return NS_PER_STEP[baseMethod(method)] ?? UNKNOWN_NS_PER_STEP;
+}
+
+/** What the time estimate needs to know of a sampler. */
+export interface CostedSampler {
+  readonly method: string;
+  readonly expectedWork: number;
+}
+
+/** Estimated nanoseconds for one sample of `sampler` that writes `numbersPerSample` numbers. */
+export function sampleTimeNs(sampler: CostedSampler, numbersPerSample: number): number {
+  return SEEDING_NS + sampler.expectedWork * nsPerStep(sampler.method) + numbersPerSample * NS_PER_NUMBER;
+}
