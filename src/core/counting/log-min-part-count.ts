@@ -37,6 +37,7 @@ export class LogMinPartCounts {
   private readonly logExact: Float64Array;
   /** Saddle-point data per m above the table (memo, bounded). */
   private readonly memo = new Map<number, Saddle>();
+  private concaveFrom = -1;
 
   constructor(
     readonly b: number,
@@ -55,6 +56,22 @@ export class LogMinPartCounts {
   static setupWork(b: number, exactUpTo: number = defaultExactUpTo(b)): number {
     const r = Math.max(0, exactUpTo - b + 1);
     return (r * (r + 1)) / 2;
+  }
+
+  /**
+   * The smallest L with c_b(m)² >= c_b(m − 1)·c_b(m + 1) for all L < m < exactUpTo (exact check
+   * on the table; strict inequality is not needed by the maximiser). Above the table the values
+   * are the saddle-point integral, concave in m (checked on a grid in the test file).
+   */
+  logConcaveFrom(): number {
+    if (this.concaveFrom < 0) {
+      const c = this.exact;
+      // c_b(m) >= 1 from m = b on (zeros before: 0 < m < b), so the search starts at b at least.
+      let from = this.b;
+      for (let m = this.b + 1; m < this.exactUpTo; m++) if (c[m] * c[m] < c[m - 1] * c[m + 1]) from = m;
+      this.concaveFrom = from;
+    }
+    return this.concaveFrom;
   }
 
   /** c_b(m) as a double, m <= exactUpTo. */
@@ -148,8 +165,11 @@ function derivatives(b: number, m: number, t: number): [number, number] {
   return [d1, d2];
 }
 
-function computeSaddle(b: number, m: number): Saddle {
-  // Newton on φ'(t) = 0 from the unrestricted saddle, kept in (t/2, 2t) per step.
+/**
+ * The real saddle point t of φ for (b, m), m >= 1: also the Boltzmann parameter x = e^{−t} at
+ * which partitions into parts >= b have mean size ≈ m (used by the sampler).
+ */
+export function minPartSaddle(b: number, m: number): number {
   let t = Math.PI / Math.sqrt(6 * m);
   for (let i = 0; i < 60; i++) {
     const [d1, d2] = derivatives(b, m, t);
@@ -160,6 +180,11 @@ function computeSaddle(b: number, m: number): Saddle {
     t = next;
     if (done) break;
   }
+  return t;
+}
+
+function computeSaddle(b: number, m: number): Saddle {
+  const t = minPartSaddle(b, m);
   const [, d2] = derivatives(b, m, t);
   const sigma = Math.sqrt(d2);
   // φ(t)
