@@ -213,7 +213,13 @@ export class MinPartSelfSimilarEngine {
   maximiser(counts: Counts, n: number, logX: number): number {
     const half = Math.floor(n / 2);
     const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
-    const from = Math.min(half, counts.logConcaveFrom());
+    const from = counts.logConcaveFrom();
+    if (half <= from) {
+      // No concave range: a direct scan (c(0) = 1 > 0, so best starts there).
+      let best = 0;
+      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
+      return best;
+    }
     // Bisection on [from, half] for the last m with weight(m, m − 1) > 0 (concave: a sign change once).
     let lo = from;
     let hi = half;
@@ -223,7 +229,7 @@ export class MinPartSelfSimilarEngine {
       else hi = mid - 1;
     }
     let m = lo;
-    if (from > 0 && counts.log(m) + 2 * m * logX < counts.log(from)) {
+    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
       for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
     }
     return m;
