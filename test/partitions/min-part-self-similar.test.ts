@@ -84,3 +84,27 @@ describe('min-part-self-similar is exactly uniform (chi-square over the enumerat
     });
   }
 });
+
+describe('min-part-self-similar through the planner', () => {
+  it('is exactly uniform with the method forced (chi-square)', async () => {
+    const { constrainedPartitionSampler } = await import('../../src/core/partitions/constrained/plan.js');
+    const family: PartitionFamily = { kind: 'partition', n: 46, minPart: 3 };
+    const sampler = constrainedPartitionSampler(family, { method: 'minpart-self-similar' });
+    expect(sampler.method).toBe('minpart-self-similar/1');
+    const result = chiSquareUniform(family, sampler, 'mpss-plan');
+    expect(result.strangers).toBe(0);
+    expect(result.pValue).toBeGreaterThan(ALPHA);
+  });
+
+  it('serves the families the other methods refused (n = 1e9 with minPart 2 and 100; 95,488,108 with 481)', async () => {
+    const { constrainedPartitionSampler } = await import('../../src/core/partitions/constrained/plan.js');
+    for (const [n, a] of [
+      [1e9, 2],
+      [1e9, 100],
+      [95_488_108, 481],
+    ]) {
+      const sampler = constrainedPartitionSampler({ kind: 'partition', n, minPart: a });
+      expect(sampler.method).toBe('minpart-self-similar/1');
+    }
+  });
+});

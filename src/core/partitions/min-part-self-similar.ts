@@ -1,4 +1,4 @@
-import { LogMinPartCounts, minPartSaddle } from '../counting/log-min-part-count.js';
+import { LogMinPartCounts, defaultExactUpTo, minPartSaddle } from '../counting/log-min-part-count.js';
 import { LogPartitionNumbers } from '../counting/log-partition-number.js';
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
@@ -238,11 +238,20 @@ export class MinPartSelfSimilarEngine {
 
 /** The method as a planner sampler for one (n, a), a >= 2. */
 export class MinPartSelfSimilarSampler implements PartitionSampler {
+  /**
+   * Largest a served: the counts it needs (b' <= 241) were checked against exact counts
+   * (test/partitions/log-min-part-count.test.ts checks b up to 481); beyond, the table end
+   * defaultExactUpTo(b) would be an extrapolation.
+   */
+  static readonly MAX_A = 482;
   readonly method = 'minpart-self-similar/1';
   readonly expectedLength: number;
   readonly expectedDistinct: number;
   readonly expectedWork: number;
+  /** Additions filling the count tables (time; ~1.4 ns each measured, 130 ms for a = 481). */
   readonly setupWork: number;
+  /** Doubles the tables hold (memory). */
+  readonly setupCells: number;
   private readonly engine: MinPartSelfSimilarEngine;
 
   constructor(
@@ -252,7 +261,9 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     baseThreshold = Math.min(MIN_PART_BASE_THRESHOLD, tables.table.maxN),
   ) {
     if (!Number.isInteger(n) || n < 0 || n > LogMinPartCounts.MAX_M) throw new RangeError(`n must be an integer in [0, ${LogMinPartCounts.MAX_M}], got ${n}`);
-    if (!Number.isInteger(a) || a < 2) throw new RangeError(`a must be an integer >= 2, got ${a}`);
+    if (!Number.isInteger(a) || a < 2 || a > MinPartSelfSimilarSampler.MAX_A) {
+      throw new RangeError(`a must be an integer in [2, ${MinPartSelfSimilarSampler.MAX_A}], got ${a}`);
+    }
     this.engine = new MinPartSelfSimilarEngine({ baseThreshold, tables });
     // Boltzmann means at the saddle point: parts Σ_{k>=a} x^k/(1 − x^k), distinct sizes Σ x^k.
     const t = minPartSaddle(a, Math.max(1, n));
@@ -277,8 +288,13 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     this.expectedWork = work;
     // Count tables for b' = ⌈a/2⌉, ⌈a/4⌉, ..., 2 and the base table.
     let setup = tables.table.size;
-    for (let bp = Math.ceil(a / 2); bp > 1; bp = Math.ceil(bp / 2)) setup += LogMinPartCounts.setupWork(bp);
+    let cells = tables.table.size;
+    for (let bp = Math.ceil(a / 2); bp > 1; bp = Math.ceil(bp / 2)) {
+      setup += LogMinPartCounts.setupWork(bp);
+      cells += 2 * (defaultExactUpTo(bp) + 1);
+    }
     this.setupWork = setup;
+    this.setupCells = cells;
   }
 
   sample(source: RandomSource, stats?: MinPartSelfSimilarStats): Partition {

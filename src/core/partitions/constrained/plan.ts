@@ -2,6 +2,7 @@ import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
+import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
@@ -178,6 +179,19 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
+    if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {
+      // Parts >= a and nothing else: the self-similar method with a family per level
+      // (min-part-self-similar.ts). Its setup is time (count tables of ~1e4 doubles each), so it
+      // fits on the sample-work limit and the memory it holds.
+      const sampler = new MinPartSelfSimilarSampler(n, lo);
+      out.push({
+        method: sampler.method,
+        setupWork: sampler.setupWork,
+        sampleWork: sampler.expectedWork,
+        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+        build: () => sampler,
+      });
+    }
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
