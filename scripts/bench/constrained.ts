@@ -49,6 +49,7 @@ export async function benchConstrained(): Promise<void> {
   console.log('constrained partitions: ms per sample (planner choice)');
   for (const row of rows) console.log(row);
   benchDistinctBeside();
+  benchMinPartBeside();
 }
 
 const BESIDE_SIZES = [1e6, 1e8, 1e9];
@@ -63,40 +64,52 @@ const BESIDE_ROUND_MS = 100;
 function benchDistinctBeside(): void {
   console.log('\ndistinct parts beside unrestricted: ms per sample (setup = planning + first sample)');
   console.log(['n', 'distinct', 'unrestricted', 'ratio', 'distinct ns/step'].join(' | '));
-  for (const n of BESIDE_SIZES) {
-    const make = (distinct: boolean): { sampler: PartitionSampler; setup: number } => {
-      const t0 = performance.now();
-      const sampler = planPartitionSampler({ kind: 'partition', n, ...(distinct ? { distinct: true } : {}) });
-      sampler.sample(sampleSource('bench', 0, 'setup'));
-      return { sampler, setup: performance.now() - t0 };
-    };
-    const d = make(true);
-    const u = make(false);
-    const time = { d: 0, u: 0 };
-    const count = { d: 0, u: 0 };
-    const round = (key: 'd' | 'u', sampler: PartitionSampler) => {
-      const t0 = performance.now();
-      let i = 0;
-      while (i < 2 || performance.now() - t0 < BESIDE_ROUND_MS) sampler.sample(sampleSource('bench', count[key] + i++, 'beside'));
-      time[key] += performance.now() - t0;
-      count[key] += i;
-    };
-    for (let r = 0; r < BESIDE_ROUNDS; r++) {
-      round('d', d.sampler);
-      round('u', u.sampler);
-    }
-    const dm = time.d / count.d;
-    const um = time.u / count.u;
-    console.log(
-      [
-        `n=${n.toExponential(0)}`,
-        `${dm.toFixed(3)} ms (${d.sampler.method}, setup ${d.setup.toFixed(0)} ms)`,
-        `${um.toFixed(3)} ms (${u.sampler.method}, setup ${u.setup.toFixed(0)} ms)`,
-        (dm / um).toFixed(2),
-        ((dm * 1e6) / d.sampler.expectedWork).toFixed(1),
-      ].join(' | '),
-    );
+  for (const n of BESIDE_SIZES) benchBeside(n, { distinct: true });
+}
+
+/**
+ * Parts >= a (minpart-self-similar) beside unrestricted partitions, as above. The setup of the
+ * first row for an a includes filling its count tables (shared by later rows with the same a).
+ */
+export function benchMinPartBeside(): void {
+  console.log('\nminPart beside unrestricted: ms per sample (setup = planning + first sample)');
+  console.log(['n', 'minPart', 'unrestricted', 'ratio', 'minPart ns/step'].join(' | '));
+  for (const a of [2, 7, 100]) for (const n of BESIDE_SIZES) benchBeside(n, { minPart: a });
+}
+
+function benchBeside(n: number, constraint: Omit<PartitionFamily, 'kind' | 'n'>): void {
+  const make = (constrained: boolean): { sampler: PartitionSampler; setup: number } => {
+    const t0 = performance.now();
+    const sampler = planPartitionSampler({ kind: 'partition', n, ...(constrained ? constraint : {}) } as PartitionFamily);
+    sampler.sample(sampleSource('bench', 0, 'setup'));
+    return { sampler, setup: performance.now() - t0 };
+  };
+  const d = make(true);
+  const u = make(false);
+  const time = { d: 0, u: 0 };
+  const count = { d: 0, u: 0 };
+  const round = (key: 'd' | 'u', sampler: PartitionSampler) => {
+    const t0 = performance.now();
+    let i = 0;
+    while (i < 2 || performance.now() - t0 < BESIDE_ROUND_MS) sampler.sample(sampleSource('bench', count[key] + i++, 'beside'));
+    time[key] += performance.now() - t0;
+    count[key] += i;
+  };
+  for (let r = 0; r < BESIDE_ROUNDS; r++) {
+    round('d', d.sampler);
+    round('u', u.sampler);
   }
+  const dm = time.d / count.d;
+  const um = time.u / count.u;
+  console.log(
+    [
+      `n=${n.toExponential(0)}${'minPart' in constraint ? `, minPart=${constraint.minPart}` : ''}`,
+      `${dm.toFixed(3)} ms (${d.sampler.method}, setup ${d.setup.toFixed(0)} ms)`,
+      `${um.toFixed(3)} ms (${u.sampler.method}, setup ${u.setup.toFixed(0)} ms)`,
+      (dm / um).toFixed(2),
+      ((dm * 1e6) / d.sampler.expectedWork).toFixed(1),
+    ].join(' | '),
+  );
 }
 
 if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop()!)) {

@@ -1,0 +1,321 @@
+import { LogMinPartCounts, defaultExactUpTo, minPartSaddle } from '../counting/log-min-part-count.js';
+import { LogPartitionNumbers } from '../counting/log-partition-number.js';
+import type { Partition } from '../partition.js';
+import type { RandomSource } from '../random.js';
+import type { PartitionSampler } from '../sampler.js';
+import { BoltzmannProposal } from './boltzmann-proposal.js';
+import { MinPartTable } from './min-part-table.js';
+import { SelfSimilarEngine } from './self-similar.js';
+import { RestrictedPartitionTable } from './table-recursive.js';
+
+/**
+ * Exact uniform partitions of n into parts >= a (a >= 2) by self-similarity, one family per
+ * level (the minPart version of self-similar.ts).
+ *
+ * A partition into parts >= b is the pair (A, 2μ): A its odd parts (all >= b) and μ its even
+ * parts halved, a partition into parts >= b' = ⌈b/2⌉, with |A| + 2|μ| = n. All pairs are equally
+ * likely, so A must have P(A) ∝ c_{b'}((n − |A|)/2), c_b(m) the number of partitions of m into
+ * parts >= b (log-min-part-count.ts), and μ is then uniform of its size: the same problem with
+ * b' (level l + 1), until b' = 1, where the unrestricted self-similar engine takes over, or the
+ * size is <= baseThreshold, where a table does (min-part-table.ts).
+ *
+ * One level at size n, smallest odd size s = b or b + 1 (whichever is odd), x = e^{−t}:
+ *   1. Draw the odd multiplicities of sizes >= s + 2 at x (BoltzmannProposal): P(A') ∝ x^{|A'|}.
+ *      Let j0 = (n − |A'|) mod 2.
+ *   2. X_s = j0 + 2G, G ~ Geometric(x^{2s}): since s is odd, s·X_s has the parity of X_s, so only
+ *      the parity that can complete the size is drawn. Jointly P(A', X_s) ∝ x^{|A| − s·j0}.
+ *   3. T = |A|; reject if T > n; m = (n − T)/2. Accept with probability
+ *        c_{b'}(m)·x^{2m}·x^{s·j0} / M,   M = max_{0<=m'<=n/2} c_{b'}(m')·x^{2m'}   (x < 1).
+ *      Then P(A accepted) ∝ x^{T − s·j0}·c_{b'}(m)x^{2m}x^{s·j0} = x^n·c_{b'}(m) ∝ c_{b'}(m).
+ *   4. Recurse on (m, b'); the parts of μ are doubled (level l holds odd multiples of 2^l).
+ * Any x is exact; t is the saddle point of partitions into parts >= b at mean size n (Boltzmann
+ * mean = n), where, as in the unrestricted case, the acceptance tends to a ratio of Gaussian
+ * widths. With b ≪ √n the sizes shrink by about 4 and b by 2 per level, so b·t stays about
+ * constant and after ⌈log₂ a⌉ levels the unrestricted engine finishes.
+ *
+ * The maximiser M: log c_{b'} is concave above its last log-concavity failure L (found exactly on
+ * the count table; above the table the saddle-point values, checked concave on a grid in the
+ * tests), so m' >= L is searched by bisection on the sign of the forward difference, and m' < L
+ * is scanned directly unless the peak is above log c_{b'}(L), which bounds every weight there
+ * (c_{b'} is non-decreasing for m >= 1 — add 1 to the largest part — and x < 1).
+ */
+export interface MinPartSelfSimilarOptions {
+  /** Sub-problems of size <= this use the table (<= table.maxN). */
+  readonly baseThreshold: number;
+  readonly tables: MinPartSelfSimilarTables;
+}
+
+export interface MinPartSelfSimilarStats {
+  topProposals: number;
+  proposals: number;
+  visited: number;
+}
+
+/** The count tables and engines shared by the samplers: filled lazily, owned by this object. */
+export class MinPartSelfSimilarTables {
+  private readonly counts = new Map<number, LogMinPartCounts>();
+  readonly table: MinPartTable;
+  readonly unrestricted: SelfSimilarEngine;
+  readonly logP: LogPartitionNumbers;
+
+  constructor(baseThreshold = MIN_PART_BASE_THRESHOLD) {
+    this.table = new MinPartTable(baseThreshold);
+    this.logP = new LogPartitionNumbers();
+    this.unrestricted = new SelfSimilarEngine({
+      baseThreshold: UNRESTRICTED_BASE,
+      table: new RestrictedPartitionTable(),
+      logP: this.logP,
+    });
+  }
+
+  /** log c_b for b >= 1 (b = 1: the partition numbers). */
+  countsFor(b: number): Counts {
+    if (b === 1) return { logRatio: (x, y) => this.logP.logRatio(x, y), log: (m) => this.logP.log(m), logConcaveFrom: () => 26 };
+    let c = this.counts.get(b);
+    if (c === undefined) {
+      c = new LogMinPartCounts(b);
+      this.counts.set(b, c);
+    }
+    return c;
+  }
+}
+
+interface Counts {
+  logRatio(m1: number, m2: number): number;
+  log(m: number): number;
+  logConcaveFrom(): number;
+}
+
+/** Sub-problems up to this size use the min-part table (201 × 202 cells). */
+export const MIN_PART_BASE_THRESHOLD = 200;
+/** The unrestricted engine's own table threshold (as unrestricted.ts). */
+const UNRESTRICTED_BASE = 1000;
+
+interface Level {
+  proposal: BoltzmannProposal;
+  /** Smallest odd size and its multiplicity in the accepted proposal. */
+  s: number;
+  xs: number;
+}
+
+export class MinPartSelfSimilarEngine {
+  private readonly levels: Level[] = [];
+
+  constructor(private readonly options: MinPartSelfSimilarOptions) {
+    if (!Number.isInteger(options.baseThreshold) || options.baseThreshold < 0 || options.baseThreshold > options.tables.table.maxN) {
+      throw new RangeError(`base threshold must be an integer in [0, ${options.tables.table.maxN}], got ${options.baseThreshold}`);
+    }
+  }
+
+  /** A uniform partition of n into parts >= a (multiplicity form, sizes descending). */
+  sample(source: RandomSource, n: number, a: number, stats?: MinPartSelfSimilarStats): Partition {
+    let level = 0;
+    let current = n;
+    let b = a;
+    const tables = this.options.tables;
+    // Deepest part first collected ascending, then merged level by level.
+    let sizes: number[] = [];
+    let mults: number[] = [];
+    for (;;) {
+      if (b === 1) {
+        const mu = tables.unrestricted.sample(source, current);
+        const scale = 2 ** level;
+        for (let i = mu.sizes.length - 1; i >= 0; i--) {
+          sizes.push(mu.sizes[i] * scale);
+          mults.push(mu.multiplicities[i]);
+        }
+        break;
+      }
+      if (current <= this.options.baseThreshold) {
+        const steps = tables.table.sample(source, current, b, 2 ** level, sizes, mults);
+        if (stats) stats.visited += steps;
+        break;
+      }
+      if (level === this.levels.length) this.levels.push({ proposal: new BoltzmannProposal(), s: 0, xs: 0 });
+      current = this.reduce(source, current, b, this.levels[level], level === 0 ? stats : undefined, stats);
+      b = Math.ceil(b / 2);
+      level++;
+    }
+    // Merge shallower levels (odd multiples of 2^l, so no size repeats) into the ascending list.
+    for (let l = level - 1; l >= 0; l--) [sizes, mults] = this.mergeLevel(l, sizes, mults);
+    sizes.reverse();
+    mults.reverse();
+    return { sizes, multiplicities: mults };
+  }
+
+  /** Merges level l's parts (times 2^l) into the ascending lists. */
+  private mergeLevel(l: number, sizes: number[], mults: number[]): [number[], number[]] {
+    const { proposal: p, s, xs } = this.levels[l];
+    const scale = 2 ** l;
+    const outSizes: number[] = [];
+    const outMults: number[] = [];
+    let read = 0;
+    const push = (size: number, mult: number) => {
+      while (read < sizes.length && sizes[read] < size) {
+        outSizes.push(sizes[read]);
+        outMults.push(mults[read]);
+        read++;
+      }
+      outSizes.push(size);
+      outMults.push(mult);
+    };
+    if (xs > 0) push(s * scale, xs);
+    for (let i = 0; i < p.count; i++) push(p.sizes[i] * scale, p.multiplicities[i]);
+    while (read < sizes.length) {
+      outSizes.push(sizes[read]);
+      outMults.push(mults[read]);
+      read++;
+    }
+    return [outSizes, outMults];
+  }
+
+  /** Steps 1–3 at (n, b) until acceptance; leaves A in `level`, returns m. */
+  private reduce(
+    source: RandomSource,
+    n: number,
+    b: number,
+    level: Level,
+    top?: MinPartSelfSimilarStats,
+    all?: MinPartSelfSimilarStats,
+  ): number {
+    const counts = this.options.tables.countsFor(Math.ceil(b / 2));
+    const logX = -minPartSaddle(b, n);
+    const best = this.maximiser(counts, n, logX);
+    const s = b % 2 === 1 ? b : b + 1;
+    const logXs2 = 2 * s * logX;
+    for (;;) {
+      const rest = level.proposal.draw(source, logX, s + 2, 2, n);
+      if (top) top.topProposals++;
+      if (all) {
+        all.proposals++;
+        all.visited += level.proposal.visited;
+      }
+      if (rest === BoltzmannProposal.OVER) continue;
+      const j0 = (n - rest) % 2;
+      // G ~ Geometric(x^{2s}): P(G >= g) = x^{2sg}.
+      const u = 1 - source.nextDouble();
+      let g = 0;
+      if (u < Math.exp(logXs2)) g = Math.max(1, Math.floor(Math.log(u) / logXs2));
+      const xs = j0 + 2 * g;
+      const t = rest + s * xs;
+      if (t > n) continue;
+      const m = (n - t) / 2;
+      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
+      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
+        level.s = s;
+        level.xs = xs;
+        return m;
+      }
+    }
+  }
+
+  /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment). */
+  maximiser(counts: Counts, n: number, logX: number): number {
+    const half = Math.floor(n / 2);
+    const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
+    const from = counts.logConcaveFrom();
+    if (half <= from) {
+      // No concave range: a direct scan (c(0) = 1 > 0, so best starts there).
+      let best = 0;
+      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
+      return best;
+    }
+    // Bisection on [from, half] for the last m with weight(m, m − 1) > 0 (concave: a sign change once).
+    let lo = from;
+    let hi = half;
+    while (lo < hi) {
+      const mid = Math.ceil((lo + hi) / 2);
+      if (weight(mid, mid - 1) > 0) lo = mid;
+      else hi = mid - 1;
+    }
+    let m = lo;
+    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+      for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
+    }
+    return m;
+  }
+}
+
+/** The method as a planner sampler for one (n, a), a >= 2. */
+export class MinPartSelfSimilarSampler implements PartitionSampler {
+  /**
+   * Largest a served: the counts it needs (b' <= 241) were checked against exact counts
+   * (test/partitions/log-min-part-count.test.ts checks b up to 481); beyond, the table end
+   * defaultExactUpTo(b) would be an extrapolation.
+   */
+  static readonly MAX_A = 482;
+  readonly method = 'minpart-self-similar/1';
+  readonly expectedLength: number;
+  readonly expectedDistinct: number;
+  readonly expectedWork: number;
+  /** Additions filling the count tables (time; ~1.4 ns each measured, 130 ms for a = 481). */
+  readonly setupWork: number;
+  /** Doubles the tables hold (memory). */
+  readonly setupCells: number;
+  private readonly engine: MinPartSelfSimilarEngine;
+
+  constructor(
+    readonly n: number,
+    readonly a: number,
+    tables: MinPartSelfSimilarTables = defaultTables(),
+    baseThreshold = Math.min(MIN_PART_BASE_THRESHOLD, tables.table.maxN),
+  ) {
+    if (!Number.isInteger(n) || n < 0 || n > LogMinPartCounts.MAX_M) throw new RangeError(`n must be an integer in [0, ${LogMinPartCounts.MAX_M}], got ${n}`);
+    if (!Number.isInteger(a) || a < 2 || a > MinPartSelfSimilarSampler.MAX_A) {
+      throw new RangeError(`a must be an integer in [2, ${MinPartSelfSimilarSampler.MAX_A}], got ${a}`);
+    }
+    this.engine = new MinPartSelfSimilarEngine({ baseThreshold, tables });
+    // Boltzmann means at the saddle point: parts Σ_{k>=a} x^k/(1 − x^k), distinct sizes Σ x^k.
+    const t = minPartSaddle(a, Math.max(1, n));
+    const e1 = Math.exp(-a * t);
+    this.expectedDistinct = Math.max(1, e1 / -Math.expm1(-t));
+    // Σ_{k>=1} x^k/(1 − x^k) ≈ (ln(1/t) + γ)/t + 1/4 (Lambert series at x = e^{−t}), minus sizes < a.
+    this.expectedLength = Math.max(1, (Math.log(1 / t) + EULER_GAMMA) / t + 0.25 - partialLog(a, t));
+    // Per level: ~1.4 proposals × the proposal's visited sizes (≈ 1.2/t over odd sizes, measured
+    // for the unrestricted engine) + one count per proposal (≈ COUNT_NODES·b' steps) + the
+    // maximiser's bisection (~2·log₂ n counts).
+    let work = 2 * this.expectedDistinct + 1000;
+    let size = n;
+    let b = a;
+    while (b > 1 && size > baseThreshold) {
+      const tl = minPartSaddle(b, size);
+      const bp = Math.ceil(b / 2);
+      work += 1.4 * (1.2 / tl + COUNT_NODES * bp) + 2 * Math.log2(size) * COUNT_NODES * bp;
+      size = Math.round(size / 4);
+      b = bp;
+    }
+    if (b === 1 && size > UNRESTRICTED_BASE) work += 2.3 * (Math.sqrt(6 * size) / Math.PI);
+    this.expectedWork = work;
+    // Count tables for b' = ⌈a/2⌉, ⌈a/4⌉, ..., 2 and the base table.
+    let setup = tables.table.size;
+    let cells = tables.table.size;
+    for (let bp = Math.ceil(a / 2); bp > 1; bp = Math.ceil(bp / 2)) {
+      setup += LogMinPartCounts.setupWork(bp);
+      cells += 2 * (defaultExactUpTo(bp) + 1);
+    }
+    this.setupWork = setup;
+    this.setupCells = cells;
+  }
+
+  sample(source: RandomSource, stats?: MinPartSelfSimilarStats): Partition {
+    return this.engine.sample(source, this.n, this.a, stats);
+  }
+}
+
+/** Steps per count above the table: ~40 trapezoid nodes plus Newton, each over b' factors. */
+const COUNT_NODES = 50;
+
+const EULER_GAMMA = 0.5772156649015329;
+
+/** Σ_{k<a} x^k/(1 − x^k): the Boltzmann mean number of parts of sizes below a. */
+function partialLog(a: number, t: number): number {
+  let s = 0;
+  for (let k = 1; k < a; k++) s += Math.exp(-k * t) / -Math.expm1(-k * t);
+  return s;
+}
+
+let shared: MinPartSelfSimilarTables | null = null;
+function defaultTables(): MinPartSelfSimilarTables {
+  shared ??= new MinPartSelfSimilarTables();
+  return shared;
+}
