@@ -1,8 +1,9 @@
 import type { PartitionFamily } from '../family.js';
 import type { Partition } from '../partition.js';
-import { EXACT_LARGEST_PART_MAX_N, gumbelScaling, largestPartLaw } from './largest-part.js';
+import { EXACT_LARGEST_PART_MAX_N, gumbelScaling, largestPartLaw, TRUNCATED_LAW_MAX_N, truncatedLargestPartLaw } from './largest-part.js';
+import { onesLaw, onesQuantity, onesStatistic } from './ones.js';
 import { BoundaryAverage, boundaryGrid, DISTINCT_LIMIT_SHAPE, PARTITION_LIMIT_SHAPE, type LimitShape } from './limit-shape.js';
-import { exactLawReport, gumbelCdf, integerKolmogorovSmirnov, type ChiSquareCell } from './statistics.js';
+import { exactLawReport, type ExactLawReport, gumbelCdf, integerKolmogorovSmirnov, type ChiSquareCell } from './statistics.js';
 import { LimitExceededError } from '../errors.js';
 
 /** The false-alarm level the check's verdict uses (one test per request). */
@@ -26,6 +27,23 @@ export interface LargestPartReport {
   readonly cells?: readonly ChiSquareCell[];
   /** Gumbel centring and scale: (λ1 − location)/scale is compared with the standard Gumbel law. */
   readonly gumbel?: { readonly location: number; readonly scale: number };
+  /** true for the Gumbel law: a limit law, its p-value is shown but not used for `passed`. */
+  readonly asymptotic?: boolean;
+}
+
+/** A statistic with an exact law at every n (ones.ts), tested by chi-square. */
+export interface OnesReport extends ExactLawReport {
+  readonly quantity: string;
+}
+
+/** The test `passed` comes from: always against an exact law, at alpha = CHECK_ALPHA. */
+export interface Verdict {
+  readonly quantity: string;
+  readonly law: 'exact';
+  readonly test: 'chi-square';
+  readonly statistic: number;
+  readonly pValue: number | null;
+  readonly degreesOfFreedom: number;
 }
 
 export interface BoundaryReport {
@@ -42,6 +60,10 @@ export interface PartitionCheckReport {
   readonly largestPart: LargestPartReport;
   /** null for families without a known limit shape (any constraint but distinct). */
   readonly boundary: BoundaryReport | null;
+  /** The exact law of the ones statistic (unconstrained or distinct families; null otherwise). */
+  readonly ones: OnesReport | null;
+  /** The exact-law test `passed` uses: the largest part where its exact law is tabulated, else ones. */
+  readonly verdict: Verdict;
 }
 
 /** The limit shape of a family, if one is known: unconstrained or distinct parts only. */
@@ -60,15 +82,19 @@ export function limitShapeOf(family: PartitionFamily): LimitShape | null {
  */
 export function checkPartitionSamples(family: PartitionFamily, samples: Iterable<Partition>): PartitionCheckReport {
   const n = family.n;
-  const exact = n <= EXACT_LARGEST_PART_MAX_N;
   const shape = limitShapeOf(family);
+  const distinct = family.distinct === true;
+  const truncatedReach = distinct ? TRUNCATED_LAW_MAX_N.distinct : TRUNCATED_LAW_MAX_N.unrestricted;
+  const truncated = shape !== null && n > EXACT_LARGEST_PART_MAX_N && n <= truncatedReach;
+  const exact = n <= EXACT_LARGEST_PART_MAX_N || truncated;
   if (!exact && shape === null) {
     throw new LimitExceededError(
       `for n above ${EXACT_LARGEST_PART_MAX_N} the check knows a law only for unconstrained or distinct-parts partitions`,
       `n <= ${EXACT_LARGEST_PART_MAX_N} with these constraints`,
     );
   }
-  const law = exact ? largestPartLaw(family) : null;
+  const law = truncated ? truncatedLargestPartLaw(n, distinct) : exact ? largestPartLaw(family) : null;
+  const ones = new Map<number, number>();
   const xs = shape && n > 0 ? boundaryGrid(shape) : [];
   const boundary = new BoundaryAverage(n, xs);
   const largest = new Map<number, number>();
@@ -77,9 +103,14 @@ export function checkPartitionSamples(family: PartitionFamily, samples: Iterable
     const top = partition.sizes.length > 0 ? partition.sizes[0] : 0;
     largest.set(top, (largest.get(top) ?? 0) + 1);
     if (xs.length > 0) boundary.add(partition);
+    if (shape) {
+      const x = onesStatistic(partition, distinct);
+      ones.set(x, (ones.get(x) ?? 0) + 1);
+    }
     total++;
   }
-  const largestPart = law ? exactReport(law.probabilities, largest) : gumbelReport(n, family.distinct === true, largest);
+  const largestPart = law ? exactReport(law.probabilities, largest) : gumbelReport(n, distinct, largest);
+  const onesReport = shape ? onesExactReport(n, distinct, ones) : null;
   let boundaryReport: BoundaryReport | null = null;
   if (shape && xs.length > 0 && total > 0) {
     const means = boundary.means();
@@ -92,7 +123,23 @@ export function checkPartitionSamples(family: PartitionFamily, samples: Iterable
       maxDeviation: Math.max(...points.map((p) => Math.abs(p.mean - p.limit))),
     };
   }
-  return { samples: total, largestPart, boundary: boundaryReport };
+  const source = largestPart.law === 'exact' ? { quantity: 'largest part', report: largestPart } : { quantity: onesReport!.quantity, report: onesReport! };
+  const verdict: Verdict = {
+    quantity: source.quantity,
+    law: 'exact',
+    test: 'chi-square',
+    statistic: source.report.statistic,
+    pValue: source.report.pValue,
+    degreesOfFreedom: source.report.degreesOfFreedom!,
+  };
+  return { samples: total, largestPart, boundary: boundaryReport, ones: onesReport, verdict };
+}
+
+function onesExactReport(n: number, distinct: boolean, counts: Map<number, number>): OnesReport {
+  const top = counts.size > 0 ? Math.max(...counts.keys()) : 0;
+  const law = onesLaw(n, distinct, top);
+  const report = exactReport(law, counts);
+  return { quantity: onesQuantity(distinct), ...(report as ExactLawReport) };
 }
 
 function exactReport(probabilities: Float64Array, largest: Map<number, number>): LargestPartReport {
@@ -144,5 +191,6 @@ function gumbelReport(n: number, distinct: boolean, largest: Map<number, number>
     observed,
     expected,
     gumbel: { location, scale: a },
+    asymptotic: true,
   };
 }

@@ -1,5 +1,7 @@
 import { EmptyFamilyError, LimitExceededError } from '../errors.js';
 import type { PartitionFamily } from '../family.js';
+import { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
+import { LogPartitionNumbers } from '../counting/log-partition-number.js';
 
 /** Largest n for which the exact law of the largest part is tabulated (O(n · sizes) additions). */
 export const EXACT_LARGEST_PART_MAX_N = 5000;
@@ -82,6 +84,76 @@ export function largestPartLaw(family: PartitionFamily): { probabilities: Float6
   const probabilities = new Float64Array(n + 1);
   for (let m = 0; m <= n; m++) probabilities[m] = byLargest[m] / count;
   return { probabilities, count };
+}
+
+/** P(λ1 > m) below this is left in one tail cell by the truncated exact law. */
+export const LARGEST_PART_TAIL = 1e-15;
+
+/**
+ * Largest n for which truncatedLargestPartLaw tabulates the unconstrained (resp. distinct-parts)
+ * family within EXACT_TABLE_MAX_WORK additions: truncatedLawWork at these n is just below the cap
+ * (measured maxima 13653 and 11602; test/pictures/largest-part-law.test.ts checks the cap holds).
+ */
+export const TRUNCATED_LAW_MAX_N = { unrestricted: 13_600, distinct: 11_600 } as const;
+
+/**
+ * The smallest m with P(λ1 > m) < LARGEST_PART_TAIL, from the union bound
+ * P(λ1 > m) <= Σ_{k>m} P(k is a part), and P(k is a part) = p(n − k)/p(n) (remove one k), resp.
+ * <= q(n − k)/q(n) for distinct parts (remove k: a distinct partition of n − k without k).
+ */
+export function largestPartCut(n: number, distinct: boolean): number {
+  const logs = distinct ? new LogDistinctPartitionNumbers() : new LogPartitionNumbers();
+  let tail = 0;
+  for (let m = n - 1; m >= 0; m--) {
+    tail += Math.exp(logs.logRatio(n - (m + 1), n));
+    if (tail >= LARGEST_PART_TAIL) return Math.min(n, m + 1);
+  }
+  return 0;
+}
+
+/** The additions truncatedLargestPartLaw makes: Σ_{s=1}^{cut} (n − s + 1). */
+export function truncatedLawWork(n: number, distinct: boolean): number {
+  const cut = largestPartCut(n, distinct);
+  return cut * (n + 1) - (cut * (cut - 1)) / 2;
+}
+
+/**
+ * The exact law of the largest part of a uniform partition of n (unconstrained, or into distinct
+ * parts), truncated where the tail is negligible: probabilities[m] = P(λ1 = m) for m <= cut, and
+ * probabilities[cut + 1] = P(λ1 > cut) (< LARGEST_PART_TAIL, computed as 1 − the rest).
+ *
+ * The same table as largestPartLaw multiplies in the factors 1/(1 − q^s) (resp. 1 + q^s) only for
+ * s <= cut, so it costs n·cut additions instead of n², and the total count comes independently
+ * from log p(n) (Rademacher) or log q(n) (Hua). No scaling is needed: within the work cap
+ * (n <= 13600) the largest entry p(n) ≈ 1e127, far from the double range's end; a
+ * non-finite entry is refused all the same. Relative rounding of each entry about cut·2^-53.
+ */
+export function truncatedLargestPartLaw(n: number, distinct: boolean): { probabilities: Float64Array; cut: number; work: number } {
+  const work = truncatedLawWork(n, distinct);
+  if (work > EXACT_TABLE_MAX_WORK) {
+    throw new LimitExceededError(
+      `the exact law of the largest part needs about ${work.toExponential(1)} additions at n = ${n}; the limit is ${EXACT_TABLE_MAX_WORK.toExponential(1)}`,
+      `n <= ${distinct ? TRUNCATED_LAW_MAX_N.distinct : TRUNCATED_LAW_MAX_N.unrestricted}`,
+    );
+  }
+  const cut = largestPartCut(n, distinct);
+  const logCount = distinct ? new LogDistinctPartitionNumbers().log(n) : new LogPartitionNumbers().log(n);
+  const ways = new Float64Array(n + 1);
+  ways[0] = 1;
+  const probabilities = new Float64Array(cut + 2);
+  if (n === 0) probabilities[0] = 1;
+  let kept = 0;
+  for (let s = 1; s <= cut; s++) {
+    const before = ways[n];
+    if (distinct) for (let k = n; k >= s; k--) ways[k] += ways[k - s];
+    else for (let k = s; k <= n; k++) ways[k] += ways[k - s];
+    probabilities[s] = Math.exp(Math.log(ways[n] - before) - logCount);
+    if (ways[n] === before) probabilities[s] = 0;
+    kept += probabilities[s];
+  }
+  if (!Number.isFinite(ways[n])) throw new RangeError(`the largest-part table overflowed at n = ${n}`);
+  if (n > 0) probabilities[cut + 1] = Math.max(0, 1 - kept);
+  return { probabilities, cut, work };
 }
 
 /**
