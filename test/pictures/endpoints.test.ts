@@ -32,6 +32,28 @@ describe('GET /v1/partitions/check', () => {
     expect(svg).not.toMatch(/style/);
   });
 
+  it('above the largest-part table, plots the verdict\'s exact law first and marks the Gumbel plot as asymptotic', async () => {
+    // n = 20,000 > 13,600: the verdict is the exact law of the number of 1s (JSON `quantity`).
+    for (const [query, quantity] of [
+      ['n=20000', 'number of 1s'],
+      ['n=20000&distinct=true', 'sum of power-of-2 parts'],
+    ]) {
+      const json = await (await app.request(`/v1/partitions/check?${query}&samples=300&seed=endpoint`)).json();
+      expect(json.largestPart.asymptotic).toBe(true);
+      expect(json.quantity).toBe(json.ones.quantity);
+      const svg = await (await app.request(`/v1/partitions/check?${query}&samples=300&seed=endpoint&format=svg`)).text();
+      parseXml(svg);
+      const titles = [...svg.matchAll(/aria-label="Histogram of the ([^"]*?) of 300 samples against the ([^;"]*);([^"]*)"/g)];
+      expect(titles.map((t) => [t[1], t[2]])).toEqual([
+        [quantity, 'exact law'],
+        ['largest part', 'Gumbel limit'],
+      ]);
+      // The first plot's verdict is the JSON's headline test; the Gumbel one says it is not.
+      expect(titles[0][3]).toContain(`χ² = ${json.statistic.toFixed(2)} on ${json.degreesOfFreedom ?? json.ones.degreesOfFreedom} df`);
+      expect(titles[1][3]).toMatch(/asymptotic, not the verdict/);
+    }
+  });
+
   it('bounds samples and work', async () => {
     expect((await app.request('/v1/partitions/check?n=30&samples=20001')).status).toBe(400);
     const small = createApp({ limits: { workBudgetMs: 10 } });

@@ -1,4 +1,6 @@
-import type { BoundaryReport, LargestPartReport } from './check.js';
+import type { BoundaryReport, LargestPartReport, PartitionCheckReport } from './check.js';
+import { onesShortQuantity } from './ones.js';
+import type { ExactLawReport } from './statistics.js';
 import { el, escapeXml, FONT, num, PALETTE, svgRoot } from './svg.js';
 
 const W = 560;
@@ -17,19 +19,43 @@ export interface HistogramInput {
   readonly verdict: string;
 }
 
-/** Turns a largest-part report into plot input (the Gumbel case plots its discretised density). */
+/** A statistic tested by chi-square against its exact law, as plot input. */
+export function exactLawHistogram(quantity: string, report: ExactLawReport): HistogramInput {
+  return {
+    quantity,
+    offset: report.offset,
+    observed: report.observed,
+    probabilities: report.expected,
+    lawName: 'exact law',
+    verdict: verdictText(report.test, report.statistic, report.pValue, report.degreesOfFreedom),
+  };
+}
+
+/**
+ * The histograms of a partition check, the verdict's first: the largest part where its exact
+ * law is tabulated; above that the ones statistic (its exact law gives the verdict), then the
+ * largest part against its limit law.
+ */
+export function checkHistograms(report: PartitionCheckReport, distinct: boolean): HistogramInput[] {
+  const largest = largestPartHistogram(report.largestPart);
+  if (report.largestPart.law === 'exact' || !report.ones) return [largest];
+  return [exactLawHistogram(onesShortQuantity(distinct), report.ones), largest];
+}
+
+/**
+ * Turns a largest-part report into plot input. Against the Gumbel limit law (large n) the plot
+ * shows its discretised density, and says that its p-value is asymptotic and not the verdict
+ * (which then comes from the exact law of the ones statistic, plotted beside it).
+ */
 export function largestPartHistogram(report: LargestPartReport): HistogramInput {
-  const probabilities =
-    report.law === 'exact'
-      ? report.expected
-      : report.expected.map((cdfAbove, i) => cdfAbove - (i === 0 ? cdfBelow(report) : report.expected[i - 1]));
+  if (report.law === 'exact') return exactLawHistogram('largest part', report as LargestPartReport & ExactLawReport);
   return {
     quantity: 'largest part',
     offset: report.offset,
     observed: report.observed,
-    probabilities,
-    lawName: report.law === 'exact' ? 'exact law' : 'Erdős–Lehner (Gumbel)',
-    verdict: verdictText(report.test, report.statistic, report.pValue, report.degreesOfFreedom),
+    probabilities: report.expected.map((cdfAbove, i) => cdfAbove - (i === 0 ? cdfBelow(report) : report.expected[i - 1])),
+    lawName: 'Gumbel limit',
+    verdict: `${verdictText(report.test, report.statistic, report.pValue, report.degreesOfFreedom)} (Erdős–Lehner limit law: asymptotic, not the verdict)`,
   };
 }
 

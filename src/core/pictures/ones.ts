@@ -27,6 +27,11 @@ export function onesStatistic(partition: Partition, distinct: boolean): number {
   return total;
 }
 
+/** A short name of the statistic, for plot titles and axes. */
+export function onesShortQuantity(distinct: boolean): string {
+  return distinct ? 'sum of power-of-2 parts' : 'number of 1s';
+}
+
 /** The name of the statistic, as reported. */
 export function onesQuantity(distinct: boolean): string {
   return distinct ? 'sum of the power-of-2 parts (ones of the Glaisher image)' : 'multiplicity of the part 1';

@@ -1,6 +1,6 @@
 import { CHECK_ALPHA } from '../../core/pictures/check.js';
-import { formatP, histogramSvg } from '../../core/pictures/check-svg.js';
-import { compositionPartsHistogram, type CompositionCheck } from '../routes/composition-check.js';
+import { exactLawHistogram, formatP, histogramSvg } from '../../core/pictures/check-svg.js';
+import type { CompositionCheck } from '../routes/composition-check.js';
 import type { FormState, PageQuery } from './form.js';
 import { queryString } from './form.js';
 import { html, trusted, type Html } from './html.js';
@@ -35,7 +35,7 @@ export function compositionCheckSection(form: FormState, seed: string, check: Co
         ? html`<strong>Consistent with uniform.</strong> ${report.samples.toLocaleString('en-US')} samples against ${law}: p = ${formatP(report.pValue!)} (a uniform sampler falls below α = ${CHECK_ALPHA} once in ${1 / CHECK_ALPHA} checks).`
         : html`<strong>Not consistent with uniform.</strong> ${report.samples.toLocaleString('en-US')} samples against ${law}: p = ${formatP(report.pValue!)} &lt; α = ${CHECK_ALPHA}.`}</p>
   </div>
-  <div class="plots"><figure>${trusted(histogramSvg(compositionPartsHistogram(report)))}</figure></div>
+  <div class="plots"><figure>${trusted(histogramSvg(exactLawHistogram('number of parts', report)))}</figure></div>
   <table class="stats">
     <tr><th scope="row">Test</th><td>Pearson chi-square on ${report.degreesOfFreedom} degrees of freedom</td></tr>
     <tr><th scope="row">Statistic</th><td>${report.statistic.toFixed(4)}</td></tr>

@@ -3,7 +3,7 @@ import { familyKey } from '../../core/family.js';
 import { partsOf } from '../../core/partition.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { CHECK_ALPHA } from '../../core/pictures/check.js';
-import { boundarySvg, formatP, histogramSvg, largestPartHistogram } from '../../core/pictures/check-svg.js';
+import { boundarySvg, checkHistograms, formatP, histogramSvg } from '../../core/pictures/check-svg.js';
 import { DIAGRAM_LIMITS } from '../../core/pictures/ferrers.js';
 import { compositionSvg } from '../../core/pictures/composition-svg.js';
 import { ferrersSvg } from '../../core/pictures/ferrers-svg.js';
@@ -340,7 +340,7 @@ function checkSection(form: FormState, drawn: Drawn, check: PartitionCheck | nul
         : html`<strong>Not consistent with uniform.</strong> ${check.report.samples.toLocaleString('en-US')} samples against ${lawText}: p = ${formatP(v.pValue!)} &lt; α = ${CHECK_ALPHA}.`}</p>
   </div>
   <div class="plots">
-    <figure>${trusted(histogramSvg(largestPartHistogram(lp)))}</figure>
+    ${checkHistograms(check.report, check.family.distinct === true).map((h) => html`<figure>${trusted(histogramSvg(h))}</figure>`)}
     ${check.report.boundary ? html`<figure>${trusted(boundarySvg(check.report.boundary, check.report.samples))}</figure>` : null}
   </div>
   <table class="stats">

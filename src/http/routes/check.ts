@@ -2,7 +2,7 @@ import { familyKey, type PartitionFamily } from '../../core/family.js';
 import type { Partition } from '../../core/partition.js';
 import { planPartitionSampler } from '../../core/partitions/plan.js';
 import { CHECK_ALPHA, checkPartitionSamples, type PartitionCheckReport } from '../../core/pictures/check.js';
-import { boundarySvg, histogramSvg, largestPartHistogram, stackedSvg } from '../../core/pictures/check-svg.js';
+import { boundarySvg, checkHistograms, histogramSvg, stackedSvg } from '../../core/pictures/check-svg.js';
 import { sampleSource } from '../../core/seeding.js';
 import { defineEndpoint } from '../endpoint.js';
 import type { Limits } from '../limits.js';
@@ -39,7 +39,7 @@ export function runPartitionCheck(query: Parameters<typeof partitionFamilyOf>[0]
 
 /** Both plots of a check, stacked (format=svg). */
 export function checkSvg(check: PartitionCheck): string {
-  const drawings = [histogramSvg(largestPartHistogram(check.report.largestPart))];
+  const drawings = checkHistograms(check.report, check.family.distinct === true).map(histogramSvg);
   if (check.report.boundary) drawings.push(boundarySvg(check.report.boundary, check.report.samples));
   return stackedSvg(`Distribution check of ${check.report.samples} samples of partitions of ${check.family.n}`, drawings);
 }

@@ -1,7 +1,7 @@
 import { planCompositionSampler } from '../../core/compositions/plan.js';
 import { familyKey, type CompositionFamily } from '../../core/family.js';
 import { CHECK_ALPHA } from '../../core/pictures/check.js';
-import { histogramSvg, stackedSvg, verdictText, type HistogramInput } from '../../core/pictures/check-svg.js';
+import { exactLawHistogram, histogramSvg, stackedSvg } from '../../core/pictures/check-svg.js';
 import { checkCompositionParts, type CompositionPartsReport } from '../../core/pictures/composition-parts.js';
 import type { CompositionSampler } from '../../core/sampler.js';
 import { sampleSource } from '../../core/seeding.js';
@@ -55,19 +55,8 @@ export function runCompositionCheck(n: number, samples: number, seed: string, li
 }
 
 /** The plot input: observed numbers of parts against the exact binomial law. */
-export function compositionPartsHistogram(report: CompositionPartsReport): HistogramInput {
-  return {
-    quantity: 'number of parts',
-    offset: report.offset,
-    observed: report.observed,
-    probabilities: report.expected,
-    lawName: 'exact law',
-    verdict: verdictText(report.test, report.statistic, report.pValue, report.degreesOfFreedom),
-  };
-}
-
 export function compositionCheckSvg(check: CompositionCheck): string {
-  return stackedSvg(`Distribution check of ${check.report.samples} samples of compositions of ${check.family.n}`, [histogramSvg(compositionPartsHistogram(check.report))]);
+  return stackedSvg(`Distribution check of ${check.report.samples} samples of compositions of ${check.family.n}`, [histogramSvg(exactLawHistogram('number of parts', check.report))]);
 }
 
 /** The JSON body: the headline test first (same fields as the partitions check), then the details. */
