@@ -105,6 +105,12 @@ describe('planner errors and limits', () => {
     // The short side is the part bound: the refusal says how small maxPart would have to be.
     const g: PartitionFamily = { kind: 'partition', n: 1_000_000_000, maxLength: 60_000, maxPart: 40_000 };
     expect(() => constrainedPartitionSampler(g)).toThrow(/fits with maxPart at most about \d+/);
+    // Distinct parts from a long list at large n: only the counting table applies (a subset-sum
+    // problem), so the refusal says up to which n, or with how few sizes, it fits.
+    const sizes = Array.from({ length: 1000 }, (_, i) => 1 + 4 * i);
+    const h: PartitionFamily = { kind: 'partition', n: 1_000_000, distinct: true, allowed: sizes };
+    expect(() => constrainedPartitionSampler(h)).toThrow(/with these 1000 sizes the family fits up to n = 4900, and at this n with at most 3 allowed sizes$/);
+    expect(() => constrainedPartitionSampler({ ...h, n: 4900 })).not.toThrow();
   });
   it('n = 0 has the empty partition only', () => {
     const s = constrainedPartitionSampler({ kind: 'partition', n: 0, distinct: true, allowed: [3] });

@@ -8,7 +8,7 @@ import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import { solveTiltNewton } from './length-law.js';
 import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
-import { refusal } from './refusal.js';
+import { about, refusal } from './refusal.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -137,13 +137,19 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   // The length branch solves its tilt by Newton steps (length-law.ts; only estimates depend on it).
   const shape = estimateShape(spec, hasLength ? solveTiltNewton : solveTilt);
   const out: PlanCandidate[] = [];
-  const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler) =>
-    out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build });
+  const table = (method: string, cells: number, sampleWork: number, build: () => PartitionSampler, hint?: string) =>
+    out.push({ method, setupWork: cells, sampleWork, fits: cells <= TABLE_CELL_LIMIT, build, ...(hint === undefined ? {} : { hint }) });
 
   if (!hasLength) {
-    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () =>
-      sizeTableSampler(sizeList(sizes), n, distinct, shape),
-    );
+    // For an allowed list this table can be the only method (distinct parts from a long list at
+    // large n: deciding, let alone counting, which subsets reach n is a subset-sum problem), so
+    // its refusal says which n, or how many sizes, the table holds.
+    const fewer = about(TABLE_CELL_LIMIT / (n + 1) - 1);
+    const listHint =
+      sizes.kind === 'list'
+        ? `with these ${r} sizes the family fits up to n = ${about(TABLE_CELL_LIMIT / (r + 1) - 1)}, and at this n with at most ${fewer} allowed size${fewer === '1' ? '' : 's'}`
+        : undefined;
+    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), listHint);
   }
   if (open && (hasLength || distinct || lo > 1)) {
     const top = distinct ? Math.min(kMax, Math.ceil(Math.sqrt(2 * n)) + 1) : Math.min(kMax, Math.floor(n / lo));
