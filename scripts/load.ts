@@ -30,6 +30,9 @@ const { values: flags } = parseArgs({
     // of busy work per request (comma-separated, e.g. 0,10,20; empty: none). The default, 0, puts
     // the Hono fixed-body reference beside partsmith in every run. See fixed-hono-server.ts.
     ceiling: { type: 'string', default: '0' },
+    // A reference that draws the requested sample with the core (no schema, limits, caches or
+    // ETag) on Hono, beside partsmith: the ceiling of any Hono app that samples. --sample-ref false drops it.
+    'sample-ref': { type: 'string', default: 'true' },
   },
 });
 
@@ -131,6 +134,8 @@ async function main(): Promise<void> {
   const references: RunningServer[] = [];
   try {
     for (const us of ceilingWork) references.push(await startServer(`fixed Hono, ${us} µs work`, `${root}scripts/load/fixed-hono-server.ts`, { WORK_US: String(us) }));
+    const sampling = flags['sample-ref'] === 'true' ? await startServer('Hono + core sampler', `${root}scripts/load/fixed-hono-server.ts`, { SAMPLE: '1' }) : undefined;
+    if (sampling) references.push(sampling);
     // Ratio rows of the summary: scenario -> connections -> the interleaved row.
     const ratioRows = new Map<string, Map<number, InterleavedRow>>();
     for (const connections of connectionCounts) {
@@ -140,7 +145,8 @@ async function main(): Promise<void> {
           { scenario: 'baseline: fixed 200-byte JSON', server: bare, request: bareRequest },
           { scenario: `(a) n = ${n}, 1 sample`, server: partsmith, request: sampleRequest(n, 1, `a${connections}`) },
           { scenario: '(a0) n = 10, 1 sample (HTTP stack)', server: partsmith, request: sampleRequest(10, 1, `z${connections}`) },
-          ...references.map((server, k) => ({ scenario: `(ref) fixed n = 1000 response from Hono + ${ceilingWork[k]} µs busy work`, server, request: sampleRequest(n, 1, `r${connections}`) })),
+          ...ceilingWork.map((us, k) => ({ scenario: `(ref) fixed n = 1000 response from Hono + ${us} µs busy work`, server: references[k], request: sampleRequest(n, 1, `r${connections}`) })),
+          ...(sampling ? [{ scenario: `(ref) Hono + the core's sample of n = ${n} (no schema, limits, caches, ETag)`, server: sampling, request: sampleRequest(n, 1, `s${connections}`) }] : []),
         ],
         connections,
       );

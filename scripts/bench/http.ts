@@ -7,6 +7,7 @@
  * rounds of 2,000 calls, in microseconds per call.
  */
 import { getRequestListener } from '@hono/node-server';
+import { Hono } from 'hono';
 import { familyKey } from '../../src/core/family.js';
 import { planPartitionSampler } from '../../src/core/partitions/plan.js';
 import { SampleStreams, sampleSource } from '../../src/core/seeding.js';
@@ -72,6 +73,21 @@ function fakeExchange(path: string, done: (bytes: number) => void) {
   return { incoming, outgoing };
 }
 
+/** The Hono reference of `npm run load` (scripts/load/fixed-hono-server.ts): partsmith's headers, a fixed n = 1000 body. */
+const FIXED_HEADERS: Readonly<Record<string, string>> = {
+  'access-control-allow-origin': '*',
+  'access-control-expose-headers': 'ETag, Partsmith-Seed, Partsmith-Method, Retry-After',
+  'cache-control': 'public, max-age=31536000, immutable',
+  'content-security-policy': "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
+  'content-type': 'application/json; charset=utf-8',
+  etag: '"00000000000000000000000000000000"',
+  'partsmith-method': 'table-recursive/1',
+  'partsmith-seed': 'fixed',
+  'referrer-policy': 'no-referrer',
+  'x-content-type-options': 'nosniff',
+};
+const FIXED_BODY = `{"family":{"kind":"partition","n":1000},"seed":"fixed","start":0,"method":"table-recursive/1","samples":[[${'7,'.repeat(80)}1]]}`;
+
 export async function benchHttp(): Promise<void> {
   const app = createApp();
   const listener = getRequestListener(app.fetch); // also installs the adapter's Request/Response
@@ -91,7 +107,16 @@ export async function benchHttp(): Promise<void> {
   const key = familyKey(family);
   const reader = new QueryReader(partitionsQuery);
   const streams = new SampleStreams(key);
+  const reference = new Hono();
+  reference.get('/v1/partitions', () => new Response(FIXED_BODY, { status: 200, headers: { ...FIXED_HEADERS } }));
+  const referenceListener = getRequestListener(reference.fetch);
+  const referenceOnce = (i: number) =>
+    new Promise<number>((resolve) => {
+      const { incoming, outgoing } = fakeExchange(path(1000, i), resolve);
+      void referenceListener(incoming as never, outgoing as never);
+    });
   const rows: [string, number][] = [
+    ['Node adapter listener, Hono fixed-body reference (as `npm run load`\'s)', await microseconds(referenceOnce)],
     ['Node adapter listener, n = 1000, 1 sample', await microseconds(listenOnce(1000))],
     ['Node adapter listener, n = 10, 1 sample', await microseconds(listenOnce(10))],
     ['app.fetch + body read, n = 1000, 1 sample', await microseconds(fetchOnce(1000))],

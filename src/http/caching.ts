@@ -14,37 +14,41 @@ import { ALGORITHM_VERSION } from '../core/seeding.js';
  * keys in schema order whatever order the URL gave them in, and fills in defaults, so
  * equivalent spellings of a request serialise alike (tested in etag.test.ts).
  */
-export function strongEtag(path: string, parsedQuery: unknown): string {
-  return `"${murmur3Hex(JSON.stringify(parsedQuery), etagNamespace(path))}"`;
+export function strongEtag(path: string, parsedQuery: Readonly<Record<string, unknown>>): string {
+  return `"${murmur3Hex(etagText(parsedQuery), etagNamespace(path))}"`;
+}
+
+/**
+ * The text an ETag hashes: the parsed query's JSON without its seed, then the seed's JSON when
+ * there is one. A JSON object's text ends where its braces close, so distinct queries give
+ * distinct texts; the seed goes last so that SeedEtags hashes the rest once per query.
+ */
+function etagText(parsedQuery: Readonly<Record<string, unknown>>): string {
+  if (!Object.hasOwn(parsedQuery, 'seed') || parsedQuery.seed === undefined) return JSON.stringify(parsedQuery);
+  const { seed, ...rest } = parsedQuery;
+  return JSON.stringify(rest) + JSON.stringify(seed);
 }
 
 /**
  * The ETags of one parsed query for every seed: `etag(seed)` equals
- * `strongEtag(path, { ...query, seed })` (the same text is hashed), but the part of the query's
- * JSON before the seed is serialised and hashed once.
+ * `strongEtag(path, { ...query, seed })` (the same text is hashed), but the query's JSON
+ * without the seed is serialised and hashed once: per request only the seed is (1.2 against
+ * 1.55 µs per tag when the seed sat inside the JSON and the text after it was hashed again:
+ * interleaved rounds on a loaded 2-core machine).
  */
 export class SeedEtags {
-  private readonly before: Murmur3x86_128Prefix;
-  private readonly after: string;
+  private readonly rest: Murmur3x86_128Prefix;
 
   constructor(path: string, parsedQuery: Readonly<Record<string, unknown>>) {
     if (!Object.hasOwn(parsedQuery, 'seed')) throw new RangeError('SeedEtags needs a parsed query with a seed');
-    // A marker no other value can contain: the parsed values are numbers, booleans, words and
-    // lists of numbers. Setting the existing key keeps its place in the JSON.
-    const marker = JSON.stringify(SEED_MARKER);
-    const text = JSON.stringify({ ...parsedQuery, seed: SEED_MARKER });
-    const at = text.indexOf(marker);
-    if (at < 0 || text.indexOf(marker, at + 1) >= 0) throw new RangeError('the seed must appear exactly once in the parsed query');
-    this.before = new Murmur3x86_128Prefix(text.slice(0, at), etagNamespace(path));
-    this.after = text.slice(at + marker.length);
+    const { seed: _seed, ...rest } = parsedQuery;
+    this.rest = new Murmur3x86_128Prefix(JSON.stringify(rest), etagNamespace(path));
   }
 
   etag(seed: string): string {
-    return `"${wordsToHex(this.before.hash(JSON.stringify(seed) + this.after))}"`;
+    return `"${wordsToHex(this.rest.hash(JSON.stringify(seed)))}"`;
   }
 }
-
-const SEED_MARKER = '\u0000seed\u0000';
 
 /**
  * The hash seed for one path's ETags: a hash of the versions and the path, so the ETag depends

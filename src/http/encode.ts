@@ -1,5 +1,5 @@
 import { partsOf, type Partition } from '../core/partition.js';
-import { listText, pairsText } from './int-text.js';
+import { listBytes, listText, pairsBytes, pairsText } from './int-text.js';
 
 /**
  * Lists at least this long are written byte by byte (int-text.ts); shorter ones by string
@@ -17,6 +17,12 @@ export interface SampleEncoder<S> {
   /** The sample as JSON text: what JSON.stringify gives for its JSON form. */
   json(sample: S): string;
   text(sample: S): string;
+  /**
+   * `open` + json(sample) + `close` as ASCII bytes (`open` and `close` are ASCII: a body's
+   * head and tail), for samples large enough that bytes pay (a body sent as written, not
+   * decoded into a string and encoded again); undefined for the others, which go as text.
+   */
+  jsonBytes?(sample: S, open: string, close: string): Uint8Array<ArrayBuffer> | undefined;
 }
 
 export const partitionAsParts: SampleEncoder<Partition> = {
@@ -56,6 +62,7 @@ export const partitionAsMultiplicities: SampleEncoder<Partition> = {
     for (let i = 0; i < p.sizes.length; i++) items += `${i > 0 ? ',' : ''}[${p.sizes[i]},${p.multiplicities[i]}]`;
     return `[${items}]`;
   },
+  jsonBytes: (p, open, close) => (p.sizes.length >= BYTE_TEXT_NUMBERS ? pairsBytes(p.sizes, p.multiplicities, open, close) : undefined),
   // "5 4 1^3": a part followed by ^multiplicity when it occurs more than once.
   text: (p) => p.sizes.map((size, i) => (p.multiplicities[i] > 1 ? `${size}^${p.multiplicities[i]}` : `${size}`)).join(' '),
 };
@@ -68,4 +75,5 @@ export const compositionAsParts: SampleEncoder<readonly number[] | Int32Array> =
   field: 'parts',
   json: (c) => (c instanceof Int32Array ? (listText(c, '[', ',', ']') ?? JSON.stringify(Array.from(c))) : JSON.stringify(c)),
   text: (c) => (c instanceof Int32Array ? (listText(c, '', ' ', '') ?? Array.from(c).join(' ')) : c.join(' ')),
+  jsonBytes: (c, open, close) => (c instanceof Int32Array && c.length >= BYTE_TEXT_NUMBERS ? listBytes(c, `${open}[`, ',', `]${close}`) : undefined),
 };

@@ -57,21 +57,22 @@ export class QueryReader<S extends z.ZodObject> {
   /** The parsed query, and a memo shared with every request whose query differs only in its seed. */
   read(url: string): QueryAndMemo<z.output<S>> {
     let memo: QueryMemo | undefined;
-    const query = readQuery(url, this.schema, (raw, repeats) => {
-      const result = this.validate(raw, repeats);
+    const query = readQuery(url, this.schema, (raw, repeats, plainQuery) => {
+      const result = this.validate(raw, repeats, plainQuery);
       memo = result.memo;
       return result.parsed;
     });
     return { query, memo: memo ?? new QueryMemo() };
   }
 
-  private validate(raw: Record<string, string>, repeats: boolean): { parsed: z.ZodSafeParseResult<z.output<S>>; memo?: QueryMemo } {
+  private validate(raw: Record<string, string>, repeats: boolean, plainQuery: string | undefined): { parsed: z.ZodSafeParseResult<z.output<S>>; memo?: QueryMemo } {
     const seedField = this.seedField;
     if (seedField === undefined || repeats || !Object.hasOwn(raw, PER_REQUEST_PARAM)) return { parsed: this.schema.safeParse(raw) };
-    const { [PER_REQUEST_PARAM]: seed, ...rest } = raw;
-    const restKey = JSON.stringify(rest);
+    const seed = raw[PER_REQUEST_PARAM];
+    const restKey = (plainQuery !== undefined ? withoutSeedPiece(plainQuery) : undefined) ?? restJson(raw);
     let entry = this.remembered.get(restKey);
     if (entry === undefined) {
+      const { [PER_REQUEST_PARAM]: _seed, ...rest } = raw;
       const result = this.schema.safeParse({ ...rest, [PER_REQUEST_PARAM]: SEED_STAND_IN });
       if (!result.success) return { parsed: this.schema.safeParse(raw) };
       entry = this.remembered.set(restKey, { parsed: deepFreeze(result.data as Record<string, unknown>), memo: new QueryMemo() });
@@ -83,6 +84,30 @@ export class QueryReader<S extends z.ZodObject> {
     data[PER_REQUEST_PARAM] = parsedSeed.data;
     return { parsed: { success: true, data: data as z.output<S> }, memo: entry.memo };
   }
+}
+
+/**
+ * The key of a query's rest (the query without its seed) for a plain query (see plainPairs,
+ * which splits it as written): the query with its one `seed=...` piece cut out. Equal keys are equal texts without
+ * the seed, so they split into the same parameters (a text that differs only in empty pieces
+ * gets a key of its own: a cache miss, never a wrong answer). Cutting the text cost 0.1 µs
+ * where serialising the pairs without the seed cost 0.6 µs (.scratch micro-timing; the bench
+ * row is http's QueryReader.read). Never starts with '{', as every restJson key does.
+ * Undefined when no piece starts with `seed=` (a bare `seed`, which the schema refuses).
+ */
+function withoutSeedPiece(plainQuery: string): string | undefined {
+  const text = `&${plainQuery}&`;
+  const at = text.indexOf(SEED_PIECE);
+  if (at < 0) return undefined;
+  return text.slice(0, at) + text.slice(text.indexOf('&', at + 1), -1);
+}
+
+const SEED_PIECE = `&${PER_REQUEST_PARAM}=`;
+
+/** The key of a query's rest (the query without its seed) from its decoded pairs, as JSON. */
+function restJson(raw: Record<string, string>): string {
+  const { [PER_REQUEST_PARAM]: _seed, ...rest } = raw;
+  return JSON.stringify(rest);
 }
 
 export interface QueryAndMemo<Q> {
@@ -117,7 +142,7 @@ export class QueryMemo {
 function readQuery<S extends z.ZodType>(
   url: string,
   schema: S,
-  validate: (raw: Record<string, string>, repeats: boolean) => z.ZodSafeParseResult<z.output<S>>,
+  validate: (raw: Record<string, string>, repeats: boolean, plainQuery: string | undefined) => z.ZodSafeParseResult<z.output<S>>,
 ): z.output<S> {
   const queryStart = url.indexOf('?');
   const query = queryStart < 0 ? '' : url.slice(queryStart + 1);
@@ -130,7 +155,8 @@ function readQuery<S extends z.ZodType>(
   const raw: Record<string, string> = {};
   const errors: ParamError[] = [];
   let repeated: Set<string> | undefined;
-  for (const [key, value] of queryPairs(query)) {
+  const plain = plainPairs(query);
+  for (const [key, value] of plain ?? decodedPairs(query)) {
     if (Object.hasOwn(raw, key)) {
       repeated ??= new Set();
       if (!repeated.has(key)) errors.push({ param: printableParam(key), message: 'is given more than once; give it once' });
@@ -140,7 +166,7 @@ function readQuery<S extends z.ZodType>(
     if (key === '__proto__') Object.defineProperty(raw, key, { value, enumerable: true, writable: true, configurable: true });
     else raw[key] = value;
   }
-  const result = validate(raw, repeated !== undefined);
+  const result = validate(raw, repeated !== undefined, plain !== undefined ? query : undefined);
   if (!result.success) {
     errors.push(...paramErrors(result.error, (param) => Object.hasOwn(raw, param), (param) => repeated?.has(param) === true));
   }

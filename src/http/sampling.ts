@@ -104,9 +104,15 @@ export function* bodyPieces<S>(job: SamplingJob<S>, deadline?: Deadline): Genera
 
 /**
  * The whole body as one string, produced in a plain loop: the same text as joining
- * `bodyPieces`, without a generator's per-piece cost. For bodies that fit in one chunk.
+ * `bodyPieces`, without a generator's per-piece cost. For bodies that fit in one chunk, and
+ * for single samples: one JSON or NDJSON sample goes out as the bytes its encoder wrote, when
+ * it writes bytes for a sample that large (see singleSampleBytes).
  */
-function wholeBody<S>(job: SamplingJob<S>, deadline?: Deadline): string {
+function wholeBody<S>(job: SamplingJob<S>, deadline?: Deadline): string | Uint8Array<ArrayBuffer> {
+  if (job.count === 1 && job.format !== 'text' && job.encoder.jsonBytes !== undefined) {
+    deadline?.check(0);
+    return singleSampleBytes(job, job.encoder.jsonBytes);
+  }
   const end = job.start + job.count;
   let text = job.format === 'json' ? jsonHead(job) : '';
   for (let i = job.start; i < end; i++) {
@@ -122,6 +128,18 @@ function jsonHead(job: SamplingJob<unknown>): string {
 }
 
 const JSON_TAIL = ']}';
+
+/**
+ * The body of a one-sample JSON or NDJSON job: the same text as joining `bodyPieces`, written
+ * by the encoder into one buffer with the body's head and tail when the sample is large (a
+ * partition of 10^9 as=multiplicities: 240 kB), as a string otherwise.
+ */
+function singleSampleBytes<S>(job: SamplingJob<S>, jsonBytes: NonNullable<SampleEncoder<S>['jsonBytes']>): string | Uint8Array<ArrayBuffer> {
+  const i = job.start;
+  const sample = job.sampler.sample(job.streams.source(job.seed, i));
+  const [open, close] = job.format === 'json' ? [jsonHead(job), JSON_TAIL] : [`{"index":${i},"${job.encoder.field}":`, '}\n'];
+  return jsonBytes(sample, open, close) ?? open + job.encoder.json(sample) + close;
+}
 
 /** Sample i of the job, encoded for its format (with its separator or line end). */
 function samplePiece<S>(job: SamplingJob<S>, i: number): string {
@@ -165,9 +183,9 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * Once streaming has begun the status is sent, so a later stop ends the stream with an error
  * (see `bodyStream`).
  */
-export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string {
-  // One sample is drawn whole whatever its size, so its body is one string too (with a
-  // Content-Length, and no stream to pump), however large.
+export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string | Uint8Array<ArrayBuffer> {
+  // One sample is drawn whole whatever its size, so its body is one string (or its bytes) too
+  // (with a Content-Length, and no stream to pump), however large.
   if (job.count === 1 || job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
     try {
       return wholeBody(job, deadline);

@@ -5,7 +5,7 @@ import { SampleStreams, SEED_PATTERN } from '../core/seeding.js';
 import type { RandomSource } from '../core/random.js';
 import { MAX_INDEX } from '../schemas/bounds.js';
 import { samplingFields } from '../schemas/common.js';
-import { rankValueFields } from '../schemas/ranks.js';
+import { rankValueFields } from '../schemas/rank-values.js';
 import { notAMemberProblem, rankProblem } from './problems.js';
 import { familyError, invalidParam, parseParam, partsmithError } from './validate.js';
 

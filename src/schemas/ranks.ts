@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { DEFAULT_MAX_COUNT, MAX_COUNT, MAX_N } from './bounds.js';
-import { choiceParam, integerParam, partsParam, rankParam, withThousands } from './params.js';
+import { choiceParam, integerParam, partsParam, withThousands } from './params.js';
+import { rankValueFields } from './rank-values.js';
+
+export { rankValueFields } from './rank-values.js';
 import { compositionConstraints, weakNeedsLength } from './compositions.js';
 import { noLengthWithMaxLength, partitionConstraints } from './partitions.js';
 import { noBlocksWithMaxBlocks, setPartitionConstraints } from './set-partitions.js';
@@ -20,7 +23,7 @@ export const MAX_RANKED_PARTS = 2000;
 
 const listFields = {
   n: integerParam(0, MAX_N, 'The size: every member sums to exactly n.'),
-  start: rankParam('Rank of the first member listed (a decimal string; ranks run from 0 to the number of members - 1). start = the number of members gives an empty page. Default 0.').default('0'),
+  start: rankValueFields.start,
   // The schema admits any count a server may be configured for; the configured limit is checked before listing.
   count: integerParam(1, MAX_COUNT, `How many members to list from start (fewer at the end of the family): at most ${withThousands(DEFAULT_MAX_COUNT)} unless the server is configured otherwise. Default ${withThousands(DEFAULT_LIST_COUNT)}.`).default(DEFAULT_LIST_COUNT),
   format: choiceParam(['json', 'ndjson', 'text'], 'json: one document; ndjson: one line {"rank": "...", "parts": [...]} per member, streamed; text: one member per line, its rank, a tab, then its parts separated by spaces.').default('json'),
@@ -28,11 +31,9 @@ const listFields = {
 
 const unrankFields = {
   n: integerParam(0, MAX_N, 'The size: the member sums to exactly n.'),
-  rank: rankParam('The rank of the member (a decimal string, from 0 to the number of members - 1).'),
+  rank: rankValueFields.rank,
 };
 
-/** The rank parameters as the library checks them too (`family.unrank(rank)`, `family.list(start)`). */
-export const rankValueFields = { start: listFields.start, rank: unrankFields.rank };
 
 const rankFields = {
   n: integerParam(0, MAX_N, 'The size of the family; defaults to the sum of the parts.').optional(),

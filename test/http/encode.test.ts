@@ -76,4 +76,20 @@ describe('sample encoders', () => {
       }
     }
   });
+
+  it('bytes of large samples framed by a head and tail: exactly the text, as ASCII; small samples give none', () => {
+    const decode = (bytes: Uint8Array | undefined) => (bytes === undefined ? undefined : new TextDecoder().decode(bytes));
+    const head = '{"family":{"kind":"partition","n":1000000000},"seed":"a-1","start":0,"method":"self-similar/1","samples":[';
+    // A long head and tail: the buffer, sized from the sample, must make room for them too.
+    for (const [open, close] of [['', ''], [head, ']}'], ['{"index":7,"multiplicities":', '}\n'], [head.repeat(50), ']}'.repeat(500)]]) {
+      const long = [digitBoundaries(), ...[0, 1].map((i) => unrestrictedPartitionSampler(1e9).sample(sampleSource('encode', i, 'n=1e9')))];
+      for (const p of long) expect(decode(partitionAsMultiplicities.jsonBytes!(p, open, close))).toBe(open + partitionAsMultiplicities.json(p) + close);
+      for (const list of [new Array<number>(10000).fill(2 ** 31 - 1), sampleUnrestricted(sampleSource('encode', 0, 'c=100000'), 100000)]) {
+        const typed = Int32Array.from(list);
+        expect(decode(compositionAsParts.jsonBytes!(typed, open, close))).toBe(open + JSON.stringify(list) + close);
+      }
+    }
+    for (const p of partitions.filter((q) => q.sizes.length < 64)) expect(partitionAsMultiplicities.jsonBytes!(p, '[', ']')).toBeUndefined();
+    expect(compositionAsParts.jsonBytes!([1, 2, 3], '[', ']')).toBeUndefined();
+  });
 });

@@ -34,7 +34,7 @@ const COMPLETE = Symbol('partsmith.headersComplete');
  * One Object.assign into a fresh record: 0.2 µs, where sorting the names into Headers order
  * cost 0.6 µs per request and changed nothing a client can see (header order carries no meaning).
  */
-export function completeResponse(body: string | ReadableStream<Uint8Array> | null, status: number, headers: Readonly<Record<string, string>>): Response {
+export function completeResponse(body: string | Uint8Array<ArrayBuffer> | ReadableStream<Uint8Array> | null, status: number, headers: Readonly<Record<string, string>>): Response {
   const response = new Response(body, { status, headers: Object.assign({}, headers, API_HARDENING_HEADERS) });
   (response as unknown as Record<symbol, boolean>)[COMPLETE] = true;
   return response;
