@@ -1,0 +1,87 @@
+import { LogDistinctBoundedCounts, distinctBoundedSaddle } from '../counting/log-distinct-bounded-count.js';
+import type { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
+import { DistinctPartitionTable } from './distinct-table.js';
+
+/** What a level of the bounded distinct engine needs of its counts. */
+export interface DistinctCounts {
+  logRatio(m1: number, m2: number): number;
+  log(m: number): number;
+  /** From here on the counts are log-concave in m (a local maximum of the weight is global). */
+  logConcaveFrom(): number;
+}
+
+/**
+ * The count tables and base tables the distinct self-similar engine uses for a smallest part
+ * a >= 2 (distinct-self-similar.ts): log Q_b for b = ⌈a/2⌉, ⌈a/4⌉, ..., and unranking tables for
+ * distinct parts >= b. Filled lazily, owned by this object (pure caches).
+ */
+export class DistinctBoundedTables {
+  private readonly counts = new Map<number, LogDistinctBoundedCounts>();
+  private readonly tables = new Map<number, DistinctPartitionTable>();
+  private readonly plain: DistinctCounts;
+
+  constructor(
+    readonly baseThreshold: number,
+    logQ: LogDistinctPartitionNumbers,
+  ) {
+    // q(m)² > q(m − 1)q(m + 1) for all m >= 33 (distinct-self-similar.ts).
+    this.plain = { logRatio: (x, y) => logQ.logRatio(x, y), log: (m) => logQ.log(m), logConcaveFrom: () => 33 };
+  }
+
+  /** log Q_b, distinct parts >= b (b = 1: the plain q). */
+  countsFor(b: number): DistinctCounts {
+    if (b === 1) return this.plain;
+    let c = this.counts.get(b);
+    if (c === undefined) {
+      c = new LogDistinctBoundedCounts(b);
+      this.counts.set(b, c);
+    }
+    return c;
+  }
+
+  /** The unranking table for distinct parts >= lo up to the base threshold. */
+  tableFor(lo: number): DistinctPartitionTable {
+    let t = this.tables.get(lo);
+    if (t === undefined) {
+      t = new DistinctPartitionTable(this.baseThreshold, lo);
+      this.tables.set(lo, t);
+    }
+    return t;
+  }
+
+  /** t with Boltzmann mean size ≈ n for distinct parts >= b (any t > 0 is exact; this one is efficient). */
+  saddle(b: number, n: number): number {
+    const t = distinctBoundedSaddle(b, Infinity, n);
+    return t > 0 && Number.isFinite(t) ? t : Math.PI / Math.sqrt(12 * n);
+  }
+
+  /**
+   * argmax over integers 0 <= m <= n/2 of log Q(m) + 2m·logX. Above logConcaveFrom() = L the
+   * weight is concave, so the last m with a positive forward difference is found by bisection;
+   * m < L is scanned unless the peak is above log Q(L), which bounds every weight there (Q is
+   * non-decreasing for m >= the smallest part b — add 1 to the largest part — Q(m) = 0 for
+   * 0 < m < b, and x < 1).
+   */
+  maximiser(counts: DistinctCounts, n: number, logX: number): number {
+    const half = Math.floor(n / 2);
+    const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
+    const from = counts.logConcaveFrom();
+    if (half <= from) {
+      let best = 0;
+      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
+      return best;
+    }
+    let lo = from;
+    let hi = half;
+    while (lo < hi) {
+      const mid = Math.ceil((lo + hi) / 2);
+      if (weight(mid, mid - 1) > 0) lo = mid;
+      else hi = mid - 1;
+    }
+    let m = lo;
+    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+      for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
+    }
+    return m;
+  }
+}
