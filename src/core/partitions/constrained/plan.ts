@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { DistinctBoundedSelfSimilarSampler } from '../distinct-bounded-self-similar.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
@@ -178,6 +179,21 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // is only built when all candidates are asked for.
     const plainDistinct = distinct && open && lo <= 1;
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
+    // Distinct parts >= a alone (2 <= a <= 200): the same engine with the smallest part going down
+    // the levels (distinct-bounded-self-similar.ts). Its setup is time (count tables of a few
+    // thousand doubles each), so it fits on the sample-work limit and the memory it holds.
+    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
+    const minPartDistinct = distinct && open && lo >= 2 && lo <= DistinctBoundedSelfSimilarSampler.MAX_A;
+    if (minPartDistinct) {
+      const sampler = new DistinctBoundedSelfSimilarSampler(n, lo);
+      out.push({
+        method: sampler.method,
+        setupWork: sampler.setupWork,
+        sampleWork: sampler.expectedWork,
+        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+        build: () => sampler,
+      });
+    }
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
     if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {
