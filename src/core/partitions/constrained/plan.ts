@@ -38,8 +38,10 @@ import { solveTilt, tiltMoments } from './tilt.js';
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
  *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
  *   are refused. Measured consequences (planner estimates): plain distinct parts up to n = 1e9
- *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts with a part
- *   bound (distinct-boltzmann) up to n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts >= a alone
+ *   (2 <= a <= 200) up to n = 1e9 (distinct-bounded-self-similar: 0.26 ms per sample at 1e6, 6 ms
+ *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
+ *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
