@@ -17,6 +17,7 @@ export function exactPartCountLaw(n: number, a: number): number[] {
     counts.push(row[n - k * a - (k * (k - 1)) / 2]);
   }
   const total = counts.reduce((x, y) => x + y, 0);
+  if (!Number.isFinite(total)) throw new RangeError(`the counts at n = ${n} overflow doubles`);
   return counts.map((c) => c / total);
 }
 

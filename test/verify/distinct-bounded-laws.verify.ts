@@ -14,9 +14,10 @@ const ALPHA = 1e-4;
 
 const cases: Array<[number, number, number, boolean]> = [
   // n, a, samples, method forced (at n = 4e4 with a = 50 the planner estimates distinct-boltzmann cheaper)
-  [20_000, 7, 20_000, false],
-  [40_000, 50, 10_000, true],
-  [60_000, 3, 10_000, false],
+  [20_000, 7, 100_000, false],
+  [40_000, 50, 50_000, true],
+  [60_000, 3, 50_000, false],
+  [120_000, 20, 20_000, true], // forced (the planner estimates distinct-boltzmann cheaper here); counts up to ~e^{π√(n/3)}: doubles hold them to n ≈ 1.5e5
 ];
 
 describe('distinct parts >= a: the number of parts has its exact law', () => {
