@@ -32,10 +32,15 @@
 export class LogDistinctBoundedCounts {
   static readonly MAX_M = 1_000_000_000;
   /** The tail series T_b is used only where (b + 1)·t is at least this (see the class comment). */
-  static readonly TAIL_MIN_BT = 3;
+  static readonly TAIL_MIN_BT = 1;
+  /** Largest exact table built on demand for finite b (additions), and its widest part range (no overflow: Q < 2^1000). */
+  static readonly SLOW_TABLE_ADDITIONS = 2e8;
+  static readonly SLOW_TABLE_MAX_RANGE = 1000;
 
-  private readonly exact: Float64Array;
-  private readonly logExact: Float64Array;
+  /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
+  readonly total: number;
+  private exact: Float64Array;
+  private logExact: Float64Array;
   private readonly memo = new Map<number, Saddle>();
   private concaveFrom = -1;
 
@@ -47,12 +52,9 @@ export class LogDistinctBoundedCounts {
     if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be an integer >= 1, got ${a}`);
     if (b !== Infinity && (!Number.isInteger(b) || b < a)) throw new RangeError(`b must be an integer >= a or Infinity, got ${b}`);
     if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
-    const c = new Float64Array(exactUpTo + 1);
-    c[0] = 1;
-    const last = Math.min(b, exactUpTo);
-    for (let k = a; k <= last; k++) for (let m = exactUpTo; m >= k; m--) c[m] += c[m - k];
-    this.exact = c;
-    this.logExact = c.map(Math.log);
+    this.total = b === Infinity ? Infinity : ((a + b) * (b - a + 1)) / 2;
+    this.exact = knapsack(a, b, exactUpTo);
+    this.logExact = this.exact.map(Math.log);
   }
 
   /** Additions done by the constructor (setup work). */
@@ -62,21 +64,48 @@ export class LogDistinctBoundedCounts {
     return sum;
   }
 
-  /** Whether Q(m) is served to full accuracy (the table, or the integral where the tail converges). */
-  accurate(m: number): boolean {
-    if (m <= this.exactUpTo || this.b === Infinity) return true;
-    return (this.b + 1) * this.saddle(m).t >= LogDistinctBoundedCounts.TAIL_MIN_BT;
+  /** Q(S − m) = Q(m): the half of the polynomial where the saddle point is positive. */
+  private fold(m: number): number {
+    return m > this.total / 2 ? this.total - m : m;
+  }
+
+  /** Whether the saddle-point integral serves this (folded) m: b = ∞, or the tail series converges fast enough. */
+  private fast(m: number): boolean {
+    if (this.b === Infinity) return true;
+    const t = this.saddle(m).t;
+    return t > 0 && (this.b + 1) * t >= LogDistinctBoundedCounts.TAIL_MIN_BT;
   }
 
   /**
-   * The smallest L with Q(m)² >= Q(m − 1)·Q(m + 1) for all L < m < exactUpTo (exact check on the
-   * table); above it the integral's values, checked concave on a grid in the tests.
+   * Whether every Q(m), m <= mMax, is served to full accuracy: from the table, the integral, or
+   * (finite b) an exact table grown on demand within SLOW_TABLE_ADDITIONS. The saddle point falls
+   * as m rises to S/2, so the integral, once unusable, stays so up to S/2.
+   */
+  servable(mMax: number): boolean {
+    const top = Math.min(mMax, Math.floor(this.total / 2));
+    if (top <= this.exact.length - 1 || this.fast(top)) return true;
+    return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
+      LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
+  }
+
+  /** Additions an exact table up to m costs. */
+  static slowTableWork(a: number, b: number, m: number): number {
+    return (Math.min(b, m) - a + 1) * m;
+  }
+
+  /**
+   * The smallest L >= a with Q(m)² >= Q(m − 1)·Q(m + 1) for all L < m < exactUpTo and Q(k) <=
+   * Q(L) for all k < L (exact checks on the table); above it the integral's values, checked
+   * concave on a grid in the tests.
    */
   logConcaveFrom(): number {
     if (this.concaveFrom < 0) {
       const c = this.exact;
-      let from = this.a;
-      for (let m = this.a + 1; m < this.exactUpTo; m++) if (c[m] * c[m] < c[m - 1] * c[m + 1]) from = m;
+      let from = Math.min(this.a, c.length - 1);
+      for (let m = this.a + 1; m < c.length - 1; m++) if (c[m] * c[m] < c[m - 1] * c[m + 1]) from = m;
+      let prefixMax = 0;
+      for (let k = 0; k < from; k++) prefixMax = Math.max(prefixMax, c[k]);
+      while (from < c.length - 1 && c[from] < prefixMax) prefixMax = Math.max(prefixMax, c[from++]);
       this.concaveFrom = from;
     }
     return this.concaveFrom;
@@ -85,32 +114,52 @@ export class LogDistinctBoundedCounts {
   /** Q(m) as a double, m <= exactUpTo. */
   value(m: number): number {
     if (!(m <= this.exactUpTo)) throw new RangeError(`Q(m) as a double is tabulated up to ${this.exactUpTo}, got ${m}`);
-    return this.exact[m];
+    return m < this.exact.length ? this.exact[m] : 0;
   }
 
   /** log Q(m) (−Infinity where Q(m) = 0). */
   log(m: number): number {
     this.check(m);
-    if (m <= this.exactUpTo) return this.logExact[m];
-    const s = this.saddle(m);
-    return s.phi + s.logI;
+    if (m > this.total) return -Infinity;
+    const f = this.fold(m);
+    if (f < this.exact.length) return this.logExact[f];
+    if (this.fast(f)) {
+      const s = this.saddle(f);
+      return s.phi + s.logI;
+    }
+    this.grow(f);
+    return this.logExact[f];
   }
 
   /** log(Q(m1)/Q(m2)), stable (see the class comment). */
   logRatio(m1: number, m2: number): number {
     this.check(m1);
     this.check(m2);
-    if (m1 === m2) return 0;
-    if (m1 <= this.exactUpTo && m2 <= this.exactUpTo) return Math.log(this.exact[m1] / this.exact[m2]);
-    if (m1 <= this.exactUpTo || m2 <= this.exactUpTo) return this.log(m1) - this.log(m2);
-    const s1 = this.saddle(m1);
-    const s2 = this.saddle(m2);
-    return this.phiDifference(m1, s1.t, m2, s2.t) + s1.logI - s2.logI;
+    if (m1 > this.total || m2 > this.total) return this.log(m1) - this.log(m2);
+    const f1 = this.fold(m1);
+    const f2 = this.fold(m2);
+    if (f1 === f2) return 0;
+    const n = this.exact.length;
+    if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
+    if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
+    const s1 = this.saddle(f1);
+    const s2 = this.saddle(f2);
+    return this.phiDifference(f1, s1.t, f2, s2.t) + s1.logI - s2.logI;
   }
 
   /** The real saddle point for m (also a Boltzmann parameter of mean size ≈ m). */
   saddlePoint(m: number): number {
     return distinctBoundedSaddle(this.a, this.b, m);
+  }
+
+  /** Grows the exact table to cover m (finite b, where the integral is not used). */
+  private grow(m: number): void {
+    if (this.b - this.a + 1 > LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE || LogDistinctBoundedCounts.slowTableWork(this.a, this.b, m) > LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS) {
+      throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}] is beyond the exact table's limit`);
+    }
+    const upTo = Math.min(Math.floor(this.total / 2), Math.max(m, 2 * (this.exact.length - 1)));
+    this.exact = knapsack(this.a, this.b, upTo);
+    this.logExact = this.exact.map(Math.log);
   }
 
   /** φ_{m1}(t1) − φ_{m2}(t2) without cancellation of the large terms. */
@@ -123,7 +172,7 @@ export class LogDistinctBoundedCounts {
       const e = Math.exp(-k * t2);
       sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
     }
-    if (this.b !== Infinity) sum -= tail(this.b, t1) - tail(this.b, t2);
+    if (this.b !== Infinity) sum -= tailDifference(this.b, t1, t2);
     return sum;
   }
 
@@ -141,6 +190,15 @@ export class LogDistinctBoundedCounts {
     this.memo.set(m, s);
     return s;
   }
+}
+
+/** Q(0..upTo) for distinct parts in [a, b], by c(m) += c(m − k) (m descending), doubles. */
+function knapsack(a: number, b: number, upTo: number): Float64Array {
+  const c = new Float64Array(upTo + 1);
+  c[0] = 1;
+  const last = Math.min(b, upTo);
+  for (let k = a; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
+  return c;
 }
 
 interface Saddle {
@@ -169,6 +227,26 @@ export function defaultDistinctExactUpTo(a: number): number {
   return Math.ceil(Math.max(4000, 2000 + 50 * a + (a * a) / 20));
 }
 
+/**
+ * T_b(t1) − T_b(t2) term by term without cancellation: with g_j(t) = e^{−j(b+1)t}/(1 − e^{−jt}),
+ * g_j(t1) − g_j(t2) = g_j(t2)·expm1(Δ_j), Δ_j = −j(b+1)(t1 − t2) − log((1 − e^{−jt1})/(1 − e^{−jt2})).
+ */
+function tailDifference(b: number, t1: number, t2: number): number {
+  const d = t1 - t2;
+  let sum = 0;
+  for (let j = 1; j <= TAIL_TERMS; j++) {
+    const den = -Math.expm1(-j * t2);
+    const g = Math.exp(-j * (b + 1) * t2) / den;
+    const delta = -j * (b + 1) * d - Math.log1p((-Math.exp(-j * t2) * Math.expm1(-j * d)) / den);
+    const term = (g * Math.expm1(delta)) / j;
+    sum += j % 2 === 1 ? term : -term;
+    if (Math.exp(-j * (b + 1) * Math.min(t1, t2)) / den < 1e-18 * (Math.abs(sum) + 1e-300)) break;
+  }
+  return sum;
+}
+
+const TAIL_TERMS = 400;
+
 /** T_b(t) = Σ_{k>b} log(1 + e^{−kt}) for real t by its j-series (b finite). */
 function tail(b: number, t: number): number {
   let sum = 0;
@@ -176,7 +254,7 @@ function tail(b: number, t: number): number {
     const g = Math.exp(-j * (b + 1) * t) / -Math.expm1(-j * t);
     sum += (j % 2 === 1 ? g : -g) / j;
     if (g < 1e-18 * Math.abs(sum)) break;
-    if (j > 200) break;
+    if (j > TAIL_TERMS) break;
   }
   return sum;
 }
@@ -185,7 +263,7 @@ function tail(b: number, t: number): number {
 function tailDerivatives(b: number, t: number): [number, number] {
   let d1 = 0;
   let d2 = 0;
-  for (let j = 1; j <= 200; j++) {
+  for (let j = 1; j <= TAIL_TERMS; j++) {
     const em = Math.exp(-j * t);
     const den = -Math.expm1(-j * t);
     const g = Math.exp(-j * (b + 1) * t) / den;
@@ -251,7 +329,7 @@ function computeSaddle(a: number, b: number, m: number): Saddle {
   const first = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
   let sum = 1;
   for (let j = 1; j <= K / 2; j++) {
-    const [re, im] = phiShift(a, b, m, t, j * h, j, K, tailT);
+    const [re, im] = phiShift(a, b, m, t, j * h, j, K);
     sum += 2 * Math.exp(re) * Math.cos(im);
     if (j >= first && re < -CUTOFF) break;
   }
@@ -264,7 +342,7 @@ function computeSaddle(a: number, b: number, m: number): Saddle {
  *   π²/12·(1/(t + iy) − 1/t) = −(π²/(12t²))·(iy + y²/t)/(1 + (y/t)²);  (m + 1/24)·iy;
  *   −Σ_{k<a} log(1 + p_k(e^{−iky} − 1)), p_k = e^{−kt}/(1 + e^{−kt});  −(T_b(t + iy) − T_b(t)).
  */
-function phiShift(a: number, b: number, m: number, t: number, y: number, j: number, K: number, tailT: number): [number, number] {
+function phiShift(a: number, b: number, m: number, t: number, y: number, j: number, K: number): [number, number] {
   const s = y / t;
   const s2 = s * s;
   const c = PI2_12 / (t * t) / (1 + s2);
@@ -281,23 +359,28 @@ function phiShift(a: number, b: number, m: number, t: number, y: number, j: numb
     im -= Math.atan2(wi, 1 + wr);
   }
   if (b !== Infinity) {
-    // T_b(t + iy) = Σ_j ((−1)^{j+1}/j)·e^{−j(b+1)(t+iy)}/(1 − e^{−j(t+iy)}).
+    // T_b(t + iy) − T_b(t) = Σ_j ((−1)^{j+1}/j)·g_j(t)·(e^{Δ_j} − 1), term by term without
+    // cancellation: Δ_j = −ij(b+1)y − log(1 + w), w = p(1 − e^{−ijy}), p = e^{−jt}/(1 − e^{−jt}).
     let tr = 0;
     let ti = 0;
-    for (let jj = 1; jj <= 200; jj++) {
-      const mag = Math.exp(-jj * (b + 1) * t);
-      const nr = mag * Math.cos(jj * (b + 1) * y);
-      const ni = -mag * Math.sin(jj * (b + 1) * y);
-      const em = Math.exp(-jj * t);
-      const dr = 1 - em * Math.cos(jj * y);
-      const di = em * Math.sin(jj * y);
-      const dd = dr * dr + di * di;
+    for (let jj = 1; jj <= TAIL_TERMS; jj++) {
+      const den = -Math.expm1(-jj * t);
+      const g = Math.exp(-jj * (b + 1) * t) / den;
+      const p = Math.exp(-jj * t) / den;
+      const half = Math.sin((jj * y) / 2);
+      const wr = 2 * p * half * half;
+      const wi = p * Math.sin(jj * y);
+      const dr = -0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
+      const di = -jj * (b + 1) * y - Math.atan2(wi, 1 + wr);
+      const hd = Math.sin(di / 2);
+      const er = Math.expm1(dr) * Math.cos(di) - 2 * hd * hd; // Re(e^Δ − 1)
+      const ei = Math.exp(dr) * Math.sin(di);
       const sign = jj % 2 === 1 ? 1 / jj : -1 / jj;
-      tr += (sign * (nr * dr + ni * di)) / dd;
-      ti += (sign * (ni * dr - nr * di)) / dd;
-      if (mag < 1e-18 * -Math.expm1(-jj * t)) break;
+      tr += sign * g * er;
+      ti += sign * g * ei;
+      if (g < 1e-18) break;
     }
-    re -= tr - tailT;
+    re -= tr;
     im -= ti;
   }
   return [re, im];
