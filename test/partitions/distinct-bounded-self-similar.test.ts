@@ -8,7 +8,7 @@ import { DistinctSelfSimilarTables, type DistinctSelfSimilarStats } from '../../
 import { DistinctPartitionTable } from '../../src/core/partitions/distinct-table.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { chiSquareTest } from '../support/chi-square.js';
-import { exactPartCountLaw, pooled } from '../support/distinct-part-count-law.js';
+import { exactLargestPartLaw, exactPartCountLaw, pooled } from '../support/distinct-part-count-law.js';
 import { chiSquareUniform } from '../support/chi-square-uniform.js';
 import { assertValidPartition } from '../support/partition-checks.js';
 
@@ -103,5 +103,50 @@ describe('distinct-bounded-self-similar: the exact law of the number of parts', 
     const p = pooled(observed, law, samples);
     expect(p.observed.length).toBeGreaterThan(15);
     expect(chiSquareTest(p.observed, p.probabilities).pValue).toBeGreaterThan(ALPHA);
+  });
+});
+
+describe('distinct-bounded-self-similar with a largest part c (maxPart)', () => {
+  // Chi-square over the enumerated family, levels exercised by low base thresholds; the cases
+  // cover c alone (a = 1), both bounds, a range past its middle at the top level (n >= S/2:
+  // the proposal's x falls back to e^{−1/c}) and a level whose odd range is empty.
+  const cases: Array<[number, number, number, number]> = [
+    // n, a, c, base threshold
+    [40, 1, 12, 0],
+    [44, 2, 15, 3],
+    [50, 3, 20, 0],
+    [40, 1, 10, 0],
+    [42, 4, 14, 9],
+    [30, 1, 30, 3],
+  ];
+  for (const [n, a, c, base] of cases) {
+    it(`n = ${n}, parts in [${a}, ${c}], base threshold ${base}`, () => {
+      const family: PartitionFamily = { kind: 'partition', n, distinct: true, minPart: a, maxPart: c };
+      const sampler = new DistinctBoundedSelfSimilarSampler(n, a, tables, base, c);
+      expect(sampler.servable).toBe(true);
+      const result = chiSquareUniform(family, sampler, `dbss-cap-${n}-${a}-${c}-${base}`);
+      expect(result.members).toBeGreaterThan(5);
+      expect(result.strangers).toBe(0);
+      expect(result.pValue).toBeGreaterThan(ALPHA);
+    });
+  }
+
+  it('the exact law of the largest part at n = 20,000 with parts in [10, 600] (counts from the integral)', () => {
+    // √n ≈ 141, so the bound binds (the largest part of a distinct partition is ~ √n·log n).
+    const [n, a, c] = [20_000, 10, 600];
+    const sampler = new DistinctBoundedSelfSimilarSampler(n, a, undefined, undefined, c);
+    expect(sampler.servable).toBe(true);
+    const law = exactLargestPartLaw(n, a, c);
+    const samples = 4000;
+    const observed = new Array<number>(law.length).fill(0);
+    const source = sampleSource('dbss-cap-largest', 0, 'test');
+    for (let i = 0; i < samples; i++) {
+      const p = sampler.sample(source);
+      if (i < 20) assertValidPartition(p, n);
+      observed[p.sizes[0] - a]++;
+    }
+    const pooledLaw = pooled(observed, law, samples);
+    expect(pooledLaw.observed.length).toBeGreaterThan(15);
+    expect(chiSquareTest(pooledLaw.observed, pooledLaw.probabilities).pValue).toBeGreaterThan(ALPHA);
   });
 });

@@ -43,3 +43,22 @@ export function pooled(observed: number[], probabilities: number[], samples: num
   }
   return { observed: o, probabilities: p };
 }
+
+/**
+ * Exact law of the largest part of a uniform partition of n into distinct parts in [a, c], as
+ * doubles: P(largest <= L) = Q_{[a,L]}(n) / Q_{[a,c]}(n), the counts Q_{[a,L]}(n) read off the
+ * knapsack Π_{a<=k<=L}(1 + q^k) after each factor (additions of positives only). Entry L − a of
+ * the result is P(largest = L).
+ */
+export function exactLargestPartLaw(n: number, a: number, c: number): number[] {
+  const q = new Float64Array(n + 1);
+  q[0] = 1;
+  const upTo: number[] = [];
+  for (let k = a; k <= c; k++) {
+    for (let m = n; m >= k; m--) q[m] += q[m - k];
+    upTo.push(q[n]);
+  }
+  const total = upTo[upTo.length - 1];
+  if (!Number.isFinite(total) || total === 0) throw new RangeError(`no usable counts at n = ${n}`);
+  return upTo.map((v, i) => (v - (i === 0 ? 0 : upTo[i - 1])) / total);
+}

@@ -88,6 +88,12 @@ export class LogDistinctBoundedCounts {
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
   }
 
+  /** Whether m (folded) is above the table and served by the integral (no grown table). */
+  servesByIntegral(m: number): boolean {
+    const f = this.fold(Math.min(m, this.total));
+    return f >= this.exact.length && this.fast(f);
+  }
+
   /** Additions an exact table up to m costs. */
   static slowTableWork(a: number, b: number, m: number): number {
     return (Math.min(b, m) - a + 1) * m;

@@ -16,7 +16,7 @@ export interface DistinctCounts {
  * distinct parts >= b. Filled lazily, owned by this object (pure caches).
  */
 export class DistinctBoundedTables {
-  private readonly counts = new Map<number, LogDistinctBoundedCounts>();
+  private readonly counts = new Map<string, LogDistinctBoundedCounts>();
   private readonly tables = new Map<number, DistinctPartitionTable>();
   private readonly plain: DistinctCounts;
 
@@ -28,15 +28,17 @@ export class DistinctBoundedTables {
     this.plain = { logRatio: (x, y) => logQ.logRatio(x, y), log: (m) => logQ.log(m), logConcaveFrom: () => 33 };
   }
 
-  /** log Q_b, distinct parts >= b (b = 1: the plain q). */
-  countsFor(b: number): DistinctCounts {
-    if (b === 1) return this.plain;
-    let c = this.counts.get(b);
-    if (c === undefined) {
-      c = new LogDistinctBoundedCounts(b);
-      this.counts.set(b, c);
+  /** log Q for distinct parts in [b, c] (b = 1, c = ∞: the plain q; c < b: only Q(0) = 1). */
+  countsFor(b: number, c = Infinity): DistinctCounts {
+    if (b === 1 && c === Infinity) return this.plain;
+    if (c < b) return EMPTY_RANGE;
+    const key = `${b},${c}`;
+    let counts = this.counts.get(key);
+    if (counts === undefined) {
+      counts = new LogDistinctBoundedCounts(b, c);
+      this.counts.set(key, counts);
     }
-    return c;
+    return counts;
   }
 
   /** The unranking table for distinct parts >= lo up to the base threshold. */
@@ -49,10 +51,14 @@ export class DistinctBoundedTables {
     return t;
   }
 
-  /** t with Boltzmann mean size ≈ n for distinct parts >= b (any t > 0 is exact; this one is efficient). */
-  saddle(b: number, n: number): number {
-    const t = distinctBoundedSaddle(b, Infinity, n);
-    return t > 0 && Number.isFinite(t) ? t : Math.PI / Math.sqrt(12 * n);
+  /**
+   * t with Boltzmann mean size ≈ n for distinct parts in [b, c] (any t > 0 is exact; this one is
+   * efficient). Past the middle of a finite range (n >= S/2, no positive saddle) t = 1/c.
+   */
+  saddle(b: number, n: number, c = Infinity): number {
+    if (c !== Infinity && n >= ((b + c) * (c - b + 1)) / 4) return 1 / c;
+    const t = distinctBoundedSaddle(b, c, n);
+    return t > 0 && Number.isFinite(t) ? t : c === Infinity ? Math.PI / Math.sqrt(12 * n) : 1 / c;
   }
 
   /**
@@ -85,3 +91,10 @@ export class DistinctBoundedTables {
     return m;
   }
 }
+
+/** Counts of an empty range of part sizes: only the empty partition. */
+const EMPTY_RANGE: DistinctCounts = {
+  log: (m) => (m === 0 ? 0 : -Infinity),
+  logRatio: (m1, m2) => (m1 === 0 ? 0 : -Infinity) - (m2 === 0 ? 0 : -Infinity),
+  logConcaveFrom: () => 0,
+};

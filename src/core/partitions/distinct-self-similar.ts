@@ -99,30 +99,32 @@ export class DistinctSelfSimilarEngine {
   }
 
   /**
-   * A uniform partition of n into distinct parts >= a (multiplicity form, sizes descending). With
-   * a = 1 the stream is the one of distinct-self-similar/1.
+   * A uniform partition of n into distinct parts in [a, c] (multiplicity form, sizes descending).
+   * With a = 1, c = ∞ the stream is the one of distinct-self-similar/1.
    */
-  sample(source: RandomSource, n: number, stats?: DistinctSelfSimilarStats, a = 1): Partition {
+  sample(source: RandomSource, n: number, stats?: DistinctSelfSimilarStats, a = 1, c = Infinity): Partition {
     let level = 0;
     let current = n;
     let b = a;
+    let cap = c;
     while (current > this.options.baseThreshold) {
       if (level === this.proposals.length) this.proposals.push(new DistinctOddProposal());
       const top = level === 0 ? stats : undefined;
-      if (b === 1) {
+      if (b === 1 && cap === Infinity) {
         current = this.reduce(source, current, this.proposals[level], top, stats);
         this.smallestAt[level] = this.one ? 1 : 0;
       } else {
-        current = this.reduceBounded(source, current, b, this.proposals[level], top, stats);
+        current = this.reduceBounded(source, current, b, cap, this.proposals[level], top, stats);
         this.smallestAt[level] = this.extra;
       }
       b = Math.ceil(b / 2);
+      cap = Math.floor(cap / 2);
       level++;
     }
     // Base: the table on the last sub-problem; its parts are multiples of 2^level, descending.
     let merged: number[] = [];
     const table = b === 1 ? this.options.table : this.boundedTables().tableFor(b);
-    const steps = table.sample(source, current, 2 ** level, merged);
+    const steps = cap === Infinity ? table.sample(source, current, 2 ** level, merged) : table.sample(source, current, 2 ** level, merged, cap);
     if (stats) stats.visited += steps;
     // Merge shallower levels in front: level l holds odd multiples of 2^l, so no size repeats.
     for (let l = level - 1; l >= 0; l--) merged = this.mergeLevel(l, merged);
@@ -189,24 +191,25 @@ export class DistinctSelfSimilarEngine {
   }
 
   /**
-   * Steps 1–3 at size n with smallest part b >= 2 (see the class comment) until acceptance;
+   * Steps 1–3 at size n with parts in [b, cap] (see the class comment) until acceptance;
    * returns m, leaves A' in `proposal` and its extra smallest size (or 0) in this.extra.
    */
   private reduceBounded(
     source: RandomSource,
     n: number,
     b: number,
+    cap: number,
     proposal: DistinctOddProposal,
     top?: DistinctSelfSimilarStats,
     all?: DistinctSelfSimilarStats,
   ): number {
     const bounded = this.boundedTables();
-    const counts = bounded.countsFor(Math.ceil(b / 2));
-    const logX = -bounded.saddle(b, n);
+    const counts = bounded.countsFor(Math.ceil(b / 2), Math.floor(cap / 2));
+    const logX = -bounded.saddle(b, n, cap);
     const best = bounded.maximiser(counts, n, logX);
     const s = b % 2 === 1 ? b : b + 1;
     for (;;) {
-      const rest = proposal.draw(source, logX, s + 2, 2, n);
+      const rest = proposal.draw(source, logX, s + 2, 2, n, cap);
       if (top) top.topProposals++;
       if (all) {
         all.proposals++;
@@ -214,6 +217,7 @@ export class DistinctSelfSimilarEngine {
       }
       if (rest === DistinctOddProposal.OVER) continue;
       const j0 = (n - rest) % 2;
+      if (j0 === 1 && s > cap) continue; // the parity needs an odd size the range does not have
       const t = rest + s * j0;
       if (t > n) continue;
       const m = (n - t) / 2;

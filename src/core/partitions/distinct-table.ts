@@ -39,15 +39,16 @@ export class DistinctPartitionTable {
 
   /**
    * A uniform partition of m into distinct parts >= lo (the caller guarantees one exists): its parts, descending, each multiplied by
-   * `scale`, are appended to `out`. Returns the number of steps taken (for work counters).
+   * `scale`, are appended to `out`. With hi, only parts <= hi (the caller guarantees one exists).
+   * Returns the number of steps taken (for work counters).
    */
-  sample(source: RandomSource, m: number, scale: number, out: number[]): number {
+  sample(source: RandomSource, m: number, scale: number, out: number[], hi = Infinity): number {
     if (!Number.isInteger(m) || m < 0 || m > this.maxN) throw new RangeError(`m must be in [0, ${this.maxN}], got ${m}`);
     const t = this.table();
     const w = this.maxN + 1;
-    let rank = nextBelow(source, t[m * w + m]);
+    let k = Math.min(m, hi);
+    let rank = nextBelow(source, t[k * w + m]);
     let rest = m;
-    let k = m;
     let steps = 0;
     while (rest > 0) {
       steps++;
