@@ -4,6 +4,7 @@ import { LogDistinctPartitionNumbers } from '../../src/core/counting/log-distinc
 import type { PartitionFamily } from '../../src/core/family.js';
 import { constrainedPartitionSampler } from '../../src/core/partitions/constrained/plan.js';
 import { DistinctBoundedSelfSimilarSampler } from '../../src/core/partitions/distinct-bounded-self-similar.js';
+import { maximiserGuess } from '../../src/core/partitions/distinct-bounded-tables.js';
 import { DistinctSelfSimilarTables, type DistinctSelfSimilarStats } from '../../src/core/partitions/distinct-self-similar.js';
 import { DistinctPartitionTable } from '../../src/core/partitions/distinct-table.js';
 import { sampleSource } from '../../src/core/seeding.js';
@@ -24,10 +25,16 @@ describe('distinct-bounded-self-similar internals', () => {
         let brute = 0;
         for (let m = 1; m <= Math.floor(n / 2); m++) if (counts.logRatio(m, brute) + 2 * (m - brute) * logX > 0) brute = m;
         expect(tables.bounded.maximiser(counts, n, logX), `b=${b} n=${n}`).toBe(brute);
+        // From the engine's guess, and from wrong guesses (galloping both ways): the same argmax.
+        for (const guess of [maximiserGuess(b, Infinity, -logX), 0, n / 2, brute + 3, brute - 5]) {
+          expect(tables.bounded.maximiser(counts, n, logX, guess), `b=${b} n=${n} guess=${guess}`).toBe(brute);
+        }
       }
       for (const n of [1e5, 1e7, 1e9]) {
         const logX = -tables.bounded.saddle(2 * b, n);
         const m = tables.bounded.maximiser(counts, n, logX);
+        expect(tables.bounded.maximiser(counts, n, logX, maximiserGuess(b, Infinity, -logX))).toBe(m);
+        expect(tables.bounded.maximiser(counts, n, logX, 0.9 * m)).toBe(m);
         const f = (k: number) => counts.logRatio(k, m) + 2 * (k - m) * logX;
         expect(f(m - 1)).toBeLessThanOrEqual(0);
         expect(f(m + 1)).toBeLessThanOrEqual(0);

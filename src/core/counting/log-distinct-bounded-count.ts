@@ -39,8 +39,11 @@ export class LogDistinctBoundedCounts {
 
   /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
   readonly total: number;
-  private exact: Float64Array;
-  private logExact: Float64Array;
+  /** The exact table, built on first use (planning only asks servable(), which needs none). */
+  private table: Float64Array | null = null;
+  private logTable: Float64Array | null = null;
+  /** Largest m the table holds (or will hold once built). */
+  private tableEnd: number;
   private readonly memo = new Map<number, Saddle>();
   private concaveFrom = -1;
 
@@ -53,8 +56,20 @@ export class LogDistinctBoundedCounts {
     if (b !== Infinity && (!Number.isInteger(b) || b < a)) throw new RangeError(`b must be an integer >= a or Infinity, got ${b}`);
     if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
     this.total = b === Infinity ? Infinity : ((a + b) * (b - a + 1)) / 2;
-    this.exact = knapsack(a, b, exactUpTo);
-    this.logExact = this.exact.map(Math.log);
+    this.tableEnd = exactUpTo;
+  }
+
+  private get exact(): Float64Array {
+    if (this.table === null) {
+      this.table = knapsack(this.a, this.b, this.tableEnd);
+      this.logTable = this.table.map(Math.log);
+    }
+    return this.table;
+  }
+
+  private get logExact(): Float64Array {
+    void this.exact;
+    return this.logTable!;
   }
 
   /** Additions done by the constructor (setup work). */
@@ -83,7 +98,7 @@ export class LogDistinctBoundedCounts {
    */
   servable(mMax: number): boolean {
     const top = Math.min(mMax, Math.floor(this.total / 2));
-    if (top <= this.exact.length - 1 || this.fast(top)) return true;
+    if (top <= this.tableEnd || this.fast(top)) return true;
     return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
   }
@@ -91,7 +106,7 @@ export class LogDistinctBoundedCounts {
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
   servesByIntegral(m: number): boolean {
     const f = this.fold(Math.min(m, this.total));
-    return f >= this.exact.length && this.fast(f);
+    return f > this.tableEnd && this.fast(f);
   }
 
   /** Additions an exact table up to m costs. */
@@ -163,9 +178,9 @@ export class LogDistinctBoundedCounts {
     if (this.b - this.a + 1 > LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE || LogDistinctBoundedCounts.slowTableWork(this.a, this.b, m) > LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS) {
       throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}] is beyond the exact table's limit`);
     }
-    const upTo = Math.min(Math.floor(this.total / 2), Math.max(m, 2 * (this.exact.length - 1)));
-    this.exact = knapsack(this.a, this.b, upTo);
-    this.logExact = this.exact.map(Math.log);
+    const doubled = Math.min(Math.floor(this.total / 2), Math.max(m, 2 * this.tableEnd));
+    this.tableEnd = LogDistinctBoundedCounts.slowTableWork(this.a, this.b, doubled) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS ? doubled : m;
+    this.table = null;
   }
 
   /** φ_{m1}(t1) − φ_{m2}(t2) without cancellation of the large terms. */

@@ -84,7 +84,7 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
       const bp = Math.ceil(b / 2);
       const cp = Math.floor(cap / 2);
       const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * tables.bounded.saddle(bp, Math.max(1, Math.round(size / 4)), cp)));
-      const count = COUNT_NODES * (bp + tailTerms);
+      const count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
       work += PROPOSALS * (visitsPerProposal(size) + count) + Math.log2(size) * count;
       if (bp === 1 && cp === Infinity) setup += EXACT_COUNT_WORK;
       else if (cp >= bp) {
@@ -95,8 +95,8 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
           const top = Math.min(Math.floor(worst / 2), Math.floor(counts.total / 2));
           if (!counts.servable(top)) servable = false;
           else if (top > counts.exactUpTo && !counts.servesByIntegral(top)) {
-            // An exact table grown on demand (counted as if built).
-            setup += LogDistinctBoundedCounts.slowTableWork(bp, cp, top);
+            // An exact table grown on demand: its memory is counted, not its time, since it is
+            // built only if a level's size lands far above its typical n/4^l (probability ~0).
             cells += top + 1;
           }
         }
@@ -123,3 +123,5 @@ const PROPOSALS = 1.5;
 /** Steps per count above the table: ~30 trapezoid nodes plus Newton, each over b' factors. */
 const COUNT_NODES = 30;
 const STEPS_PER_ADDITION = 0.05;
+/** A tail-series term at a node (complex exp, log, atan2) against one head factor. */
+const TAIL_TERM_STEPS = 3;

@@ -68,7 +68,7 @@ export class DistinctBoundedTables {
    * non-decreasing for m >= the smallest part b — add 1 to the largest part — Q(m) = 0 for
    * 0 < m < b, and x < 1).
    */
-  maximiser(counts: DistinctCounts, n: number, logX: number): number {
+  maximiser(counts: DistinctCounts, n: number, logX: number, guess?: number): number {
     const half = Math.floor(n / 2);
     const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
     const from = counts.logConcaveFrom();
@@ -77,11 +77,41 @@ export class DistinctBoundedTables {
       for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
       return best;
     }
-    let lo = from;
-    let hi = half;
+    // rises(m): weight(m) > weight(m − 1); true then false on (from, half] (concave). The last m
+    // where it holds (or from) is bracketed by galloping from the guess, then bisected: the same
+    // answer as bisecting all of [from, half], in ~log₂|guess error| counts instead of log₂ n.
+    const rises = (m: number) => weight(m, m - 1) > 0;
+    let lo = from; // rises(lo) or lo = from
+    let hi = half; // the answer is <= hi
+    if (guess !== undefined && Number.isFinite(guess)) {
+      const g = Math.min(half, Math.max(from + 1, Math.round(guess)));
+      if (rises(g)) {
+        lo = g;
+        for (let step = 1; ; step *= 2) {
+          const probe = g + step;
+          if (probe > half) break;
+          if (!rises(probe)) {
+            hi = probe - 1;
+            break;
+          }
+          lo = probe;
+        }
+      } else {
+        hi = g - 1;
+        for (let step = 1; ; step *= 2) {
+          const probe = g - step;
+          if (probe <= from) break;
+          if (rises(probe)) {
+            lo = probe;
+            break;
+          }
+          hi = probe - 1;
+        }
+      }
+    }
     while (lo < hi) {
       const mid = Math.ceil((lo + hi) / 2);
-      if (weight(mid, mid - 1) > 0) lo = mid;
+      if (rises(mid)) lo = mid;
       else hi = mid - 1;
     }
     let m = lo;
@@ -91,6 +121,24 @@ export class DistinctBoundedTables {
     return m;
   }
 }
+
+/**
+ * A guess of the maximiser of Q(m)·x^{2m}, Q for distinct parts in [b, c]: where d log Q/dm ≈
+ * (Q's saddle point at m) equals 2t, i.e. the Boltzmann mean size Σ_{b<=k<=c} k/(e^{2tk} + 1).
+ */
+export function maximiserGuess(b: number, c: number, t: number): number {
+  // A midpoint sum over at most ~GUESS_TERMS strides (only a guess: the search is exact anyway).
+  const last = Math.min(c, b + 40 / (2 * t));
+  const stride = Math.max(1, Math.floor((last - b + 1) / GUESS_TERMS));
+  let mean = 0;
+  for (let k = b; k <= last; k += stride) {
+    const mid = k + (Math.min(stride, last - k + 1) - 1) / 2;
+    mean += (Math.min(stride, last - k + 1) * mid) / (Math.exp(2 * t * mid) + 1);
+  }
+  return mean;
+}
+
+const GUESS_TERMS = 500;
 
 /** Counts of an empty range of part sizes: only the empty partition. */
 const EMPTY_RANGE: DistinctCounts = {

@@ -3,7 +3,7 @@ import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { DistinctOddProposal } from './distinct-odd-proposal.js';
-import { DistinctBoundedTables } from './distinct-bounded-tables.js';
+import { DistinctBoundedTables, maximiserGuess } from './distinct-bounded-tables.js';
 import { DistinctPartitionTable } from './distinct-table.js';
 
 /**
@@ -204,9 +204,11 @@ export class DistinctSelfSimilarEngine {
     all?: DistinctSelfSimilarStats,
   ): number {
     const bounded = this.boundedTables();
-    const counts = bounded.countsFor(Math.ceil(b / 2), Math.floor(cap / 2));
+    const bp = Math.ceil(b / 2);
+    const cp = Math.floor(cap / 2);
+    const counts = bounded.countsFor(bp, cp);
     const logX = -bounded.saddle(b, n, cap);
-    const best = bounded.maximiser(counts, n, logX);
+    const best = bounded.maximiser(counts, n, logX, maximiserGuess(bp, cp, -logX));
     const s = b % 2 === 1 ? b : b + 1;
     for (;;) {
       const rest = proposal.draw(source, logX, s + 2, 2, n, cap);

@@ -181,13 +181,15 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // is only built when all candidates are asked for.
     const plainDistinct = distinct && open && lo <= 1;
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
-    // Distinct parts >= a alone (2 <= a <= 200): the same engine with the smallest part going down
-    // the levels (distinct-bounded-self-similar.ts). Its setup is time (count tables of a few
-    // thousand doubles each), so it fits on the sample-work limit and the memory it holds.
+    // Distinct parts in [a, c] (a <= 200; a >= 2 or c < n): the same engine with the bounds going
+    // down the levels (distinct-bounded-self-similar.ts), where its counts serve every level
+    // (`servable`: not for an upper bound near the middle of its range at large n, e.g.
+    // maxPart ~ 2√n). Its setup is time (count tables of a few thousand doubles each), so it fits
+    // on the sample-work limit and the memory it holds.
     // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
-    const minPartDistinct = distinct && open && lo >= 2 && lo <= DistinctBoundedSelfSimilarSampler.MAX_A;
-    if (minPartDistinct) {
-      const sampler = new DistinctBoundedSelfSimilarSampler(n, lo);
+    const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
+    const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
+    if (sampler !== null && sampler.servable) {
       out.push({
         method: sampler.method,
         setupWork: sampler.setupWork,
