@@ -4,7 +4,7 @@ import { constrainedPartitionSampler } from '../../src/core/partitions/constrain
 import { sampleSource } from '../../src/core/seeding.js';
 import { chiSquareTest } from '../support/chi-square.js';
 import { assertValidPartition } from '../support/partition-checks.js';
-import { exactPartCountLaw, pooled } from '../support/distinct-part-count-law.js';
+import { exactLargestPartLaw, exactPartCountLaw, pooled } from '../support/distinct-part-count-law.js';
 
 // The law of the number of parts of a uniform partition into distinct parts >= a, at sizes
 // where exact counts are still cheap but the planner uses distinct-bounded-self-similar (its
@@ -36,6 +36,39 @@ describe('distinct parts >= a: the number of parts has its exact law', () => {
           expect(Math.min(...p.sizes)).toBeGreaterThanOrEqual(a);
         }
         observed[p.sizes.length]++;
+      }
+      const p = pooled(observed, law, samples);
+      expect(p.observed.length).toBeGreaterThan(20);
+      expect(chiSquareTest(p.observed, p.probabilities).pValue).toBeGreaterThan(ALPHA);
+    });
+  }
+});
+
+// With a largest part c as well (maxPart): the law of the largest part, from exact counts (c
+// lies within the range the unbounded largest part takes, so the bound shapes the law).
+// Method forced (the planner may estimate distinct-boltzmann cheaper); alpha = 1e-4 each.
+const capped: Array<[number, number, number, number]> = [
+  // n, a, c, samples
+  [60_000, 5, 1500, 20_000],
+  [100_000, 1, 2500, 20_000],
+  [40_000, 30, 1200, 20_000],
+];
+
+describe('distinct parts in [a, c]: the largest part has its exact law', () => {
+  for (const [n, a, c, samples] of capped) {
+    it(`n = ${n}, parts in [${a}, ${c}] (${samples} samples)`, () => {
+      const family: PartitionFamily = { kind: 'partition', n, distinct: true, minPart: a, maxPart: c };
+      const sampler = constrainedPartitionSampler(family, { method: 'distinct-bounded-self-similar' });
+      const law = exactLargestPartLaw(n, a, c);
+      const observed = new Array<number>(law.length).fill(0);
+      const source = sampleSource('distinct-bounded-largest', n, `${a}-${c}`);
+      for (let i = 0; i < samples; i++) {
+        const p = sampler.sample(source);
+        if (i < 50) {
+          assertValidPartition(p, n);
+          expect(Math.min(...p.sizes)).toBeGreaterThanOrEqual(a);
+        }
+        observed[p.sizes[0] - a]++;
       }
       const p = pooled(observed, law, samples);
       expect(p.observed.length).toBeGreaterThan(20);
