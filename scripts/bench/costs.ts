@@ -134,6 +134,7 @@ function cases(): Case[] {
     partitions({ n: 100_000, distinct: true, maxPart: 10_000 }),
     partitions({ n: 1_000_000, distinct: true, minPart: 7 }),
     partitions({ n: 100_000_000, distinct: true, minPart: 50 }, 'multiplicities'),
+    partitions({ n: 1_000_000, distinct: true, maxPart: 10_000 }),
     partitions({ n: 1_000_000, maxPart: 1000, length: 2000 }),
     partitions({ n: 1_000_000, length: 100, maxPart: 20_000 }),
     partitions({ n: 1_000_000, distinct: true, maxLength: 100 }),

@@ -41,7 +41,9 @@ import { solveTilt, tiltMoments } from './tilt.js';
  *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts >= a alone
  *   (2 <= a <= 200) up to n = 1e9 (distinct-bounded-self-similar: 0.26 ms per sample at 1e6, 6 ms
  *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
- *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7), or distinct-bounded-self-similar where
+ *   its counts serve every level (not for maxPart ~ 2 sqrt(n); e.g. maxPart = 1e4 at n = 1e6:
+ *   4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
