@@ -51,6 +51,7 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'allowed-boltzmann/1': 320,
   'distinct-boltzmann/1': 95,
   'distinct-self-similar/1': 60,
+  'distinct-bounded-self-similar/1': 40,
   'minpart-self-similar/1': 60,
   'box-subset/1': 50,
   'box-mixture/1': 20,

@@ -30,8 +30,11 @@ export class DistinctOddProposal {
   /** Part sizes visited by the last draw (phase-1 sizes plus phase-2 candidates). */
   visited = 0;
 
-  /** Draws the parts k = start, start + step, ... at x = e^{logX}; returns their sum or OVER. */
-  draw(source: RandomSource, logX: number, start: number, step: number, budget: number): number {
+  /**
+   * Draws the parts k = start, start + step, ... <= last at x = e^{logX}; returns their sum or
+   * OVER. (last = Infinity draws exactly as without it.)
+   */
+  draw(source: RandomSource, logX: number, start: number, step: number, budget: number, last = Infinity): number {
     if (!(logX < 0)) throw new RangeError(`log x must be negative, got ${logX}`);
     let count = 0;
     let total = 0;
@@ -42,7 +45,7 @@ export class DistinctOddProposal {
     const ratio = Math.exp(-step * logX);
     let sinceAnchor = 0;
     let p = 1 / (1 + inv);
-    while (p > DistinctOddProposal.DIRECT_THRESHOLD) {
+    while (p > DistinctOddProposal.DIRECT_THRESHOLD && k <= last) {
       visited++;
       if (source.nextDouble() < p) {
         total += k;
@@ -57,11 +60,11 @@ export class DistinctOddProposal {
       } else inv *= ratio;
       p = 1 / (1 + inv);
     }
-    let bound = p;
+    let bound = k <= last ? p : 0;
     while (bound > 0) {
       const jump = Math.floor(Math.log(nextOpenDouble(source)) / Math.log1p(-bound));
       k += jump * step;
-      if (!(k <= 2 ** 52)) break;
+      if (!(k <= 2 ** 52) || k > last) break;
       visited++;
       const pk = 1 / (1 + Math.exp(-k * logX));
       if (source.nextDouble() * bound < pk) {

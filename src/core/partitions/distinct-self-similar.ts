@@ -3,6 +3,7 @@ import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { DistinctOddProposal } from './distinct-odd-proposal.js';
+import { DistinctBoundedTables, maximiserGuess } from './distinct-bounded-tables.js';
 import { DistinctPartitionTable } from './distinct-table.js';
 
 /**
@@ -39,6 +40,18 @@ import { DistinctPartitionTable } from './distinct-table.js';
  * is compared directly when it could matter. Acceptance uses the stable log-ratio
  * log q(m) − log q(m*) (log-distinct-partition-number.ts).
  *
+ * A smallest part a >= 2 (sample(source, n, stats, a); method distinct-bounded-self-similar/1) goes
+ * down the levels as in min-part-self-similar.ts: distinct parts >= b are (odd parts >= b) +
+ * 2 × (distinct parts >= ⌈b/2⌉), so level l has b_l = ⌈a/2^l⌉, and once b_l = 1 the levels
+ * above run unchanged. At a level with b >= 2, s the smallest odd size >= b, x = e^{−t}, t the
+ * saddle point of distinct parts >= b at mean size n (log-distinct-bounded-count.ts):
+ *   1. draw the odd sizes >= s + 2 (P(A') ∝ x^{|A'|}); j0 = (n − |A'|) mod 2;
+ *   2. include s iff j0 = 1 (s is odd, so only that choice can complete the size);
+ *   3. T = |A|; reject if T > n; m = (n − T)/2; accept with probability
+ *      Q(m)·x^{2m}·x^{s·j0} / max_{m'} Q(m')x^{2m'},  Q = Q_{⌈b/2⌉} the count of distinct parts
+ *      >= ⌈b/2⌉ (the plain q when ⌈b/2⌉ = 1). P(A accepted) ∝ x^{T − s·j0}·Q(m)x^{2m + s·j0} ∝ Q(m).
+ * The base table then counts distinct parts >= b_l (distinct-table.ts with its lo).
+ *
  * Glaisher's bijection (partitions into odd parts ↔ distinct parts) was the alternative: it would
  * still need an exact-size sampler for odd-part partitions, the same problem with geometric
  * multiplicities and no smaller sub-problem to recurse on; the split above recurses on n/4
@@ -49,6 +62,8 @@ export interface DistinctSelfSimilarOptions {
   readonly baseThreshold: number;
   readonly table: DistinctPartitionTable;
   readonly logQ: LogDistinctPartitionNumbers;
+  /** Counts and tables for a smallest part >= 2 (needed only by sample(..., a) with a >= 2). */
+  readonly bounded?: DistinctBoundedTables;
 }
 
 /** Counters a caller may pass to see the work done (bench and tests). */
@@ -72,9 +87,10 @@ export function distinctLogX(n: number): number {
 
 export class DistinctSelfSimilarEngine {
   private readonly proposals: DistinctOddProposal[] = [];
-  /** Whether each level's accepted proposal holds the part 1. */
-  private readonly oneAt: boolean[] = [];
+  /** The smallest odd size each level's accepted proposal holds apart from its draw (0: none). */
+  private readonly smallestAt: number[] = [];
   private one = false;
+  private extra = 0;
 
   constructor(private readonly options: DistinctSelfSimilarOptions) {
     if (!Number.isInteger(options.baseThreshold) || options.baseThreshold < 0 || options.baseThreshold > options.table.maxN) {
@@ -82,36 +98,57 @@ export class DistinctSelfSimilarEngine {
     }
   }
 
-  /** A uniform partition of n into distinct parts (multiplicity form, sizes descending). */
-  sample(source: RandomSource, n: number, stats?: DistinctSelfSimilarStats): Partition {
+  /**
+   * A uniform partition of n into distinct parts in [a, c] (multiplicity form, sizes descending).
+   * With a = 1, c = ∞ the stream is the one of distinct-self-similar/1.
+   */
+  sample(source: RandomSource, n: number, stats?: DistinctSelfSimilarStats, a = 1, c = Infinity): Partition {
     let level = 0;
     let current = n;
+    let b = a;
+    let cap = c;
     while (current > this.options.baseThreshold) {
       if (level === this.proposals.length) this.proposals.push(new DistinctOddProposal());
-      current = this.reduce(source, current, this.proposals[level], level === 0 ? stats : undefined, stats);
-      this.oneAt[level] = this.one;
+      const top = level === 0 ? stats : undefined;
+      if (b === 1 && cap === Infinity) {
+        current = this.reduce(source, current, this.proposals[level], top, stats);
+        this.smallestAt[level] = this.one ? 1 : 0;
+      } else {
+        current = this.reduceBounded(source, current, b, cap, this.proposals[level], top, stats);
+        this.smallestAt[level] = this.extra;
+      }
+      b = Math.ceil(b / 2);
+      cap = Math.floor(cap / 2);
       level++;
     }
     // Base: the table on the last sub-problem; its parts are multiples of 2^level, descending.
     let merged: number[] = [];
-    const steps = this.options.table.sample(source, current, 2 ** level, merged);
+    const table = b === 1 ? this.options.table : this.boundedTables().tableFor(b);
+    const steps = cap === Infinity ? table.sample(source, current, 2 ** level, merged) : table.sample(source, current, 2 ** level, merged, cap);
     if (stats) stats.visited += steps;
     // Merge shallower levels in front: level l holds odd multiples of 2^l, so no size repeats.
     for (let l = level - 1; l >= 0; l--) merged = this.mergeLevel(l, merged);
     return { sizes: merged, multiplicities: new Array<number>(merged.length).fill(1) };
   }
 
+  private boundedTables(): DistinctBoundedTables {
+    const bounded = this.options.bounded;
+    if (bounded === undefined) throw new RangeError('a smallest part >= 2 needs the bounded tables');
+    return bounded;
+  }
+
   /** Merges level l's parts (ascending in its buffer, times 2^l) with `tail` (descending). */
   private mergeLevel(l: number, tail: number[]): number[] {
     const p = this.proposals[l];
     const scale = 2 ** l;
-    const offset = this.oneAt[l] ? 1 : 0;
+    const smallest = this.smallestAt[l];
+    const offset = smallest > 0 ? 1 : 0;
     const out: number[] = new Array(tail.length + p.count + offset);
     let j = p.count - 1 + offset; // index into [1, sizes...] read from its end
     let read = 0;
     let write = 0;
     while (j >= 0) {
-      const size = (j >= offset ? p.sizes[j - offset] : 1) * scale;
+      const size = (j >= offset ? p.sizes[j - offset] : smallest) * scale;
       if (read < tail.length && tail[read] > size) out[write++] = tail[read++];
       else {
         out[write++] = size;
@@ -148,6 +185,47 @@ export class DistinctSelfSimilarEngine {
       const logAccept = this.weightRatio(m, best, logX) + j0 * logX;
       if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
         this.one = j0 === 1;
+        return m;
+      }
+    }
+  }
+
+  /**
+   * Steps 1–3 at size n with parts in [b, cap] (see the class comment) until acceptance;
+   * returns m, leaves A' in `proposal` and its extra smallest size (or 0) in this.extra.
+   */
+  private reduceBounded(
+    source: RandomSource,
+    n: number,
+    b: number,
+    cap: number,
+    proposal: DistinctOddProposal,
+    top?: DistinctSelfSimilarStats,
+    all?: DistinctSelfSimilarStats,
+  ): number {
+    const bounded = this.boundedTables();
+    const bp = Math.ceil(b / 2);
+    const cp = Math.floor(cap / 2);
+    const counts = bounded.countsFor(bp, cp);
+    const logX = -bounded.saddle(b, n, cap);
+    const best = bounded.maximiser(counts, n, logX, maximiserGuess(bp, cp, -logX));
+    const s = b % 2 === 1 ? b : b + 1;
+    for (;;) {
+      const rest = proposal.draw(source, logX, s + 2, 2, n, cap);
+      if (top) top.topProposals++;
+      if (all) {
+        all.proposals++;
+        all.visited += proposal.visited;
+      }
+      if (rest === DistinctOddProposal.OVER) continue;
+      const j0 = (n - rest) % 2;
+      if (j0 === 1 && s > cap) continue; // the parity needs an odd size the range does not have
+      const t = rest + s * j0;
+      if (t > n) continue;
+      const m = (n - t) / 2;
+      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
+      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
+        this.extra = j0 === 1 ? s : 0;
         return m;
       }
     }
@@ -210,6 +288,7 @@ export class DistinctSelfSimilarTables {
   constructor(
     readonly table = new DistinctPartitionTable(DISTINCT_BASE_THRESHOLD),
     readonly logQ = new LogDistinctPartitionNumbers(),
+    readonly bounded = new DistinctBoundedTables(table.maxN, logQ),
   ) {}
 }
 
@@ -221,7 +300,7 @@ export class DistinctSelfSimilarTables {
 export const DISTINCT_BASE_THRESHOLD = 200;
 
 /** The tables used when the caller passes none (one per process; pure caches). */
-const defaultTables = new DistinctSelfSimilarTables();
+export const defaultTables = new DistinctSelfSimilarTables();
 
 /**
  * The method as a planner sampler for one n (1 <= n <= 1e9), with its estimates: expected work
@@ -263,7 +342,7 @@ export class DistinctSelfSimilarSampler implements PartitionSampler {
 }
 
 /** BigInt steps of the exact q table (≈ 2000 sizes × 2√(2m/3) pentagonal terms). */
-const EXACT_COUNT_WORK = 1.2e5;
+export const EXACT_COUNT_WORK = 1.2e5;
 
 /**
  * Expected sizes visited by one proposal at size n: the direct phase (odd k >= 3 with
@@ -271,7 +350,7 @@ const EXACT_COUNT_WORK = 1.2e5;
  * (Σ_{k odd > K} p_k ≈ ln(1 + 1/3)/(2t)). With the exact acceptance rates this gives 75,500
  * sizes visited per sample at n = 1e9, against 74,800 measured (one-off run, 300 samples).
  */
-function visitsPerProposal(n: number): number {
+export function visitsPerProposal(n: number): number {
   const t = -distinctLogX(n);
   return Math.log(3) / (2 * t) + (VISITS_PER_TAIL_PART * Math.log(4 / 3)) / (2 * t) + 2;
 }

@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { DistinctBoundedSelfSimilarSampler } from '../distinct-bounded-self-similar.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
@@ -37,8 +38,12 @@ import { solveTilt, tiltMoments } from './tilt.js';
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
  *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
  *   are refused. Measured consequences (planner estimates): plain distinct parts up to n = 1e9
- *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts with a part
- *   bound (distinct-boltzmann) up to n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
+ *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts >= a alone
+ *   (2 <= a <= 200) up to n = 1e9 (distinct-bounded-self-similar: 0.26 ms per sample at 1e6, 6 ms
+ *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
+ *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7), or distinct-bounded-self-similar where
+ *   its counts serve every level (not for maxPart ~ 2 sqrt(n); e.g. maxPart = 1e4 at n = 1e6:
+ *   4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
@@ -184,6 +189,23 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // is only built when all candidates are asked for.
     const plainDistinct = distinct && open && lo <= 1;
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
+    // Distinct parts in [a, c] (a <= 200; a >= 2 or c < n): the same engine with the bounds going
+    // down the levels (distinct-bounded-self-similar.ts), where its counts serve every level
+    // (`servable`: not for an upper bound near the middle of its range at large n, e.g.
+    // maxPart ~ 2√n). Its setup is time (count tables of a few thousand doubles each), so it fits
+    // on the sample-work limit and the memory it holds.
+    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
+    const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
+    const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
+    if (sampler !== null && sampler.servable) {
+      out.push({
+        method: sampler.method,
+        setupWork: sampler.setupWork,
+        sampleWork: sampler.expectedWork,
+        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+        build: () => sampler,
+      });
+    }
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
     if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {

@@ -1,0 +1,408 @@
+/**
+ * log Q(m), Q(m) = Q_{a,b}(m) the number of partitions of m into distinct parts in [a, b]
+ * (a >= 1, b >= a or b = ∞; OEIS A000009 for a = 1, b = ∞; A025147 for parts >= 2; A025148 for
+ * parts >= 3), for 0 <= m <= 1e9, with numerically stable log-ratios log(Q(m1)/Q(m2)).
+ *
+ * - m <= exactUpTo: a table filled by c(m) += c(m − k) for k = a..b, m descending (the generating
+ *   function Π_{a<=k<=b}(1 + q^k) multiplied in one factor at a time). Additions of positive
+ *   numbers only, so each double carries a relative error of at most ~(b − a) roundings.
+ * - m > exactUpTo: the saddle-point integral of the circle method's main arc, as in
+ *   log-min-part-count.ts. With q = e^{−τ},
+ *     Π_{k>=1}(1 + q^k) = P(q)/P(q²) = (1/√2)·exp(π²/(12τ) + τ/24)·P(e^{−4π²/τ})/P(e^{−2π²/τ})
+ *   (P = Π 1/(1 − q^k), the modular transformation of the Dedekind eta function; Apostol 1990,
+ *   "Modular functions and Dirichlet series", Thm 3.1), the last ratio 1 + O(e^{−2π²·Re(1/τ)}),
+ *   below e^{−2π√(12m)} at the saddle. So Q(m) ≈ (1/2π)∫ exp φ(t + iy) dy with
+ *     φ(τ) = −½ log 2 + π²/(12τ) + (m + 1/24)τ − Σ_{k<a} log(1 + e^{−kτ}) − T_b(τ),
+ *     T_b(τ) = Σ_{k>b} log(1 + e^{−kτ}) = Σ_{j>=1} ((−1)^{j+1}/j)·e^{−j(b+1)τ}/(1 − e^{−jτ}),
+ *   along the vertical line through the real saddle point t (φ'(t) = 0, Newton), by the
+ *   trapezoidal rule (step 0.5/σ, σ² = φ''(t), range ±10/σ: error e^{−79} and e^{−50}; Trefethen
+ *   & Weideman 2014, SIAM Review 56, §5). The j-series of T_b converges like e^{−j(b+1)t}; it is
+ *   used only where (b + 1)t >= TAIL_MIN_BT (there T_b is below ~e^{−3}/t, so its rounding stays
+ *   far below 1e-14 relative to Q). Where b is nearer the middle of the polynomial the class
+ *   refuses (accurate(m) is false) and the planner keeps the other methods.
+ *   The other arcs (q near roots of unity of order >= 2) are dropped: near q = −1 the factors
+ *   1/(1 + q^k), k < a odd, amplify them, so the table must reach further for larger a. Where the
+ *   dropped part is below double rounding was decided by comparing with exact BigInt counts
+ *   (test/partitions/log-distinct-bounded-count.test.ts): defaultDistinctExactUpTo(a) below.
+ *
+ * Log-ratios across the integral: log Q(m1) − log Q(m2) = [φ_{m1}(t1) − φ_{m2}(t2)] + log I1 −
+ * log I2, the bracket formed from differences computed in place (log1p, expm1), never by
+ * subtracting two logs of size ~√m.
+ */
+export class LogDistinctBoundedCounts {
+  static readonly MAX_M = 1_000_000_000;
+  /** The tail series T_b is used only where (b + 1)·t is at least this (see the class comment). */
+  static readonly TAIL_MIN_BT = 1;
+  /** Largest exact table built on demand for finite b (additions), and its widest part range (no overflow: Q < 2^1000). */
+  static readonly SLOW_TABLE_ADDITIONS = 2e8;
+  static readonly SLOW_TABLE_MAX_RANGE = 1000;
+
+  /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
+  readonly total: number;
+  /** The exact table, built on first use (planning only asks servable(), which needs none). */
+  private table: Float64Array | null = null;
+  private logTable: Float64Array | null = null;
+  /** Largest m the table holds (or will hold once built). */
+  private tableEnd: number;
+  private readonly memo = new Map<number, Saddle>();
+  private concaveFrom = -1;
+
+  constructor(
+    readonly a: number,
+    readonly b: number = Infinity,
+    readonly exactUpTo: number = defaultDistinctExactUpTo(a),
+  ) {
+    if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be an integer >= 1, got ${a}`);
+    if (b !== Infinity && (!Number.isInteger(b) || b < a)) throw new RangeError(`b must be an integer >= a or Infinity, got ${b}`);
+    if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
+    this.total = b === Infinity ? Infinity : ((a + b) * (b - a + 1)) / 2;
+    this.tableEnd = exactUpTo;
+  }
+
+  private get exact(): Float64Array {
+    if (this.table === null) {
+      this.table = knapsack(this.a, this.b, this.tableEnd);
+      this.logTable = this.table.map(Math.log);
+    }
+    return this.table;
+  }
+
+  private get logExact(): Float64Array {
+    void this.exact;
+    return this.logTable!;
+  }
+
+  /** Additions done by the constructor (setup work). */
+  static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a)): number {
+    let sum = 0;
+    for (let k = a; k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
+    return sum;
+  }
+
+  /** Q(S − m) = Q(m): the half of the polynomial where the saddle point is positive. */
+  private fold(m: number): number {
+    return m > this.total / 2 ? this.total - m : m;
+  }
+
+  /** Whether the saddle-point integral serves this (folded) m: b = ∞, or the tail series converges fast enough. */
+  private fast(m: number): boolean {
+    if (this.b === Infinity) return true;
+    const t = this.saddle(m).t;
+    return t > 0 && (this.b + 1) * t >= LogDistinctBoundedCounts.TAIL_MIN_BT;
+  }
+
+  /**
+   * Whether every Q(m), m <= mMax, is served to full accuracy: from the table, the integral, or
+   * (finite b) an exact table grown on demand within SLOW_TABLE_ADDITIONS. The saddle point falls
+   * as m rises to S/2, so the integral, once unusable, stays so up to S/2.
+   */
+  servable(mMax: number): boolean {
+    const top = Math.min(mMax, Math.floor(this.total / 2));
+    if (top <= this.tableEnd || this.fast(top)) return true;
+    return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
+      LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
+  }
+
+  /** Whether m (folded) is above the table and served by the integral (no grown table). */
+  servesByIntegral(m: number): boolean {
+    const f = this.fold(Math.min(m, this.total));
+    return f > this.tableEnd && this.fast(f);
+  }
+
+  /** Additions an exact table up to m costs. */
+  static slowTableWork(a: number, b: number, m: number): number {
+    return (Math.min(b, m) - a + 1) * m;
+  }
+
+  /**
+   * The smallest L >= a with Q(m)² >= Q(m − 1)·Q(m + 1) for all L < m < exactUpTo and Q(k) <=
+   * Q(L) for all k < L (exact checks on the table); above it the integral's values, checked
+   * concave on a grid in the tests.
+   */
+  logConcaveFrom(): number {
+    if (this.concaveFrom < 0) {
+      const c = this.exact;
+      let from = Math.min(this.a, c.length - 1);
+      for (let m = this.a + 1; m < c.length - 1; m++) if (c[m] * c[m] < c[m - 1] * c[m + 1]) from = m;
+      let prefixMax = 0;
+      for (let k = 0; k < from; k++) prefixMax = Math.max(prefixMax, c[k]);
+      while (from < c.length - 1 && c[from] < prefixMax) prefixMax = Math.max(prefixMax, c[from++]);
+      this.concaveFrom = from;
+    }
+    return this.concaveFrom;
+  }
+
+  /** Q(m) as a double, m <= exactUpTo. */
+  value(m: number): number {
+    if (!(m <= this.exactUpTo)) throw new RangeError(`Q(m) as a double is tabulated up to ${this.exactUpTo}, got ${m}`);
+    return m < this.exact.length ? this.exact[m] : 0;
+  }
+
+  /** log Q(m) (−Infinity where Q(m) = 0). */
+  log(m: number): number {
+    this.check(m);
+    if (m > this.total) return -Infinity;
+    const f = this.fold(m);
+    if (f < this.exact.length) return this.logExact[f];
+    if (this.fast(f)) {
+      const s = this.saddle(f);
+      return s.phi + s.logI;
+    }
+    this.grow(f);
+    return this.logExact[f];
+  }
+
+  /** log(Q(m1)/Q(m2)), stable (see the class comment). */
+  logRatio(m1: number, m2: number): number {
+    this.check(m1);
+    this.check(m2);
+    if (m1 > this.total || m2 > this.total) return this.log(m1) - this.log(m2);
+    const f1 = this.fold(m1);
+    const f2 = this.fold(m2);
+    if (f1 === f2) return 0;
+    const n = this.exact.length;
+    if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
+    if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
+    const s1 = this.saddle(f1);
+    const s2 = this.saddle(f2);
+    return this.phiDifference(f1, s1.t, f2, s2.t) + s1.logI - s2.logI;
+  }
+
+  /** The real saddle point for m (also a Boltzmann parameter of mean size ≈ m). */
+  saddlePoint(m: number): number {
+    return distinctBoundedSaddle(this.a, this.b, m);
+  }
+
+  /** Grows the exact table to cover m (finite b, where the integral is not used). */
+  private grow(m: number): void {
+    if (this.b - this.a + 1 > LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE || LogDistinctBoundedCounts.slowTableWork(this.a, this.b, m) > LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS) {
+      throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}] is beyond the exact table's limit`);
+    }
+    const doubled = Math.min(Math.floor(this.total / 2), Math.max(m, 2 * this.tableEnd));
+    this.tableEnd = LogDistinctBoundedCounts.slowTableWork(this.a, this.b, doubled) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS ? doubled : m;
+    this.table = null;
+  }
+
+  /** φ_{m1}(t1) − φ_{m2}(t2) without cancellation of the large terms. */
+  private phiDifference(m1: number, t1: number, m2: number, t2: number): number {
+    const d = t1 - t2;
+    // π²/(12t1) − π²/(12t2) + (m1 + 1/24)t1 − (m2 + 1/24)t2 = d·(m1 + 1/24 − π²/(12 t1 t2)) + (m1 − m2)·t2
+    let sum = d * (m1 + 1 / 24 - PI2_12 / (t1 * t2)) + (m1 - m2) * t2;
+    // −Σ_{k<a} log((1 + e^{−k t1})/(1 + e^{−k t2})) = −Σ log1p(e^{−k t2}·expm1(−k d)/(1 + e^{−k t2}))
+    for (let k = 1; k < this.a; k++) {
+      const e = Math.exp(-k * t2);
+      sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
+    }
+    if (this.b !== Infinity) sum -= tailDifference(this.b, t1, t2);
+    return sum;
+  }
+
+  private check(m: number): void {
+    if (!Number.isInteger(m) || m < 0 || m > LogDistinctBoundedCounts.MAX_M) {
+      throw new RangeError(`m must be an integer in [0, ${LogDistinctBoundedCounts.MAX_M}], got ${m}`);
+    }
+  }
+
+  private saddle(m: number): Saddle {
+    const hit = this.memo.get(m);
+    if (hit !== undefined) return hit;
+    const s = computeSaddle(this.a, this.b, m);
+    if (this.memo.size >= MEMO_LIMIT) this.memo.clear();
+    this.memo.set(m, s);
+    return s;
+  }
+}
+
+/** Q(0..upTo) for distinct parts in [a, b], by c(m) += c(m − k) (m descending), doubles. */
+function knapsack(a: number, b: number, upTo: number): Float64Array {
+  const c = new Float64Array(upTo + 1);
+  c[0] = 1;
+  const last = Math.min(b, upTo);
+  for (let k = a; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
+  return c;
+}
+
+interface Saddle {
+  readonly t: number;
+  readonly phi: number;
+  readonly logI: number;
+}
+
+const PI2_12 = (Math.PI * Math.PI) / 12;
+const MEMO_LIMIT = 4096;
+const STEP = 0.5;
+const RANGE = 10;
+/** The integrand is summed until it is below e^{−CUTOFF} of its peak. */
+const CUTOFF = 45;
+
+/**
+ * The table's end per a. Accuracy: above it the dropped arcs are below double rounding; measured
+ * against exact BigInt counts, log-ratio errors above 5e-15 were seen up to m = 1670 (a = 2, 3),
+ * 2220 (7), 2940 (20), 3875 (50), 5555 (100); 2000 + 50a + a²/20 keeps a margin above each
+ * (test/partitions/log-distinct-bounded-count.test.ts checks from the table's end on). Speed: at
+ * least 4000, since just above ~2000 the integrand decays to e^{−45} only far out (its floor is
+ * e^{−π²/(12t)}, raised by the factors 1/|1 + q^k|, k < a), which costs thousands of nodes; from
+ * m = 4000 on a count takes 0.01–0.3 ms (a <= 100).
+ */
+export function defaultDistinctExactUpTo(a: number): number {
+  return Math.ceil(Math.max(4000, 2000 + 50 * a + (a * a) / 20));
+}
+
+/**
+ * T_b(t1) − T_b(t2) term by term without cancellation: with g_j(t) = e^{−j(b+1)t}/(1 − e^{−jt}),
+ * g_j(t1) − g_j(t2) = g_j(t2)·expm1(Δ_j), Δ_j = −j(b+1)(t1 − t2) − log((1 − e^{−jt1})/(1 − e^{−jt2})).
+ */
+function tailDifference(b: number, t1: number, t2: number): number {
+  const d = t1 - t2;
+  let sum = 0;
+  for (let j = 1; j <= TAIL_TERMS; j++) {
+    const den = -Math.expm1(-j * t2);
+    const g = Math.exp(-j * (b + 1) * t2) / den;
+    const delta = -j * (b + 1) * d - Math.log1p((-Math.exp(-j * t2) * Math.expm1(-j * d)) / den);
+    const term = (g * Math.expm1(delta)) / j;
+    sum += j % 2 === 1 ? term : -term;
+    if (Math.exp(-j * (b + 1) * Math.min(t1, t2)) / den < 1e-18 * (Math.abs(sum) + 1e-300)) break;
+  }
+  return sum;
+}
+
+const TAIL_TERMS = 400;
+
+/** T_b(t) = Σ_{k>b} log(1 + e^{−kt}) for real t by its j-series (b finite). */
+function tail(b: number, t: number): number {
+  let sum = 0;
+  for (let j = 1; ; j++) {
+    const g = Math.exp(-j * (b + 1) * t) / -Math.expm1(-j * t);
+    sum += (j % 2 === 1 ? g : -g) / j;
+    if (g < 1e-18 * Math.abs(sum)) break;
+    if (j > TAIL_TERMS) break;
+  }
+  return sum;
+}
+
+/** T_b'(t) and T_b''(t). */
+function tailDerivatives(b: number, t: number): [number, number] {
+  let d1 = 0;
+  let d2 = 0;
+  for (let j = 1; j <= TAIL_TERMS; j++) {
+    const em = Math.exp(-j * t);
+    const den = -Math.expm1(-j * t);
+    const g = Math.exp(-j * (b + 1) * t) / den;
+    const l1 = -j * (b + 1) - (j * em) / den;
+    const l2 = (j * j * em) / (den * den);
+    const sign = j % 2 === 1 ? 1 / j : -1 / j;
+    d1 += sign * g * l1;
+    d2 += sign * g * (l1 * l1 + l2);
+    if (g * l1 * l1 < 1e-18 * Math.abs(d2) + 1e-300) break;
+  }
+  return [d1, d2];
+}
+
+/** φ'(t) and φ''(t) on the real axis. */
+function derivatives(a: number, b: number, m: number, t: number): [number, number] {
+  let d1 = -PI2_12 / (t * t) + m + 1 / 24;
+  let d2 = (2 * PI2_12) / (t * t * t);
+  for (let k = 1; k < a; k++) {
+    const e = Math.exp(-k * t);
+    d1 += (k * e) / (1 + e);
+    d2 -= (k * k * e) / ((1 + e) * (1 + e));
+  }
+  if (b !== Infinity) {
+    const [t1, t2] = tailDerivatives(b, t);
+    d1 -= t1;
+    d2 -= t2;
+  }
+  return [d1, d2];
+}
+
+/**
+ * The real saddle point t of φ for (a, b, m), m >= 1: Σ_{a<=k<=b} k/(e^{kt} + 1) ≈ m, so also the
+ * Boltzmann parameter x = e^{−t} at which distinct parts in [a, b] have mean size ≈ m.
+ */
+export function distinctBoundedSaddle(a: number, b: number, m: number): number {
+  let t = Math.PI / Math.sqrt(12 * m);
+  for (let i = 0; i < 80; i++) {
+    const [d1, d2] = derivatives(a, b, m, t);
+    let next = t - d1 / d2;
+    if (!(d2 > 0) || !(next > t / 2)) next = t / 2;
+    else if (next > 2 * t) next = 2 * t;
+    const done = Math.abs(next - t) <= 1e-15 * t;
+    t = next;
+    if (done) break;
+  }
+  return t;
+}
+
+function computeSaddle(a: number, b: number, m: number): Saddle {
+  const t = distinctBoundedSaddle(a, b, m);
+  const [, d2] = derivatives(a, b, m, t);
+  const sigma = Math.sqrt(d2);
+  let phi = -0.5 * Math.LN2 + PI2_12 / t + (m + 1 / 24) * t;
+  for (let k = 1; k < a; k++) phi -= Math.log1p(Math.exp(-k * t));
+  const tailT = b === Infinity ? 0 : tail(b, t);
+  phi -= tailT;
+  // Trapezoid with h = 2π/K, K integer, so that the phase m·y = 2π(m·j mod K)/K is exact.
+  const K = Math.ceil((2 * Math.PI * sigma) / STEP);
+  const h = (2 * Math.PI) / K;
+  // Beyond the Gaussian core the integrand is not Gaussian: |exp(π²/(12τ))| decays only to
+  // exp(π²/(12t)·(1/(1 + s²) − 1)), s = y/t. So the sum runs on until the integrand is below
+  // e^{−CUTOFF} relative (at least RANGE/σ, at most y = π).
+  const first = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
+  let sum = 1;
+  for (let j = 1; j <= K / 2; j++) {
+    const [re, im] = phiShift(a, b, m, t, j * h, j, K);
+    sum += 2 * Math.exp(re) * Math.cos(im);
+    if (j >= first && re < -CUTOFF) break;
+  }
+  const logI = Math.log((h * sum) / (2 * Math.PI));
+  return { t, phi, logI };
+}
+
+/**
+ * φ(t + iy) − φ(t) (real and imaginary parts), y = 2πj/K:
+ *   π²/12·(1/(t + iy) − 1/t) = −(π²/(12t²))·(iy + y²/t)/(1 + (y/t)²);  (m + 1/24)·iy;
+ *   −Σ_{k<a} log(1 + p_k(e^{−iky} − 1)), p_k = e^{−kt}/(1 + e^{−kt});  −(T_b(t + iy) − T_b(t)).
+ */
+function phiShift(a: number, b: number, m: number, t: number, y: number, j: number, K: number): [number, number] {
+  const s = y / t;
+  const s2 = s * s;
+  const c = PI2_12 / (t * t) / (1 + s2);
+  let re = (-c * y * y) / t;
+  const phase = (2 * Math.PI * ((m * j) % K)) / K;
+  let im = phase - c * y + y / 24;
+  for (let k = 1; k < a; k++) {
+    const e = Math.exp(-k * t);
+    const p = e / (1 + e);
+    const half = Math.sin((k * y) / 2);
+    const wr = -2 * p * half * half;
+    const wi = -p * Math.sin(k * y);
+    re -= 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
+    im -= Math.atan2(wi, 1 + wr);
+  }
+  if (b !== Infinity) {
+    // T_b(t + iy) − T_b(t) = Σ_j ((−1)^{j+1}/j)·g_j(t)·(e^{Δ_j} − 1), term by term without
+    // cancellation: Δ_j = −ij(b+1)y − log(1 + w), w = p(1 − e^{−ijy}), p = e^{−jt}/(1 − e^{−jt}).
+    let tr = 0;
+    let ti = 0;
+    for (let jj = 1; jj <= TAIL_TERMS; jj++) {
+      const den = -Math.expm1(-jj * t);
+      const g = Math.exp(-jj * (b + 1) * t) / den;
+      const p = Math.exp(-jj * t) / den;
+      const half = Math.sin((jj * y) / 2);
+      const wr = 2 * p * half * half;
+      const wi = p * Math.sin(jj * y);
+      const dr = -0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
+      const di = -jj * (b + 1) * y - Math.atan2(wi, 1 + wr);
+      const hd = Math.sin(di / 2);
+      const er = Math.expm1(dr) * Math.cos(di) - 2 * hd * hd; // Re(e^Δ − 1)
+      const ei = Math.exp(dr) * Math.sin(di);
+      const sign = jj % 2 === 1 ? 1 / jj : -1 / jj;
+      tr += sign * g * er;
+      ti += sign * g * ei;
+      if (g < 1e-18) break;
+    }
+    re -= tr;
+    im -= ti;
+  }
+  return [re, im];
+}

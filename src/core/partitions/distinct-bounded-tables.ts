@@ -1,0 +1,148 @@
+import { LogDistinctBoundedCounts, distinctBoundedSaddle } from '../counting/log-distinct-bounded-count.js';
+import type { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
+import { DistinctPartitionTable } from './distinct-table.js';
+
+/** What a level of the bounded distinct engine needs of its counts. */
+export interface DistinctCounts {
+  logRatio(m1: number, m2: number): number;
+  log(m: number): number;
+  /** From here on the counts are log-concave in m (a local maximum of the weight is global). */
+  logConcaveFrom(): number;
+}
+
+/**
+ * The count tables and base tables the distinct self-similar engine uses for a smallest part
+ * a >= 2 (distinct-self-similar.ts): log Q_b for b = ⌈a/2⌉, ⌈a/4⌉, ..., and unranking tables for
+ * distinct parts >= b. Filled lazily, owned by this object (pure caches).
+ */
+export class DistinctBoundedTables {
+  private readonly counts = new Map<string, LogDistinctBoundedCounts>();
+  private readonly tables = new Map<number, DistinctPartitionTable>();
+  private readonly plain: DistinctCounts;
+
+  constructor(
+    readonly baseThreshold: number,
+    logQ: LogDistinctPartitionNumbers,
+  ) {
+    // q(m)² > q(m − 1)q(m + 1) for all m >= 33 (distinct-self-similar.ts).
+    this.plain = { logRatio: (x, y) => logQ.logRatio(x, y), log: (m) => logQ.log(m), logConcaveFrom: () => 33 };
+  }
+
+  /** log Q for distinct parts in [b, c] (b = 1, c = ∞: the plain q; c < b: only Q(0) = 1). */
+  countsFor(b: number, c = Infinity): DistinctCounts {
+    if (b === 1 && c === Infinity) return this.plain;
+    if (c < b) return EMPTY_RANGE;
+    const key = `${b},${c}`;
+    let counts = this.counts.get(key);
+    if (counts === undefined) {
+      counts = new LogDistinctBoundedCounts(b, c);
+      this.counts.set(key, counts);
+    }
+    return counts;
+  }
+
+  /** The unranking table for distinct parts >= lo up to the base threshold. */
+  tableFor(lo: number): DistinctPartitionTable {
+    let t = this.tables.get(lo);
+    if (t === undefined) {
+      t = new DistinctPartitionTable(this.baseThreshold, lo);
+      this.tables.set(lo, t);
+    }
+    return t;
+  }
+
+  /**
+   * t with Boltzmann mean size ≈ n for distinct parts in [b, c] (any t > 0 is exact; this one is
+   * efficient). Past the middle of a finite range (n >= S/2, no positive saddle) t = 1/c.
+   */
+  saddle(b: number, n: number, c = Infinity): number {
+    if (c !== Infinity && n >= ((b + c) * (c - b + 1)) / 4) return 1 / c;
+    const t = distinctBoundedSaddle(b, c, n);
+    return t > 0 && Number.isFinite(t) ? t : c === Infinity ? Math.PI / Math.sqrt(12 * n) : 1 / c;
+  }
+
+  /**
+   * argmax over integers 0 <= m <= n/2 of log Q(m) + 2m·logX. Above logConcaveFrom() = L the
+   * weight is concave, so the last m with a positive forward difference is found by bisection;
+   * m < L is scanned unless the peak is above log Q(L), which bounds every weight there (Q is
+   * non-decreasing for m >= the smallest part b — add 1 to the largest part — Q(m) = 0 for
+   * 0 < m < b, and x < 1).
+   */
+  maximiser(counts: DistinctCounts, n: number, logX: number, guess?: number): number {
+    const half = Math.floor(n / 2);
+    const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
+    const from = counts.logConcaveFrom();
+    if (half <= from) {
+      let best = 0;
+      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
+      return best;
+    }
+    // rises(m): weight(m) > weight(m − 1); true then false on (from, half] (concave). The last m
+    // where it holds (or from) is bracketed by galloping from the guess, then bisected: the same
+    // answer as bisecting all of [from, half], in ~log₂|guess error| counts instead of log₂ n.
+    const rises = (m: number) => weight(m, m - 1) > 0;
+    let lo = from; // rises(lo) or lo = from
+    let hi = half; // the answer is <= hi
+    if (guess !== undefined && Number.isFinite(guess)) {
+      const g = Math.min(half, Math.max(from + 1, Math.round(guess)));
+      if (rises(g)) {
+        lo = g;
+        for (let step = 1; ; step *= 2) {
+          const probe = g + step;
+          if (probe > half) break;
+          if (!rises(probe)) {
+            hi = probe - 1;
+            break;
+          }
+          lo = probe;
+        }
+      } else {
+        hi = g - 1;
+        for (let step = 1; ; step *= 2) {
+          const probe = g - step;
+          if (probe <= from) break;
+          if (rises(probe)) {
+            lo = probe;
+            break;
+          }
+          hi = probe - 1;
+        }
+      }
+    }
+    while (lo < hi) {
+      const mid = Math.ceil((lo + hi) / 2);
+      if (rises(mid)) lo = mid;
+      else hi = mid - 1;
+    }
+    let m = lo;
+    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+      for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
+    }
+    return m;
+  }
+}
+
+/**
+ * A guess of the maximiser of Q(m)·x^{2m}, Q for distinct parts in [b, c]: where d log Q/dm ≈
+ * (Q's saddle point at m) equals 2t, i.e. the Boltzmann mean size Σ_{b<=k<=c} k/(e^{2tk} + 1).
+ */
+export function maximiserGuess(b: number, c: number, t: number): number {
+  // A midpoint sum over at most ~GUESS_TERMS strides (only a guess: the search is exact anyway).
+  const last = Math.min(c, b + 40 / (2 * t));
+  const stride = Math.max(1, Math.floor((last - b + 1) / GUESS_TERMS));
+  let mean = 0;
+  for (let k = b; k <= last; k += stride) {
+    const mid = k + (Math.min(stride, last - k + 1) - 1) / 2;
+    mean += (Math.min(stride, last - k + 1) * mid) / (Math.exp(2 * t * mid) + 1);
+  }
+  return mean;
+}
+
+const GUESS_TERMS = 500;
+
+/** Counts of an empty range of part sizes: only the empty partition. */
+const EMPTY_RANGE: DistinctCounts = {
+  log: (m) => (m === 0 ? 0 : -Infinity),
+  logRatio: (m1, m2) => (m1 === 0 ? 0 : -Infinity) - (m2 === 0 ? 0 : -Infinity),
+  logConcaveFrom: () => 0,
+};
