@@ -128,6 +128,8 @@ export class BoxMixture implements PartitionSampler {
   readonly estimates: MixtureEstimates;
   private readonly parts: number[];
   private readonly samplers: BoxSubset[];
+  /** The designs, one per entry (their tilts and normalisers; read by tests). */
+  readonly designs: readonly BoxDesign[];
   /** Cumulative weights proportional to 1 / g(k). */
   private readonly cumulative: Float64Array;
 
@@ -232,6 +234,7 @@ export class BoxMixture implements PartitionSampler {
       designs.push(design);
       widest = Math.max(widest, design.k);
     }
+    this.designs = designs;
     const buffer = new Float64Array(widest);
     this.samplers = designs.map((d) => new BoxSubset(d, buffer));
     this.parts = entries.map((e) => e.parts);
