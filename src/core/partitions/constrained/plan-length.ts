@@ -22,7 +22,7 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  * - "box-subset/1" (box-subset.ts): a part bound with exactly k parts (distinct or not) or with
  *   at most K parts >= 1 is a partition in a box (Andrews 1976, ch. 3) after the maps below;
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
- *   union over k of boxes;
+ *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
  *   (allowed lists, distinct parts, exactly k): the subset design over the list;
  * - "bounded-boltzmann/1+conjugate": no upper bound on the parts, by conjugation (parts <= k);
@@ -51,7 +51,11 @@ export interface LengthPlanInput {
 const SETUP_STEPS_PER_ROW = 12;
 /** No box design is solved whose work per sample would certainly exceed this (the planner's limit). */
 const SAMPLE_WORK_CEILING = 1e7;
-/** Setup steps a box mixture may take (tilts and normalisers: transcendental functions, ~0.1 us each). */
+/**
+ * Setup steps a box mixture may take (tilts and normalisers: transcendental functions, ~0.1 us
+ * each; 5e5 steps took 30-60 ms of CPU for the 1464 boxes of n = 15395764, parts in [2, 10368],
+ * at most 2948 parts).
+ */
 const MIXTURE_SETUP_LIMIT = 2e6;
 /** Length filters are offered only when the condition holds with at least this probability (estimate). */
 const FILTER_MIN_ACCEPTANCE = 0.02;
