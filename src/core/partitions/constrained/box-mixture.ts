@@ -26,7 +26,7 @@ export interface MixtureEstimates {
   readonly expectedProposals: number;
   readonly proposalCost: number;
   readonly expectedParts: number;
-  /** Setup steps: tilt solving and normalisers, about 12 per row of every box. */
+  /** Setup steps: tilt solving and normalisers (about 20 per box while a tilt is kept, more per new tilt). */
   readonly setupWork: number;
 }
 
@@ -114,8 +114,9 @@ function advanceTo(sums: PowerSums, j: number): PowerSums {
  * (rejection sampling from a mixture, Devroye 1986, §II.3): a proposal of box k succeeds with
  * probability c(k) g(k), where g(k) is known in closed form (BoxDesign.logSuccessPerMember), so
  * drawing k with probability proportional to 1 / g(k) and stopping at the first success gives
- * P(k) proportional to (1 / g(k)) c(k) g(k) = c(k), and within k a uniform member. Each k has its
- * own tilt (only speed depends on the tilts). Weights below 2^-1074 of the largest underflow to
+ * P(k) proportional to (1 / g(k)) c(k) g(k) = c(k), and within k a uniform member. Any tilt is
+ * exact (only speed depends on it), so consecutive k share one while it stays efficient, and
+ * g(k) is advanced from k - 1 in O(1) (below): setup O(K). Weights below 2^-1074 of the largest underflow to
  * 0; those k hold a share of the family below ~1e-300 / (success rate of the best k).
  *
  * Method id "box-mixture/1".
