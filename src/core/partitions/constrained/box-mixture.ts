@@ -32,7 +32,7 @@ export interface MixtureEstimates {
 
 /** Tuning of the tilts (only speed depends on it). */
 export interface MixtureOptions {
-  /** A bounded box keeps the previous tilt while the design's mean is within this many sd of its target (default 0.75). */
+  /** A bounded box keeps the previous tilt while the design's mean is within this many sd of its target (default 0.5: by the local limit, an acceptance rate at least exp(-1/8) = 0.88 times that of the tilt solved for the box). */
   readonly keepWithin?: number;
   /** Setup steps after which construction stops with MixtureSetupExceeded (default none). */
   readonly setupLimit?: number;
@@ -140,7 +140,7 @@ export class BoxMixture implements PartitionSampler {
     distinctParts: (parts: number) => number,
     options: MixtureOptions = {},
   ) {
-    const keepWithin = options.keepWithin ?? 0.75;
+    const keepWithin = options.keepWithin ?? 0.5;
     const setupLimit = options.setupLimit ?? Infinity;
     if (entries.length === 0) throw new RangeError('box mixture needs at least one number of parts');
     const designs: BoxDesign[] = [];
