@@ -53,7 +53,7 @@ const SETUP_STEPS_PER_ROW = 12;
 const SAMPLE_WORK_CEILING = 1e7;
 /**
  * Setup steps a box mixture may take (tilts and normalisers: transcendental functions, ~0.1 us
- * each; 5e5 steps took 30-60 ms of CPU for the 1464 boxes of n = 15395764, parts in [2, 10368],
+ * each; 7.9e5 steps took 40-60 ms of CPU for the 1464 boxes of n = 15395764, parts in [2, 10368],
  * at most 2948 parts).
  */
 const MIXTURE_SETUP_LIMIT = 2e6;
