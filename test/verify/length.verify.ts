@@ -2,7 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { countPartitions } from '../../src/core/counting/partition-counts.js';
 import type { PartitionFamily } from '../../src/core/family.js';
 import { lengthOf, partsOf, sizeOf, type Partition } from '../../src/core/partition.js';
+import type { PartitionSampler } from '../../src/core/sampler.js';
+import type { BoxMixture } from '../../src/core/partitions/constrained/box-mixture.js';
 import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
+import { mixtureSampler } from '../../src/core/partitions/constrained/plan-length.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { chiSquareTest } from '../support/chi-square.js';
 import { satisfies } from '../support/enumerate-constrained.js';
@@ -61,12 +64,15 @@ function run(
   exact: Map<number, number>,
   seed: string,
   planned: string = method,
+  /** A sampler of `method` built with its own tuning, used instead of the planner's. */
+  given?: PartitionSampler,
 ): void {
   // The planner's own choice at this size (tables would still fit, but cost more); `method` is
   // forced, and is the planner's choice unless `planned` says otherwise.
   expect(constrainedPartitionSampler(family).method.replace(/\/\d+/g, '')).toBe(planned);
   expect(planCandidates(family).some((c) => c.method.startsWith('table') && c.fits)).toBe(true);
-  const sampler = constrainedPartitionSampler(family, { method });
+  const sampler = given ?? constrainedPartitionSampler(family, { method });
+  expect(sampler.method.replace(/\/\d+/g, '')).toBe(method);
   const observed = new Map<number, number>();
   for (let i = 0; i < SAMPLES; i++) {
     const p = sampler.sample(sampleSource(seed, i, 'verify-length'));
@@ -128,6 +134,37 @@ describe('box-mixture: law of the number of parts', () => {
     const exact = new Map<number, number>();
     for (let k = 1; k <= 100; k++) exact.set(k, ratio(countPartitions({ kind: 'partition', n: 8000, minPart: 5, length: k }), total));
     run(family, 'box-mixture', lengthOf, exact, 'mixture-minpart');
+  });
+
+  /** Share of the bounded boxes that keep the previous box's tilt. */
+  const keptTilts = (mixture: BoxMixture): number => {
+    const bounded = mixture.designs.filter((d) => !d.single && d.b !== Infinity);
+    return bounded.filter((d, i) => i > 0 && bounded[i - 1].s === d.s).length / bounded.length;
+  };
+
+  // Bounded boxes (parts in [lo, hi]): the planner's sampler, then one whose tilts are all walked
+  // (polish: false; over a third of the k keep the previous k's tilt, their moments and
+  // normalisers walked a step at a time, binomial-walk.ts): the weights of k must be exact.
+  it('n = 1500, at most 90 parts in [2, 30] (bounded boxes, k = 50..90, tilts walked across k)', () => {
+    const family: PartitionFamily = { kind: 'partition', n: 1500, minPart: 2, maxPart: 30, maxLength: 90 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    for (let k = 1; k <= 90; k++) exact.set(k, ratio(countPartitions({ ...family, maxLength: undefined, length: k }), total));
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-bounded', 'box-mixture');
+    const walked = mixtureSampler(1500, 2, 30, false, 90, { polish: false });
+    expect(keptTilts(walked)).toBeGreaterThan(1 / 3);
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-bounded-walked', 'box-mixture', walked);
+  });
+
+  it('n = 1500, at most 30 distinct parts in [2, 100] (staircase boxes, tilts walked across k)', () => {
+    const family: PartitionFamily = { kind: 'partition', n: 1500, distinct: true, minPart: 2, maxPart: 100, maxLength: 30 };
+    const total = countPartitions(family);
+    const exact = new Map<number, number>();
+    for (let k = 1; k <= 30; k++) exact.set(k, ratio(countPartitions({ ...family, maxLength: undefined, length: k }), total));
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-bounded-distinct', 'box-mixture');
+    const walked = mixtureSampler(1500, 2, 100, true, 30, { polish: false });
+    expect(keptTilts(walked)).toBeGreaterThan(1 / 3);
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-bounded-distinct-walked', 'box-mixture', walked);
   });
 });
 
