@@ -1,0 +1,102 @@
+import { LogBoundedPartCounts, boundedPartSaddle } from '../counting/log-bounded-part-count.js';
+import type { Partition } from '../partition.js';
+import type { RandomSource } from '../random.js';
+import type { PartitionSampler } from '../sampler.js';
+import {
+  MIN_PART_BASE_THRESHOLD,
+  MinPartSelfSimilarEngine,
+  defaultTables,
+  type MinPartSelfSimilarStats,
+  type MinPartSelfSimilarTables,
+} from './min-part-self-similar.js';
+
+/**
+ * Exact uniform partitions of n into parts in [a, b] (1 <= a <= b < n) by self-similarity: the
+ * minPart engine (min-part-self-similar.ts) with an upper bound. A partition with parts in [a, b]
+ * is (A, 2μ): A its odd parts (all in [a, b]) and μ its even parts halved, a partition into parts
+ * in [⌈a/2⌉, ⌊b/2⌋]; A is drawn by Boltzmann proposals over the odd sizes up to b and accepted
+ * with probability ∝ c_{[⌈a/2⌉,⌊b/2⌋]}((n − |A|)/2) (log-bounded-part-count.ts), μ recursively.
+ * Sizes shrink by ~4 and b by 2 per level, so b²/n stays about constant down the levels; sizes
+ * <= MIN_PART_BASE_THRESHOLD go to the table (min-part-table.ts, with its upper bound).
+ *
+ * Served (planner): families where each level's counts are tables of at most TABLE_LIMIT
+ * additions, or the main arc above them, so b not far below √n (for parts <= b the arc at q = −1
+ * carries poles of order ⌊b/2⌋; see the counts' comment). "At most K parts" and "exactly k
+ * parts" reach it through conjugation (plan-length.ts).
+ */
+export class BoundedSelfSimilarSampler implements PartitionSampler {
+  readonly method = 'bounded-self-similar/1';
+  readonly expectedLength: number;
+  readonly expectedDistinct: number;
+  readonly expectedWork: number;
+  /** Additions filling the count tables (time). */
+  readonly setupWork: number;
+  /** Doubles the tables hold (memory). */
+  readonly setupCells: number;
+  private readonly engine: MinPartSelfSimilarEngine;
+
+  constructor(
+    readonly n: number,
+    readonly a: number,
+    readonly b: number,
+    private readonly tables: MinPartSelfSimilarTables = defaultTables(),
+    baseThreshold = Math.min(MIN_PART_BASE_THRESHOLD, tables.table.maxN),
+  ) {
+    if (!Number.isInteger(n) || n < 1 || n > LogBoundedPartCounts.MAX_M) throw new RangeError(`n must be an integer in [1, ${LogBoundedPartCounts.MAX_M}], got ${n}`);
+    if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be a positive integer, got ${a}`);
+    if (!Number.isInteger(b) || b < a) throw new RangeError(`b must be an integer >= a, got ${b}`);
+    this.engine = new MinPartSelfSimilarEngine({ baseThreshold, tables });
+    const top = Math.min(b, n);
+    const t = boundedPartSaddle(a, top, n);
+    // Boltzmann means at the saddle: parts Σ x^k/(1 − x^k), distinct sizes Σ x^k, k in [a, b].
+    let parts = 0;
+    let distinct = 0;
+    const last = Math.min(top, a + Math.ceil(45 / t));
+    for (let k = a; k <= last; k++) {
+      const e = Math.exp(-k * t);
+      parts += e / -Math.expm1(-k * t);
+      distinct += e;
+    }
+    this.expectedLength = Math.max(1, parts);
+    this.expectedDistinct = Math.max(1, distinct);
+    // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
+    // (≈ min(#odd sizes, 1.2/t)/2... counted as all odd sizes with x^k > e^{-40}) plus one count;
+    // the maximiser's bisection: 2·log₂(size) counts. A count costs its trapezoid nodes × terms.
+    let work = 2 * this.expectedDistinct + 1000;
+    let setup = 0;
+    let cells = 0;
+    let size = n;
+    let lo = a;
+    let hi = top;
+    let cap = n;
+    while (size > baseThreshold && lo <= hi) {
+      const tl = boundedPartSaddle(lo, hi, size);
+      const odd = Math.max(0, Math.min(hi, lo + 40 / tl) - lo) / 2;
+      const nextLo = Math.ceil(lo / 2);
+      const nextHi = Math.floor(hi / 2);
+      cap = Math.floor(cap / 2);
+      const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
+      const countCost = size / 2 <= end ? 2 : COUNT_COST;
+      work += PROPOSALS * (odd + countCost) + 2 * Math.log2(size) * countCost;
+      if (nextHi >= nextLo) {
+        setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
+        cells += 2 * (end + 1);
+      }
+      size = Math.round(size / 4);
+      lo = nextLo;
+      hi = nextHi;
+    }
+    this.expectedWork = work;
+    this.setupWork = setup + tables.table.size;
+    this.setupCells = cells + tables.table.size;
+  }
+
+  sample(source: RandomSource, stats?: MinPartSelfSimilarStats): Partition {
+    return this.engine.sample(source, this.n, this.a, stats, Math.min(this.b, this.n));
+  }
+}
+
+/** Proposals per level (1/acceptance, measured ~1.3-1.6). */
+const PROPOSALS = 1.5;
+/** Steps per count above the table: ~20-40 trapezoid nodes and a Newton solve, ~64 terms each. */
+const COUNT_COST = 2500;
