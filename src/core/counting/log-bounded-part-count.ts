@@ -11,15 +11,15 @@
  *   along the vertical line through the real saddle point t (φ'(t) = 0, Newton), by the
  *   trapezoidal rule (as log-min-part-count.ts, whose step and range it reuses: Trefethen &
  *   Weideman 2014, SIAM Review 56, §5). L is evaluated in O(1) terms per node whatever b:
- *     * b < DIRECT_BELOW: the sum itself (< 64 terms);
+ *     * b < DIRECT_BELOW: the sum itself (< 16 terms);
  *     * else L = log P(e^{−τ}) + Σ_{k<a} log(1 − e^{−kτ}) + S_b(τ), with log P from the modular
  *       transformation of the Dedekind eta function (Apostol 1990, Thm 3.1; as
  *       log-min-part-count.ts), and S_c(τ) = Σ_{k>c} log(1 − e^{−kτ}) by the Euler–Maclaurin
  *       formula from c + ½ (midpoint form; Abramowitz & Stegun 23.1.32 / DLMF 2.10.1):
- *         S_c = −Li₂(e^{−u})/τ + Σ_{j=1}^{4} β_j τ^{2j−1} f^{(2j−1)}(u),  u = (c + ½)τ,
+ *         S_c = −Li₂(e^{−u})/τ + Σ_{j=1}^{8} β_j τ^{2j−1} f^{(2j−1)}(u),  u = (c + ½)τ,
  *       f(u) = log(1 − e^{−u}), β_j = −B_{2j}(½)/(2j)!, B_{2j}(½) = −(1 − 2^{1−2j})B_{2j}. The
- *       dropped term is ~ 8e-4/c^9 (2.4e-17 at c = 32); when a − 1 >= DIRECT_BELOW the head sum
- *       is replaced the same way (L = −S_{a−1} + S_b).
+ *       dropped term is ~ 2·16!/((2π)^{18} c^{17}) (~1e-21 at c = 16); when a − 1 >= DIRECT_BELOW
+ *       the head sum is replaced the same way (L = −S_{a−1} + S_b).
  *   Li₂(e^{−u}) (complex u, Re u > 0) is the power series Σ e^{−ju}/j² for Re u >= 1, else the
  *   Bernoulli expansion π²/6 − u + u log u − u²/4 + Σ_j B_{2j} u^{2j+1}/(2j (2j+1)!) (DLMF 25.12.12
  *   with the series of Li_s(e^μ) at s = 2, |u| < 2π).
@@ -164,10 +164,10 @@ interface Shape {
 }
 
 /** L by direct sums below this many... sizes: b < DIRECT_BELOW (or a − 1 < DIRECT_BELOW for the head). */
-export const DIRECT_BELOW = 64;
+export const DIRECT_BELOW = 16;
 
 function shapeOf(a: number, b: number): Shape {
-  return { a, b, direct: b < DIRECT_BELOW, headDirect: a - 1 < DIRECT_BELOW / 2 };
+  return { a, b, direct: b < DIRECT_BELOW, headDirect: a - 1 < DIRECT_BELOW };
 }
 
 /** The default table end is capped here (a sampler passes the largest size it needs). */
@@ -283,12 +283,12 @@ function tailDerivatives(c: number, t: number): [number, number] {
   const x0 = c + 0.5;
   const u = x0 * t;
   const e = Math.exp(-u);
-  const li2 = realLi2(e);
+  const li2 = complexLi2ExpNeg(u, 0)[0];
   const logTerm = -Math.log1p(-e); // −log(1 − e^{−u})
   // ∫_{x0}^∞ x w(xt) dx = (u·(−log(1 − e^{−u})) + Li₂(e^{−u}))/t².
   let s1 = (u * logTerm + li2) / (t * t);
   // h^{(n)}(x0) = t^n x0 w^{(n)}(u) + n t^{n−1} w^{(n−1)}(u); corrections Σ β_j h^{(2j−1)}.
-  const wd = wDerivativesReal(u, 8);
+  const wd = wDerivativesReal(u, 2 * EM_TERMS);
   for (let j = 1; j <= EM_TERMS; j++) {
     const n = 2 * j - 1;
     const h = t ** n * x0 * wd[n] + n * t ** (n - 1) * wd[n - 1];
@@ -299,28 +299,18 @@ function tailDerivatives(c: number, t: number): [number, number] {
   return [s1, s2];
 }
 
-/** Li₂(x) for real 0 <= x < 1 by the power series (x <= 1/2) or Li₂(x) = π²/6 − log x log(1 − x) − Li₂(1 − x). */
-function realLi2(x: number): number {
-  if (x <= 0.5) {
-    let sum = 0;
-    let p = x;
-    for (let j = 1; j < 80 && p > 1e-18 * j * j; j++, p *= x) sum += p / (j * j);
-    return sum;
-  }
-  return PI2_6 - Math.log(x) * Math.log1p(-x) - realLi2(1 - x);
-}
-
 /**
  * Euler–Maclaurin weights β_j = −B_{2j}(½)/(2j)! of Σ_{k>c} g(k) = ∫_{c+½}^∞ g + Σ_j β_j g^{(2j−1)}(c + ½):
- * B_{2j}(½) = −(1 − 2^{1−2j}) B_{2j} with B_2 = 1/6, B_4 = −1/30, B_6 = 1/42, B_8 = −1/30.
+ * B_{2j}(½) = −(1 − 2^{1−2j}) B_{2j} (DLMF 24.4.27), B_2 .. B_16 (DLMF Table 24.2.1).
  */
-const EM_TERMS = 4;
-const EM_BETA = [
-  ((1 - 2 ** -1) * (1 / 6)) / 2,
-  ((1 - 2 ** -3) * (-1 / 30)) / 24,
-  ((1 - 2 ** -5) * (1 / 42)) / 720,
-  ((1 - 2 ** -7) * (-1 / 30)) / 40320,
-];
+const EM_TERMS = 8;
+const BERNOULLI_EVEN = [1 / 6, -1 / 30, 1 / 42, -1 / 30, 5 / 66, -691 / 2730, 7 / 6, -3617 / 510];
+const EM_BETA = BERNOULLI_EVEN.map((B, i) => {
+  const j = i + 1;
+  let f = 1;
+  for (let k = 2; k <= 2 * j; k++) f *= k;
+  return ((1 - 2 ** (1 - 2 * j)) * B) / f;
+});
 
 /**
  * Polynomials P_n with w^{(n)}(u) = P_n(w(u)): P_0(w) = w, P_{n+1}(w) = −w(1 + w)P_n'(w)
@@ -328,7 +318,7 @@ const EM_BETA = [
  */
 const W_POLYS: number[][] = (() => {
   const out: number[][] = [[0, 1]];
-  for (let n = 0; n < 8; n++) {
+  for (let n = 0; n < 2 * EM_TERMS; n++) {
     const p = out[n];
     // derivative
     const dp = p.slice(1).map((c, i) => c * (i + 1));
@@ -493,11 +483,14 @@ function envelopeIntegral(shape: Shape, m2: number, m1: number): number {
     const to = Math.min(hi, from * PANEL_RATIO);
     const mid = 0.5 * (from + to);
     const half = 0.5 * (to - from);
+    // Fewer nodes on short panels: the error falls like (half/mid)^{2·nodes} (Bernstein ellipse
+    // of the nearest singularity, μ = 0), below 1e-15 of the panel in each tier.
+    const rule = half <= 5e-4 * mid ? GL2 : half <= 0.025 * mid ? GL4 : GL8;
     let panel = 0;
-    for (let i = 0; i < GL_NODES.length; i++) {
-      const mu = mid + half * GL_NODES[i];
+    for (let i = 0; i < rule.nodes.length; i++) {
+      const mu = mid + half * rule.nodes[i];
       guess = boundedSaddle(shape, mu, guess);
-      panel += GL_WEIGHTS[i] * guess;
+      panel += rule.weights[i] * guess;
     }
     total += half * panel;
     from = to;
@@ -506,7 +499,12 @@ function envelopeIntegral(shape: Shape, m2: number, m1: number): number {
 }
 
 const PANEL_RATIO = 1.5;
-/** 8-point Gauss–Legendre nodes and weights on [−1, 1] (Abramowitz & Stegun, Table 25.4). */
+/** Gauss–Legendre nodes and weights on [−1, 1] (Abramowitz & Stegun, Table 25.4). */
+const GL2 = { nodes: [-0.5773502691896257, 0.5773502691896257], weights: [1, 1] };
+const GL4 = {
+  nodes: [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526],
+  weights: [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538],
+};
 const GL_NODES = [
   -0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498, 0.1834346424956498, 0.5255324099163290,
   0.7966664774136267, 0.9602898564975363,
@@ -515,6 +513,7 @@ const GL_WEIGHTS = [
   0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620, 0.3626837833783620, 0.3137066458778873,
   0.2223810344533745, 0.1012285362903763,
 ];
+const GL8 = { nodes: GL_NODES, weights: GL_WEIGHTS };
 
 /** L(t) on the real axis. */
 function realL(shape: Shape, t: number): number {

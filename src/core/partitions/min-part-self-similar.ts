@@ -99,6 +99,19 @@ export class MinPartSelfSimilarTables {
     return Math.min(maxM, start);
   }
 
+  private readonly bests = new Map<string, number>();
+  /** boundedMaximiser, remembered per (counts, n) (the top level repeats it for every sample). */
+  boundedBest(counts: LogBoundedPartCounts, n: number, logX: number): number {
+    const key = `${counts.a},${counts.b},${n}`;
+    let best = this.bests.get(key);
+    if (best === undefined) {
+      best = boundedMaximiser(counts, n, logX);
+      if (this.bests.size >= 4096) this.bests.clear();
+      this.bests.set(key, best);
+    }
+    return best;
+  }
+
   /** The base table for parts in [k, maxPart] (maxPart clamped to the table size). */
   boundedTable(maxPart: number): MinPartTable {
     const top = Math.min(maxPart, this.table.maxN);
@@ -294,7 +307,7 @@ export class MinPartSelfSimilarEngine {
     }
     const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), Math.floor(n / 2));
     const logX = -boundedPartSaddle(a, b, n);
-    const best = boundedMaximiser(counts, n, logX);
+    const best = this.options.tables.boundedBest(counts, n, logX);
     // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.
     const logXs2 = 2 * s * logX;
     for (;;) {
@@ -354,6 +367,8 @@ export class MinPartSelfSimilarEngine {
  * log-counts are within 1e-9 of the truth (they are within ~1e-11), so no weight is clipped.
  */
 const MAX_MARGIN = 1e-9;
+/** Bound on |log c(m) − log c(m − 1) − t(m − ½)|·m above the tables (measured below 1; tests). */
+export const NEIGHBOUR_SLACK = 3;
 
 /**
  * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX for parts in [a, b]: bisection on the
@@ -366,7 +381,17 @@ const MAX_MARGIN = 1e-9;
 export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
   const half = Math.floor(n / 2);
   const weight = (m: number) => counts.log(m) + 2 * m * logX;
-  const diff = (x: number, y: number) => counts.logRatio(x, y) + 2 * (x - y) * logX;
+  const exactDiff = (x: number, y: number) => counts.logRatio(x, y) + 2 * (x - y) * logX;
+  // Above the table, log c(m) − log c(m − 1) = t(m − ½) + r(m) with |r(m)| < SLACK/m (the
+  // envelope integral's midpoint rule plus the change of log I; checked on a grid in the tests):
+  // the saddle point alone decides the sign unless it is within the slack.
+  let guess: number | undefined;
+  const diff = (x: number, y: number) => {
+    if (y <= counts.exactUpTo) return exactDiff(x, y);
+    guess = counts.saddlePoint(x - 0.5, guess === undefined ? undefined : guess);
+    const proxy = guess + 2 * logX;
+    return Math.abs(proxy) > NEIGHBOUR_SLACK / x ? proxy : exactDiff(x, y);
+  };
   const from = Math.min(counts.logConcaveFrom(), half);
   let lo = from;
   let hi = half;
