@@ -170,6 +170,9 @@ function shapeOf(a: number, b: number): Shape {
   return { a, b, direct: b < DIRECT_BELOW, headDirect: a - 1 < DIRECT_BELOW };
 }
 
+/** Work counters (bench and cost model): saddle integrals, their nodes, Newton iterations. */
+export const boundedCountWork = { saddles: 0, nodes: 0, newton: 0 };
+
 /** The default table end is capped here (a sampler passes the largest size it needs). */
 const DEFAULT_CAP = 1_000_000;
 const PI2_6 = (Math.PI * Math.PI) / 6;
@@ -355,6 +358,7 @@ export function boundedSaddle(shape: Shape, m: number, guess?: number): number {
   // Start: the unrestricted value, or for few sizes the mean of b − a + 1 geometrics, (#sizes)/t = m.
   let t = guess ?? Math.max(Math.PI / Math.sqrt(6 * m), (shape.b - shape.a + 1) / m);
   for (let i = 0; i < 100; i++) {
+    boundedCountWork.newton++;
     const [d1, d2] = realDerivatives(shape, m, t);
     let next = t - d1 / d2;
     if (!(d2 > 0) || !(next > t / 2)) next = t / 2;
@@ -381,6 +385,7 @@ export function boundedMeanSize(a: number, b: number, t: number): number {
 // Complex parts: L(t + iy) − L(t) at the trapezoid nodes.
 
 function computeSaddle(shape: Shape, m: number): Saddle {
+  boundedCountWork.saddles++;
   const t = boundedSaddle(shape, m);
   const [, d2] = realDerivatives(shape, m, t);
   const sigma = Math.sqrt(d2);
@@ -395,6 +400,7 @@ function computeSaddle(shape: Shape, m: number): Saddle {
   // integrand polynomial tails, (1 + (y/t)²)^{−(b−a+1)/2}); a rise means another arc: stop there.
   for (let j = 1; j * h < Math.PI; j++) {
     const y = j * h;
+    boundedCountWork.nodes++;
     const [re, li] = shift(shape, t, y, tail0);
     const size = Math.exp(re);
     if (j > last && (size < TAIL_CUT || size > previous)) break;

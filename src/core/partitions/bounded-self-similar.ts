@@ -69,6 +69,7 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     let lo = a;
     let hi = top;
     let cap = n;
+    // The levels the engine sets up tables for: sizes up to n/2^l at level l (reach).
     while (size > baseThreshold && lo <= hi) {
       const tl = boundedPartSaddle(lo, hi, size);
       const odd = Math.max(0, Math.min(hi, lo + 40 / tl) - lo) / 2;
@@ -89,6 +90,15 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedWork = work;
     this.setupWork = setup + tables.table.size;
     this.setupCells = cells + tables.table.size;
+  }
+
+  /** Most count-table additions (setup time, ~1.4 ns each) and doubles a planner lets it use. */
+  static readonly SETUP_LIMIT = 1e8;
+  static readonly CELL_LIMIT = 5e6;
+
+  /** Whether the setup fits the limits above. */
+  fitsLimits(): boolean {
+    return this.setupWork <= BoundedSelfSimilarSampler.SETUP_LIMIT && this.setupCells <= BoundedSelfSimilarSampler.CELL_LIMIT;
   }
 
   sample(source: RandomSource, stats?: MinPartSelfSimilarStats): Partition {

@@ -185,7 +185,9 @@ export class MinPartSelfSimilarEngine {
           break;
         }
         if (level === this.levels.length) this.levels.push({ proposal: new BoltzmannProposal(), s: 0, xs: 0 });
-        current = this.reduceBounded(source, current, b, top, this.levels[level], level === 0 ? stats : undefined, stats);
+        // Sizes at the next level are at most n/2^{level+1}: one table length per level and n.
+        const reach = Math.floor(n / 2 ** (level + 1));
+        current = this.reduceBounded(source, current, b, top, reach, this.levels[level], level === 0 ? stats : undefined, stats);
         b = Math.ceil(b / 2);
         top = Math.floor(top / 2);
         level++;
@@ -294,6 +296,7 @@ export class MinPartSelfSimilarEngine {
     n: number,
     a: number,
     b: number,
+    reach: number,
     level: Level,
     top?: MinPartSelfSimilarStats,
     all?: MinPartSelfSimilarStats,
@@ -305,7 +308,7 @@ export class MinPartSelfSimilarEngine {
       level.proposal.count = 0;
       return n / 2;
     }
-    const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), Math.floor(n / 2));
+    const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), reach);
     const logX = -boundedPartSaddle(a, b, n);
     const best = this.options.tables.boundedBest(counts, n, logX);
     // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.

@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { BoundedSelfSimilarSampler } from '../bounded-self-similar.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
@@ -190,6 +191,18 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
         setupWork: sampler.setupWork,
         sampleWork: sampler.expectedWork,
         fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+        build: () => sampler,
+      });
+    }
+    if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
+      // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
+      // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
+      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
+      out.push({
+        method: sampler.method,
+        setupWork: sampler.setupWork,
+        sampleWork: sampler.expectedWork,
+        fits: sampler.fitsLimits() && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
         build: () => sampler,
       });
     }
