@@ -390,10 +390,11 @@ function computeSaddle(shape: Shape, m: number): Saddle {
   const [, d2] = realDerivatives(shape, m, t);
   const sigma = Math.sqrt(d2);
   const phi = m * t + realL(shape, t);
-  const K = Math.ceil((2 * Math.PI * sigma) / STEP);
+  // Step: STEP/σ (the Gaussian bulk), and at most t/H with H from poleStep (few sizes: the pole
+  // of order b − a + 1 at τ = 0 lies at distance t from the line).
+  const K = Math.ceil(Math.max((2 * Math.PI * sigma) / STEP, (2 * Math.PI * poleStep(shape)) / t));
   const h = (2 * Math.PI) / K;
   const last = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
-  const tail0 = shape.direct ? null : tailPair(shape, t, 0);
   let sum = 1;
   let previous = 1;
   // Nodes to |y| = RANGE/σ, then on while the terms still matter and fall (few sizes give the
@@ -401,7 +402,7 @@ function computeSaddle(shape: Shape, m: number): Saddle {
   for (let j = 1; j * h < Math.PI; j++) {
     const y = j * h;
     boundedCountWork.nodes++;
-    const [re, li] = shift(shape, t, y, tail0);
+    const [re, li] = shift(shape, t, y);
     const size = Math.exp(re);
     if (j > last && (size < TAIL_CUT || size > previous)) break;
     previous = size;
@@ -412,6 +413,22 @@ function computeSaddle(shape: Shape, m: number): Saddle {
   return { t, phi, logI: Math.log((h * sum) / (2 * Math.PI)) };
 }
 
+/**
+ * H with t/H a step small enough for the pole of order r = b − a + 1 at τ = 0 (distance t from
+ * the line): on the line at distance d = t(1 − ε) the integrand is at most ~ε^{−r} times its
+ * centre, so the trapezoid's error is ~ e^{−2πH(1−ε)}ε^{−r} (Trefethen & Weideman 2014, Thm 5.1),
+ * ~exp(−2πH + r + r log(2πH/r)) at the best ε = r/(2πH); H is the least making that <= e^{−45}.
+ * Only for r < 64: with more sizes the eta part's Gaussian (width 1/σ ≪ t) governs, as for the
+ * unrestricted counts.
+ */
+function poleStep(shape: Shape): number {
+  const r = shape.b - shape.a + 1;
+  if (r >= 64) return 0;
+  let H = 1;
+  while (2 * Math.PI * H - r - r * Math.log(Math.max(1, (2 * Math.PI * H) / r)) < 45) H += 0.5;
+  return H;
+}
+
 /** Integrand terms below this (relative to the centre) end the sum. */
 const TAIL_CUT = 1e-18;
 
@@ -419,7 +436,7 @@ const TAIL_CUT = 1e-18;
  * [Re(L(t + iy) − L(t)), Im L(t + iy)], the differences formed term by term (log1p, atan) where
  * they are elementary; the Euler–Maclaurin tails as differences of their values (tail0: at y = 0).
  */
-function shift(shape: Shape, t: number, y: number, tail0: [number, number, number, number] | null): [number, number] {
+function shift(shape: Shape, t: number, y: number): [number, number] {
   const { a, b } = shape;
   let re = 0;
   let im = 0;
@@ -431,7 +448,6 @@ function shift(shape: Shape, t: number, y: number, tail0: [number, number, numbe
     }
     return [re, im];
   }
-  const tails = tailPair(shape, t, y);
   if (shape.headDirect) {
     // log P(e^{−τ}) − log P(e^{−t}): ½ log(1 + is) − (π²/(6t²))(iy + y²/t)/(1 + s²) − iy/24.
     const s = y / t;
@@ -445,19 +461,81 @@ function shift(shape: Shape, t: number, y: number, tail0: [number, number, numbe
       im += di;
     }
   } else {
-    re -= tails[0] - tail0![0];
-    im -= tails[1];
+    const [hr, hi] = tailShift(a - 1, t, y);
+    re -= hr;
+    im -= hi;
   }
-  re += tails[2] - tail0![2];
-  im += tails[3];
-  return [re, im];
+  const [sr, si] = tailShift(b, t, y);
+  return [re + sr, im + si];
 }
 
-/** [S_{a−1}(τ) (unused when the head is direct: zeros), S_b(τ)] as [re, im, re, im]. */
-function tailPair(shape: Shape, t: number, y: number): [number, number, number, number] {
-  const head = shape.headDirect ? [0, 0] : tailSum(shape.a - 1, t, y);
-  const tail = tailSum(shape.b, t, y);
-  return [head[0], head[1], tail[0], tail[1]];
+/**
+ * S_c(t + iy) − S_c(t) (see tailSum), formed without subtracting two values of size ~1/t: with
+ * u0 = (c + ½)t, u = u0 + iδ, the dilogarithm term is
+ *   −Li₂(e^{−u})/τ + Li₂(e^{−u0})/t = Li₂(e^{−u0})·iy/(tτ) − ΔLi₂/τ,
+ * ΔLi₂ = Li₂(e^{−u}) − Li₂(e^{−u0}) from the series term by term (differences of powers and
+ * logarithms in product form). The Euler–Maclaurin corrections are small (~1/c): plain differences.
+ */
+function tailShift(c: number, t: number, y: number): [number, number] {
+  const x0 = c + 0.5;
+  const u0 = x0 * t;
+  const delta = x0 * y;
+  const li0 = complexLi2ExpNeg(u0, 0)[0];
+  const [dr, di] = li2ExpNegShift(u0, delta);
+  const mod2 = t * t + y * y;
+  // iy/(tτ) = iy(t − iy)/(t·mod2) = (y² + i·y·t)/(t·mod2)
+  let re = (li0 * y * y) / (t * mod2);
+  let im = (li0 * y) / mod2;
+  // −Δ/τ = −Δ(t − iy)/mod2
+  re -= (dr * t + di * y) / mod2;
+  im -= (di * t - dr * y) / mod2;
+  const [er, ei] = emCorrections(c, t, y);
+  const [e0] = emCorrections(c, t, 0);
+  return [re + er - e0, im + ei];
+}
+
+/** Li₂(e^{−(u0 + iδ)}) − Li₂(e^{−u0}), u0 > 0 real. */
+function li2ExpNegShift(u0: number, delta: number): [number, number] {
+  if (u0 >= 1) {
+    // Σ_j e^{−j u0}(e^{−ijδ} − 1)/j², e^{−ijδ} − 1 = −2 sin²(jδ/2) − i sin(jδ).
+    let re = 0;
+    let im = 0;
+    const q = Math.exp(-u0);
+    let p = q;
+    for (let j = 1; j < 60 && p > 1e-18 * j * j; j++, p *= q) {
+      const s = Math.sin((j * delta) / 2);
+      re -= (p * 2 * s * s) / (j * j);
+      im -= (p * Math.sin(j * delta)) / (j * j);
+    }
+    return [re, im];
+  }
+  // −(u − u0) + (u log u − u0 log u0) − (u² − u0²)/4 + Σ c_j (u^{2j+1} − u0^{2j+1}), u − u0 = iδ;
+  // u log u − u0 log u0 = iδ·log u + u0·log(1 + iδ/u0).
+  const logUr = 0.5 * Math.log(u0 * u0 + delta * delta);
+  const logUi = Math.atan2(delta, u0);
+  const s = delta / u0;
+  let re = -delta * logUi + u0 * 0.5 * Math.log1p(s * s);
+  let im = -delta + delta * logUr + u0 * Math.atan(s);
+  // −(u² − u0²)/4 = −iδ(2u0 + iδ)/4
+  re += (delta * delta) / 4;
+  im -= (2 * u0 * delta) / 4;
+  // d_k = u^k − u0^k = u·d_{k−1} + u0^{k−1}·iδ, from d_1 = iδ.
+  let dr = 0;
+  let di = delta;
+  let p0 = u0; // u0^{k−1} at step k
+  for (let k = 2; k <= 2 * LI2_ODD.length + 1; k++) {
+    const nr = u0 * dr - delta * di;
+    const ni = u0 * di + delta * dr + p0 * delta;
+    dr = nr;
+    di = ni;
+    p0 *= u0;
+    if (k % 2 === 1) {
+      const cj = LI2_ODD[(k - 3) / 2];
+      re += cj * dr;
+      im += cj * di;
+    }
+  }
+  return [re, im];
 }
 
 /** log(1 − e^{−(x + iy)}) − log(1 − e^{−x}) as [Re, Im] (x > 0). */
@@ -583,7 +661,17 @@ function tailSum(c: number, t: number, y: number): [number, number] {
   // (lr + i li)/(t + iy) = ((lr t + li y) + i(li t − lr y))/mod2
   let re = -(lr * t + li * y) / mod2;
   let im = -(li * t - lr * y) / mod2;
-  // Σ β_j τ^{2j−1} f^{(2j−1)}(u), f^{(n)} = w^{(n−1)}.
+  const [er, ei] = emCorrections(c, t, y);
+  return [re + er, im + ei];
+}
+
+/** Σ_j β_j τ^{2j−1} f^{(2j−1)}(u), f^{(n)} = w^{(n−1)}, u = (c + ½)τ (the corrections of tailSum). */
+function emCorrections(c: number, t: number, y: number): [number, number] {
+  const x0 = c + 0.5;
+  const ur = x0 * t;
+  const ui = x0 * y;
+  let re = 0;
+  let im = 0;
   const [wr, wi] = complexW(ur, ui);
   let tr = t; // τ^n, n = 1
   let ti = y;
