@@ -137,6 +137,19 @@ export class LogBoundedPartCounts {
     return boundedSaddle(this.shape, m, guess);
   }
 
+  /**
+   * The slope proxy of log c at m − ½: t(m − ½) − ½·(log φ''(t_m) − log φ''(t_{m−1})) (the
+   * saddle-point approximation's derivative: envelope plus the change of the Gaussian width).
+   */
+  slopeProxy(m: number, guess?: number): [number, number] {
+    const tm = boundedSaddle(this.shape, m - 0.5, guess);
+    // t_m, t_{m−1} ≈ t(m − ½) ∓ 1/(2φ''): first order is enough for a proxy.
+    const d = 0.5 / realDerivatives(this.shape, m - 0.5, tm)[1];
+    const w1 = realDerivatives(this.shape, m, tm - d)[1];
+    const w0 = realDerivatives(this.shape, m - 1, tm + d)[1];
+    return [tm - 0.5 * Math.log1p((w1 - w0) / w0), tm];
+  }
+
   private saddle(m: number): Saddle {
     const hit = this.memo.get(m);
     if (hit !== undefined) return hit;
@@ -291,8 +304,9 @@ function tailDerivatives(c: number, t: number): [number, number] {
   // ∫_{x0}^∞ x w(xt) dx = (u·(−log(1 − e^{−u})) + Li₂(e^{−u}))/t².
   let s1 = (u * logTerm + li2) / (t * t);
   // h^{(n)}(x0) = t^n x0 w^{(n)}(u) + n t^{n−1} w^{(n−1)}(u); corrections Σ β_j h^{(2j−1)}.
-  const wd = wDerivativesReal(u, 2 * EM_TERMS);
-  for (let j = 1; j <= EM_TERMS; j++) {
+  const terms = emTerms(c);
+  const wd = wDerivativesReal(u, 2 * terms);
+  for (let j = 1; j <= terms; j++) {
     const n = 2 * j - 1;
     const h = t ** n * x0 * wd[n] + n * t ** (n - 1) * wd[n - 1];
     s1 += EM_BETA[j - 1] * h;
@@ -307,6 +321,13 @@ function tailDerivatives(c: number, t: number): [number, number] {
  * B_{2j}(½) = −(1 − 2^{1−2j}) B_{2j} (DLMF 24.4.27), B_2 .. B_16 (DLMF Table 24.2.1).
  */
 const EM_TERMS = 8;
+/**
+ * Correction terms used at c: the first dropped one, ~2(2J)!/((2π)^{2J+2}(c + ½)^{2J+1}), is
+ * below 3e-17 in each tier (J = 2 from c = 500, 3 from 120, 4 from 50, 6 from 25, else 8).
+ */
+function emTerms(c: number): number {
+  return c >= 500 ? 2 : c >= 120 ? 3 : c >= 50 ? 4 : c >= 25 ? 6 : EM_TERMS;
+}
 const BERNOULLI_EVEN = [1 / 6, -1 / 30, 1 / 42, -1 / 30, 5 / 66, -691 / 2730, 7 / 6, -3617 / 510];
 const EM_BETA = BERNOULLI_EVEN.map((B, i) => {
   const j = i + 1;
@@ -677,7 +698,8 @@ function emCorrections(c: number, t: number, y: number): [number, number] {
   let ti = y;
   const tau2r = t * t - y * y;
   const tau2i = 2 * t * y;
-  for (let j = 1; j <= EM_TERMS; j++) {
+  const terms = emTerms(c);
+  for (let j = 1; j <= terms; j++) {
     const n = 2 * j - 1;
     const [pr, pi] = complexPoly(W_POLYS[n - 1], wr, wi);
     re += EM_BETA[j - 1] * (tr * pr - ti * pi);

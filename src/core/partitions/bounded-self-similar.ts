@@ -60,8 +60,9 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = Math.max(1, distinct);
     // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
-    // (≈ min(#odd sizes, 1.2/t)/2... counted as all odd sizes with x^k > e^{-40}) plus one count;
-    // the maximiser's bisection: 2·log₂(size) counts. A count costs its trapezoid nodes × terms.
+    // (all odd sizes in [a, b] with x^k > e^{-40}) and one count; above the level's table the
+    // maximiser (proxy bisection: ~MAXIMISER_NEWTON Newton steps, then ~3 exact counts) and each
+    // count (a saddle-point integral, SADDLE_STEPS) dominate. Steps in units of one visited size.
     let work = 2 * this.expectedDistinct + 1000;
     let setup = 0;
     let cells = 0;
@@ -77,8 +78,8 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
-      const countCost = size / 2 <= end ? 2 : COUNT_COST;
-      work += PROPOSALS * (odd + countCost) + 2 * Math.log2(size) * countCost;
+      if (size / 2 <= end) work += PROPOSALS * (odd + 2) + 2 * Math.log2(size);
+      else work += PROPOSALS * (odd + SADDLE_STEPS) + MAXIMISER_NEWTON * NEWTON_STEPS + 3 * SADDLE_STEPS;
       if (nextHi >= nextLo) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
@@ -108,5 +109,12 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
 
 /** Proposals per level (1/acceptance, measured ~1.3-1.6). */
 const PROPOSALS = 1.5;
-/** Steps per count above the table: ~20-40 trapezoid nodes and a Newton solve, ~64 terms each. */
-const COUNT_COST = 2500;
+/**
+ * A saddle-point count: ~25-40 trapezoid nodes of ~3 us (complex logarithms, or the
+ * Euler–Maclaurin tail with its dilogarithm), ~50 visited sizes each (measured with
+ * boundedCountWork and the bench).
+ */
+const SADDLE_STEPS = 1500;
+/** Newton steps of the maximiser's proxy bisection per level (~30 proxies), ~25 sizes' time each. */
+const MAXIMISER_NEWTON = 130;
+const NEWTON_STEPS = 25;

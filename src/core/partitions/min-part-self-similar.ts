@@ -370,42 +370,64 @@ export class MinPartSelfSimilarEngine {
  * log-counts are within 1e-9 of the truth (they are within ~1e-11), so no weight is clipped.
  */
 const MAX_MARGIN = 1e-9;
-/** Bound on |log c(m) − log c(m − 1) − t(m − ½)|·m above the tables (measured below 1; tests). */
-export const NEIGHBOUR_SLACK = 3;
 
 /**
- * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX for parts in [a, b]: bisection on the
- * sign of the forward difference over [from, n/2], from the last log-concavity failure of the
- * table (above it the main-arc values, concave: checked on a grid in the tests); below from, the
- * sizes m' < from are scanned unless the peak's weight is at least max_{m' < from} log c(m'),
- * which bounds every weight there (x < 1). c may vanish (parts in [a, b] miss some sizes); such
- * m are never the maximiser.
+ * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX for parts in [a, b]. Above from (the
+ * last log-concavity failure of the table; above the table the main-arc values, concave: checked
+ * on a grid in the tests) the forward difference D(m) = w(m) − w(m − 1) falls, so the maximiser
+ * is the last m with D(m) > 0. A guess comes from bisection on a cheap proxy of D above the table
+ * (LogBoundedPartCounts.slopeProxy: the saddle-point approximation's slope, no integrals); from
+ * it a galloping search with exact differences finds the last m with D(m) > 0 (exact whatever
+ * the proxy's error; it only sets the number of exact steps, ~2·log₂ of the guess's distance).
+ * Below from, the sizes m' < from are scanned unless the peak's weight is at least
+ * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
+ * [a, b] miss some sizes); such m lie below from and are never the maximiser.
  */
 export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
   const half = Math.floor(n / 2);
   const weight = (m: number) => counts.log(m) + 2 * m * logX;
-  const exactDiff = (x: number, y: number) => counts.logRatio(x, y) + 2 * (x - y) * logX;
-  // Above the table, log c(m) − log c(m − 1) = t(m − ½) + r(m) with |r(m)| < SLACK/m (the
-  // envelope integral's midpoint rule plus the change of log I; checked on a grid in the tests):
-  // the saddle point alone decides the sign unless it is within the slack.
-  let guess: number | undefined;
-  const diff = (x: number, y: number) => {
-    if (y <= counts.exactUpTo) return exactDiff(x, y);
-    guess = counts.saddlePoint(x - 0.5, guess === undefined ? undefined : guess);
-    const proxy = guess + 2 * logX;
-    return Math.abs(proxy) > NEIGHBOUR_SLACK / x ? proxy : exactDiff(x, y);
+  const rises = (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0; // D(m) > 0, exactly
+  let guessT: number | undefined;
+  const proxyRises = (m: number) => {
+    if (m - 1 <= counts.exactUpTo) return rises(m);
+    const [slope, tm] = counts.slopeProxy(m, guessT);
+    guessT = tm;
+    return slope + 2 * logX > 0;
   };
   const from = Math.min(counts.logConcaveFrom(), half);
-  let lo = from;
-  let hi = half;
-  // c(lo) may be 0 only in a gap below the concave range; the first positive count starts it.
-  while (lo < hi && counts.log(lo) === -Infinity) lo++;
-  while (lo < hi) {
-    const mid = Math.ceil((lo + hi) / 2);
-    if (diff(mid, mid - 1) > 0) lo = mid;
-    else hi = mid - 1;
+  // Guess: the last m in [from, half] whose proxy rises.
+  let good = from;
+  let bad = half + 1;
+  while (bad - good > 1) {
+    const mid = Math.floor((good + bad) / 2);
+    if (proxyRises(mid)) good = mid;
+    else bad = mid;
   }
-  let m = lo;
+  // Exact: the last m in [from, half] with D(m) > 0 (from itself when none), by galloping from the guess.
+  const g = good;
+  if (g > from && !rises(g)) {
+    bad = g;
+    let step = 1;
+    while (bad - step > from && !rises(bad - step)) {
+      bad -= step;
+      step *= 2;
+    }
+    good = Math.max(from, bad - step);
+  } else {
+    good = g;
+    let step = 1;
+    while (good + step <= half && rises(good + step)) {
+      good += step;
+      step *= 2;
+    }
+    bad = Math.min(half + 1, good + step);
+  }
+  while (bad - good > 1) {
+    const mid = Math.floor((good + bad) / 2);
+    if (rises(mid)) good = mid;
+    else bad = mid;
+  }
+  let m = good;
   if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
     let best = weight(m);
     for (let k = 0; k < from; k++) {
