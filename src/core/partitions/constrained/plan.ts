@@ -41,7 +41,10 @@ import { solveTilt, tiltMoments } from './tilt.js';
  *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts with a part
  *   bound (distinct-boltzmann) up to n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
- *   ~10-30 ms); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
+ *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
+ *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the cheaper
+ *   estimate chosen (bounded-self-similar from n ~ 1e8 on for b ~ √n); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
