@@ -101,6 +101,9 @@ describe('bounded-self-similar internals', () => {
       [1e8, 1, 10_000],
       [1e9, 1, 31_623],
       [1e9, 7, 7906],
+      // b far above √n: the tail beyond b vanishes in doubles (e^{−bt} underflows).
+      [1e9, 1, 5e8],
+      [1e6, 3, 999_999],
     ]) {
       const sampler = new BoundedSelfSimilarSampler(n, a, b);
       for (let i = 0; i < 2; i++) {

@@ -713,6 +713,8 @@ function emCorrections(c: number, t: number, y: number): [number, number] {
 
 /** w(u) = 1/(e^u − 1) for complex u = ur + i·ui. */
 function complexW(ur: number, ui: number): [number, number] {
+  if (ur > 700) return [0, 0]; // |w| < e^{−700}: and e^{ur} would overflow
+
   // e^u − 1 = (e^{ur} cos ui − 1) + i e^{ur} sin ui; the real part as expm1(ur)·cos ui − 2 sin²(ui/2).
   const s = Math.sin(ui / 2);
   const dr = Math.expm1(ur) * Math.cos(ui) - 2 * s * s;
