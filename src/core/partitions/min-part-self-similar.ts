@@ -367,7 +367,7 @@ export class MinPartSelfSimilarEngine {
 
 /**
  * Margin on log M for the bounded levels: the acceptance is at most e^{−1e-9} < 1 wherever the
- * log-counts are within 1e-9 of the truth (they are within ~1e-11), so no weight is clipped.
+ * log-counts are within 1e-9 of the truth (measured within ~1e-13), so no weight is clipped.
  */
 const MAX_MARGIN = 1e-9;
 
