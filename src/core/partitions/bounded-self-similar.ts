@@ -48,15 +48,14 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.engine = new MinPartSelfSimilarEngine({ baseThreshold, tables });
     const top = Math.min(b, n);
     const t = boundedPartSaddle(a, top, n);
-    // Boltzmann means at the saddle: parts Σ x^k/(1 − x^k), distinct sizes Σ x^k, k in [a, b].
+    // Boltzmann means at the saddle: parts Σ x^k/(1 − x^k) (the first 5000 sizes summed, the rest
+    // by its integral, (1/t)·log((1 − x^{k1+½})/(1 − x^{k0−½}))), distinct sizes Σ x^k (geometric).
     let parts = 0;
-    let distinct = 0;
     const last = Math.min(top, a + Math.ceil(45 / t));
-    for (let k = a; k <= last; k++) {
-      const e = Math.exp(-k * t);
-      parts += e / -Math.expm1(-k * t);
-      distinct += e;
-    }
+    const direct = Math.min(last, a + 5000);
+    for (let k = a; k <= direct; k++) parts += Math.exp(-k * t) / -Math.expm1(-k * t);
+    if (last > direct) parts += (Math.log(-Math.expm1(-(last + 0.5) * t)) - Math.log(-Math.expm1(-(direct + 0.5) * t))) / t;
+    const distinct = (Math.exp(-a * t) * -Math.expm1(-(top - a + 1) * t)) / -Math.expm1(-t);
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = Math.max(1, distinct);
     // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
