@@ -53,6 +53,7 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'distinct-self-similar/1': 60,
   'distinct-bounded-self-similar/1': 40,
   'minpart-self-similar/1': 60,
+  'bounded-self-similar/1': 30,
   'box-subset/1': 50,
   'box-mixture/1': 20,
   'allowed-length-boltzmann/1': 70,

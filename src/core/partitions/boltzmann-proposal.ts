@@ -50,10 +50,12 @@ export class BoltzmannProposal {
   visited = 0;
 
   /**
-   * Draws X_k for k = start + i·step at parameter x = e^{logX} (logX < 0). Returns the size
-   * Σ k·X_k, or OVER as soon as it exceeds budget.
+   * Draws X_k for k = start + i·step <= end at parameter x = e^{logX} (logX < 0). Returns the
+   * size Σ k·X_k, or OVER as soon as it exceeds budget. With end = Infinity (the default) the
+   * uniforms consumed are those of the unbounded draw; a finite end stops both phases there
+   * (the thinning phase does not start when phase 1 already passed end).
    */
-  draw(source: RandomSource, logX: number, start: number, step: number, budget: number): number {
+  draw(source: RandomSource, logX: number, start: number, step: number, budget: number, end = Infinity): number {
     if (!(logX < 0)) throw new RangeError(`log x must be negative, got ${logX}`);
     let count = 0;
     let total = 0;
@@ -65,7 +67,7 @@ export class BoltzmannProposal {
     let sinceAnchor = 0;
     const threshold = this.directThreshold;
     // Phase 1: one uniform per size.
-    while (q > threshold) {
+    while (q > threshold && k <= end) {
       visited++;
       const u = 1 - source.nextDouble(); // uniform in (0, 1]
       if (u < q) {
@@ -95,12 +97,13 @@ export class BoltzmannProposal {
       } else q *= ratio;
     }
     // Phase 2: thinning with the bound b = q at the next unvisited size k.
-    let bound = q;
+    let bound = k <= end ? q : 0;
+    const last = Math.min(2 ** 52, end);
     while (bound > 0) {
       const u = 1 - source.nextDouble();
       const jump = Math.floor(Math.log(u) / Math.log1p(-bound));
       k += jump * step;
-      if (!(k <= 2 ** 52)) break;
+      if (!(k <= last)) break;
       visited++;
       logq = k * logX;
       q = Math.exp(logq);

@@ -1,3 +1,4 @@
+import { LogBoundedPartCounts, boundedPartSaddle, mainArcStart } from '../counting/log-bounded-part-count.js';
 import { LogMinPartCounts, defaultExactUpTo, minPartSaddle } from '../counting/log-min-part-count.js';
 import { LogPartitionNumbers } from '../counting/log-partition-number.js';
 import type { Partition } from '../partition.js';
@@ -68,6 +69,61 @@ export class MinPartSelfSimilarTables {
     });
   }
 
+  private readonly bounded = new Map<string, LogBoundedPartCounts>();
+  private readonly arcStarts = new Map<string, number>();
+  private readonly boundedTables = new Map<number, MinPartTable>();
+
+  /**
+   * log c_{[a,b]} (parts in [a, b], b finite) with a table reaching every size up to maxM that the
+   * main arc does not cover; a table too short for a new maxM is rebuilt longer.
+   */
+  boundedCountsFor(a: number, b: number, maxM: number): LogBoundedPartCounts {
+    const key = `${a},${b}`;
+    const end = this.boundedTableEnd(a, b, maxM);
+    let c = this.bounded.get(key);
+    if (c === undefined || c.exactUpTo < end) {
+      c = new LogBoundedPartCounts(a, b, end);
+      this.bounded.set(key, c);
+    }
+    return c;
+  }
+
+  /** The table end boundedCountsFor uses for sizes up to maxM. */
+  boundedTableEnd(a: number, b: number, maxM: number): number {
+    const key = `${a},${b}`;
+    let start = this.arcStarts.get(key);
+    if (start === undefined) {
+      start = b < a ? 0 : mainArcStart(a, b);
+      this.arcStarts.set(key, start);
+    }
+    return Math.min(maxM, start);
+  }
+
+  private readonly bests = new Map<string, number>();
+  /** boundedMaximiser, remembered per (counts, n) (the top level repeats it for every sample). */
+  boundedBest(counts: LogBoundedPartCounts, n: number, logX: number): number {
+    const key = `${counts.a},${counts.b},${n}`;
+    let best = this.bests.get(key);
+    if (best === undefined) {
+      best = boundedMaximiser(counts, n, logX);
+      if (this.bests.size >= 4096) this.bests.clear();
+      this.bests.set(key, best);
+    }
+    return best;
+  }
+
+  /** The base table for parts in [k, maxPart] (maxPart clamped to the table size). */
+  boundedTable(maxPart: number): MinPartTable {
+    const top = Math.min(maxPart, this.table.maxN);
+    if (top === this.table.maxN) return this.table;
+    let t = this.boundedTables.get(top);
+    if (t === undefined) {
+      t = new MinPartTable(this.table.maxN, top);
+      this.boundedTables.set(top, t);
+    }
+    return t;
+  }
+
   /** log c_b for b >= 1 (b = 1: the partition numbers). */
   countsFor(b: number): Counts {
     if (b === 1) return { logRatio: (x, y) => this.logP.logRatio(x, y), log: (m) => this.logP.log(m), logConcaveFrom: () => 26 };
@@ -107,16 +163,36 @@ export class MinPartSelfSimilarEngine {
     }
   }
 
-  /** A uniform partition of n into parts >= a (multiplicity form, sizes descending). */
-  sample(source: RandomSource, n: number, a: number, stats?: MinPartSelfSimilarStats): Partition {
+  /**
+   * A uniform partition of n into parts in [a, maxPart] (multiplicity form, sizes descending).
+   * maxPart = Infinity is the parts >= a family, drawn exactly as before the bound existed; a
+   * finite maxPart runs every level through reduceBounded (see there).
+   */
+  sample(source: RandomSource, n: number, a: number, stats?: MinPartSelfSimilarStats, maxPart = Infinity): Partition {
     let level = 0;
     let current = n;
     let b = a;
+    let top = maxPart;
     const tables = this.options.tables;
     // Deepest part first collected ascending, then merged level by level.
     let sizes: number[] = [];
     let mults: number[] = [];
     for (;;) {
+      if (top !== Infinity) {
+        if (current <= this.options.baseThreshold) {
+          const steps = tables.boundedTable(top).sample(source, current, b, 2 ** level, sizes, mults);
+          if (stats) stats.visited += steps;
+          break;
+        }
+        if (level === this.levels.length) this.levels.push({ proposal: new BoltzmannProposal(), s: 0, xs: 0 });
+        // Sizes at the next level are at most n/2^{level+1}: one table length per level and n.
+        const reach = Math.floor(n / 2 ** (level + 1));
+        current = this.reduceBounded(source, current, b, top, reach, this.levels[level], level === 0 ? stats : undefined, stats);
+        b = Math.ceil(b / 2);
+        top = Math.floor(top / 2);
+        level++;
+        continue;
+      }
       if (b === 1) {
         const mu = tables.unrestricted.sample(source, current);
         const scale = 2 ** level;
@@ -209,6 +285,59 @@ export class MinPartSelfSimilarEngine {
     }
   }
 
+  /**
+   * One level of parts in [a, b], b finite: as reduce, with the odd sizes stopping at b and the
+   * even half-sizes in [⌈a/2⌉, ⌊b/2⌋] counted by LogBoundedPartCounts (table, or the main arc where
+   * it is accurate). x is the saddle point of [a, b] at size n. With no odd size in [a, b] the level
+   * has no choice: m = n/2 (n is even, the family being non-empty).
+   */
+  private reduceBounded(
+    source: RandomSource,
+    n: number,
+    a: number,
+    b: number,
+    reach: number,
+    level: Level,
+    top?: MinPartSelfSimilarStats,
+    all?: MinPartSelfSimilarStats,
+  ): number {
+    const s = a % 2 === 1 ? a : a + 1;
+    if (s > b) {
+      level.s = s;
+      level.xs = 0;
+      level.proposal.count = 0;
+      return n / 2;
+    }
+    const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), reach);
+    const logX = -boundedPartSaddle(a, b, n);
+    const best = this.options.tables.boundedBest(counts, n, logX);
+    // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.
+    const logXs2 = 2 * s * logX;
+    for (;;) {
+      const rest = level.proposal.draw(source, logX, s + 2, 2, n, b);
+      if (top) top.topProposals++;
+      if (all) {
+        all.proposals++;
+        all.visited += level.proposal.visited;
+      }
+      if (rest === BoltzmannProposal.OVER) continue;
+      const j0 = (n - rest) % 2;
+      const u = 1 - source.nextDouble();
+      let g = 0;
+      if (u < Math.exp(logXs2)) g = Math.max(1, Math.floor(Math.log(u) / logXs2));
+      const xs = j0 + 2 * g;
+      const t = rest + s * xs;
+      if (t > n) continue;
+      const m = (n - t) / 2;
+      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
+      if (source.nextDouble() < Math.exp(logAccept)) {
+        level.s = s;
+        level.xs = xs;
+        return m;
+      }
+    }
+  }
+
   /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment). */
   maximiser(counts: Counts, n: number, logX: number): number {
     const half = Math.floor(n / 2);
@@ -234,6 +363,82 @@ export class MinPartSelfSimilarEngine {
     }
     return m;
   }
+}
+
+/**
+ * Margin on log M for the bounded levels: the acceptance is at most e^{−1e-9} < 1 wherever the
+ * log-counts are within 1e-9 of the truth (measured within ~1e-13), so no weight is clipped.
+ */
+const MAX_MARGIN = 1e-9;
+
+/**
+ * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX for parts in [a, b]. Above from (the
+ * last log-concavity failure of the table; above the table the main-arc values, concave: checked
+ * on a grid in the tests) the forward difference D(m) = w(m) − w(m − 1) falls, so the maximiser
+ * is the last m with D(m) > 0. A guess comes from bisection on a cheap proxy of D above the table
+ * (LogBoundedPartCounts.slopeProxy: the saddle-point approximation's slope, no integrals); from
+ * it a galloping search with exact differences finds the last m with D(m) > 0 (exact whatever
+ * the proxy's error; it only sets the number of exact steps, ~2·log₂ of the guess's distance).
+ * Below from, the sizes m' < from are scanned unless the peak's weight is at least
+ * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
+ * [a, b] miss some sizes); such m lie below from and are never the maximiser.
+ */
+export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
+  const half = Math.floor(n / 2);
+  const weight = (m: number) => counts.log(m) + 2 * m * logX;
+  const rises = (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0; // D(m) > 0, exactly
+  let guessT: number | undefined;
+  const proxyRises = (m: number) => {
+    if (m - 1 <= counts.exactUpTo) return rises(m);
+    const [slope, tm] = counts.slopeProxy(m, guessT);
+    guessT = tm;
+    return slope + 2 * logX > 0;
+  };
+  const from = Math.min(counts.logConcaveFrom(), half);
+  // Guess: the last m in [from, half] whose proxy rises.
+  let good = from;
+  let bad = half + 1;
+  while (bad - good > 1) {
+    const mid = Math.floor((good + bad) / 2);
+    if (proxyRises(mid)) good = mid;
+    else bad = mid;
+  }
+  // Exact: the last m in [from, half] with D(m) > 0 (from itself when none), by galloping from the guess.
+  const g = good;
+  if (g > from && !rises(g)) {
+    bad = g;
+    let step = 1;
+    while (bad - step > from && !rises(bad - step)) {
+      bad -= step;
+      step *= 2;
+    }
+    good = Math.max(from, bad - step);
+  } else {
+    good = g;
+    let step = 1;
+    while (good + step <= half && rises(good + step)) {
+      good += step;
+      step *= 2;
+    }
+    bad = Math.min(half + 1, good + step);
+  }
+  while (bad - good > 1) {
+    const mid = Math.floor((good + bad) / 2);
+    if (rises(mid)) good = mid;
+    else bad = mid;
+  }
+  let m = good;
+  if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
+    let best = weight(m);
+    for (let k = 0; k < from; k++) {
+      const w = weight(k);
+      if (w > best) {
+        best = w;
+        m = k;
+      }
+    }
+  }
+  return m;
 }
 
 /** The method as a planner sampler for one (n, a), a >= 2. */
@@ -315,7 +520,8 @@ function partialLog(a: number, t: number): number {
 }
 
 let shared: MinPartSelfSimilarTables | null = null;
-function defaultTables(): MinPartSelfSimilarTables {
+/** The process-wide tables (shared by the minPart and bounded samplers). */
+export function defaultTables(): MinPartSelfSimilarTables {
   shared ??= new MinPartSelfSimilarTables();
   return shared;
 }

@@ -1,6 +1,7 @@
 import type { Partition } from '../../partition.js';
 import type { RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { BoundedSelfSimilarSampler } from '../bounded-self-similar.js';
 import { unrestrictedPartitionSampler } from '../unrestricted.js';
 import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
 import { AllowedSubset } from './allowed-subset.js';
@@ -25,7 +26,8 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
  *   (allowed lists, distinct parts, exactly k): the subset design over the list;
- * - "bounded-boltzmann/1+conjugate": no upper bound on the parts, by conjugation (parts <= k);
+ * - "bounded-boltzmann/1+conjugate" and "bounded-self-similar/1+conjugate": no upper bound on
+ *   the parts, by conjugation (parts <= k; the self-similar one is cheaper for k near √n at large n);
  * - "<method>+length-filter": the family without its length constraint, keeping the samples that
  *   satisfy it, when that constraint rarely binds (restriction of a uniform law is uniform).
  *
@@ -87,6 +89,8 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
           out.push(samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: K }, n), conjugate, K, input.shape)));
+          const bounded = boundedCandidate(input, n, K, conjugate, K);
+          if (bounded !== null) out.push(bounded);
         }
       } else {
         const mixture = mixtureCandidate(input, lo, hi, K);
@@ -363,7 +367,10 @@ function openExactCandidates(input: LengthPlanInput, k: number): PlanCandidate[]
     return distinct ? addStaircase(q) : q;
   };
   if (N - k >= 1) {
-    return [samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape))];
+    const out = [samplerCandidate(input, conjugated(new MultisetBoltzmann({ kind: 'interval', lo: 1, hi: k }, N - k), back, k, shape))];
+    const bounded = boundedCandidate(input, N - k, k, back, k);
+    if (bounded !== null) out.push(bounded);
+    return out;
   }
   if (N === k) {
     // A single member: k equal parts before the maps.
@@ -380,9 +387,22 @@ function openExactCandidates(input: LengthPlanInput, k: number): PlanCandidate[]
   return [];
 }
 
+/**
+ * Parts <= b of size m by the self-similar method (bounded-self-similar.ts), conjugated back
+ * through `map`; null below b = 2 or n < 2b... (no saving there) and where its tables would not fit.
+ * Its setup is time (count tables), so it fits on the memory the tables hold and the work limits.
+ */
+function boundedCandidate(input: LengthPlanInput, m: number, b: number, map: (p: Partition) => Partition, length: number): PlanCandidate | null {
+  if (b < 2 || b >= m) return null;
+  const inner = new BoundedSelfSimilarSampler(m, 1, b);
+  const sampler = conjugated(inner, map, length, input.shape);
+  const fits = inner.fitsLimits() && input.fits(0, sampler.expectedWork);
+  return { method: sampler.method, setupWork: inner.setupWork, sampleWork: sampler.expectedWork, fits, build: () => sampler };
+}
+
 /** Wraps a sampler of the conjugate family. */
 function conjugated(
-  inner: MultisetBoltzmann,
+  inner: PartitionSampler,
   map: (p: Partition) => Partition,
   length: number,
   shape: { expectedDistinct: number },

@@ -1,6 +1,7 @@
 import { EmptyFamilyError } from '../../errors.js';
 import type { PartitionFamily } from '../../family.js';
 import type { PartitionSampler } from '../../sampler.js';
+import { BoundedSelfSimilarSampler } from '../bounded-self-similar.js';
 import { DistinctBoundedSelfSimilarSampler } from '../distinct-bounded-self-similar.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
@@ -45,7 +46,10 @@ import { solveTilt, tiltMoments } from './tilt.js';
  *   its counts serve every level (not for maxPart ~ 2 sqrt(n); e.g. maxPart = 1e4 at n = 1e6:
  *   4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
- *   ~10-30 ms); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
+ *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
+ *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the cheaper
+ *   estimate chosen (bounded-self-similar from n ~ 1e8 on for b ~ √n); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
@@ -218,6 +222,18 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
         setupWork: sampler.setupWork,
         sampleWork: sampler.expectedWork,
         fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+        build: () => sampler,
+      });
+    }
+    if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
+      // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
+      // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
+      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
+      out.push({
+        method: sampler.method,
+        setupWork: sampler.setupWork,
+        sampleWork: sampler.expectedWork,
+        fits: sampler.fitsLimits() && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
         build: () => sampler,
       });
     }
