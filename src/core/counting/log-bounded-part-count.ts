@@ -1,3 +1,8 @@
+import { log1mExpShift } from './log1m-exp-shift.js';
+import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
+import { saddleNewton } from './saddle-newton.js';
+import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
+
 /**
  * log c(m), c(m) = c_{[a,b]}(m) the number of partitions of m into parts in [a, b] (1 <= a, b
  * finite; OEIS A008284 row sums / A026820 for a = 1: partitions of m into parts <= b), for
@@ -9,8 +14,8 @@
  * - m > exactUpTo: the saddle-point integral of the circle method's main arc,
  *     c(m) ≈ (1/2π) ∫ exp φ(t + iy) dy,  φ(τ) = mτ + L(τ),  L(τ) = −Σ_{k=a}^{b} log(1 − e^{−kτ}),
  *   along the vertical line through the real saddle point t (φ'(t) = 0, Newton), by the
- *   trapezoidal rule (as log-min-part-count.ts, whose step and range it reuses: Trefethen &
- *   Weideman 2014, SIAM Review 56, §5). L is evaluated in O(1) terms per node whatever b:
+ *   trapezoidal rule (saddle-trapezoid.ts, as log-min-part-count.ts: Trefethen & Weideman 2014,
+ *   SIAM Review 56, §5). L is evaluated in O(1) terms per node whatever b:
  *     * b < DIRECT_BELOW: the sum itself (< 16 terms);
  *     * else L = log P(e^{−τ}) + Σ_{k<a} log(1 − e^{−kτ}) + S_b(τ), with log P from the modular
  *       transformation of the Dedekind eta function (Apostol 1990, Thm 3.1; as
@@ -48,7 +53,7 @@ export class LogBoundedPartCounts {
 
   private readonly exact: Float64Array;
   private readonly logExact: Float64Array;
-  private readonly memo = new Map<number, Saddle>();
+  private readonly memo = new SaddleMemo((m) => computeSaddle(this.shape, m));
   private concaveFrom = -1;
   private prefixMax: Float64Array | null = null;
   private readonly shape: Shape;
@@ -122,7 +127,7 @@ export class LogBoundedPartCounts {
     checkArgument(m);
     if (m <= this.exactUpTo) return this.logExact[m];
     if (this.b < this.a) return -Infinity;
-    const s = this.saddle(m);
+    const s = this.memo.get(m);
     return s.phi + s.logI;
   }
 
@@ -131,8 +136,8 @@ export class LogBoundedPartCounts {
     if (m1 === m2) return 0;
     if (m1 <= this.exactUpTo && m2 <= this.exactUpTo) return Math.log(this.exact[m1] / this.exact[m2]);
     if (m1 <= this.exactUpTo || m2 <= this.exactUpTo || this.b < this.a) return this.log(m1) - this.log(m2);
-    const s1 = this.saddle(m1);
-    const s2 = this.saddle(m2);
+    const s1 = this.memo.get(m1);
+    const s2 = this.memo.get(m2);
     return envelopeIntegral(this.shape, m2, m1) + s1.logI - s2.logI;
   }
 
@@ -148,21 +153,6 @@ export class LogBoundedPartCounts {
     const w0 = realDerivatives(this.shape, m - 1, tm + d)[1];
     return [tm - 0.5 * Math.log1p((w1 - w0) / w0), tm];
   }
-
-  private saddle(m: number): Saddle {
-    const hit = this.memo.get(m);
-    if (hit !== undefined) return hit;
-    const s = computeSaddle(this.shape, m);
-    if (this.memo.size >= MEMO_LIMIT) this.memo.clear();
-    this.memo.set(m, s);
-    return s;
-  }
-}
-
-interface Saddle {
-  readonly t: number;
-  readonly phi: number;
-  readonly logI: number;
 }
 
 /** How L is evaluated for [a, b]. */
@@ -188,9 +178,6 @@ export const boundedCountWork = { saddles: 0, nodes: 0, newton: 0 };
 /** The default table end is capped here (a sampler passes the largest size it needs). */
 const DEFAULT_CAP = 1_000_000;
 const PI2_6 = (Math.PI * Math.PI) / 6;
-const MEMO_LIMIT = 4096;
-const STEP = 0.5;
-const RANGE = 10;
 
 /** Main-arc threshold on A(t) (see the class comment and the test file). */
 export const A_MIN = 36;
@@ -386,18 +373,12 @@ function wDerivativesReal(u: number, n: number): number[] {
  */
 export function boundedSaddle(shape: Shape, m: number, guess?: number): number {
   // Start: the unrestricted value, or for few sizes the mean of b − a + 1 geometrics, (#sizes)/t = m.
-  let t = guess ?? Math.max(Math.PI / Math.sqrt(6 * m), (shape.b - shape.a + 1) / m);
-  for (let i = 0; i < 100; i++) {
-    boundedCountWork.newton++;
-    const [d1, d2] = realDerivatives(shape, m, t);
-    let next = t - d1 / d2;
-    if (!(d2 > 0) || !(next > t / 2)) next = t / 2;
-    else if (next > 2 * t) next = 2 * t;
-    const done = Math.abs(next - t) <= 1e-14 * t;
-    t = next;
-    if (done) break;
-  }
-  return t;
+  const start = guess ?? Math.max(Math.PI / Math.sqrt(6 * m), (shape.b - shape.a + 1) / m);
+  return saddleNewton((t) => realDerivatives(shape, m, t), start, 100, 1e-14, countNewtonStep);
+}
+
+function countNewtonStep(): void {
+  boundedCountWork.newton++;
 }
 
 /** boundedSaddle for [a, b] (a <= b). */
@@ -408,20 +389,18 @@ export function boundedPartSaddle(a: number, b: number, m: number): number {
 // ---------------------------------------------------------------------------------------------
 // Complex parts: L(t + iy) − L(t) at the trapezoid nodes.
 
-function computeSaddle(shape: Shape, m: number): Saddle {
+function computeSaddle(shape: Shape, m: number): SaddleIntegral {
   boundedCountWork.saddles++;
   const t = boundedSaddle(shape, m);
   const [, d2] = realDerivatives(shape, m, t);
   const sigma = Math.sqrt(d2);
   const phi = m * t + realL(shape, t);
-  // Step: STEP/σ (the Gaussian bulk), and at most t/H with H from poleStep (few sizes: the pole
+  // Step: TRAPEZOID_STEP/σ (the Gaussian bulk), and at most t/H with H from poleStep (few sizes: the pole
   // of order b − a + 1 at τ = 0 lies at distance t from the line).
-  const K = Math.ceil(Math.max((2 * Math.PI * sigma) / STEP, (2 * Math.PI * poleStep(shape)) / t));
-  const h = (2 * Math.PI) / K;
-  const last = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
+  const { K, h, last } = trapezoidGrid(sigma, (2 * Math.PI * poleStep(shape)) / t);
   let sum = 1;
   let previous = 1;
-  // Nodes to |y| = RANGE/σ, then on while the terms still matter and fall (few sizes give the
+  // Nodes to |y| = TRAPEZOID_RANGE/σ, then on while the terms still matter and fall (few sizes give the
   // integrand polynomial tails, (1 + (y/t)²)^{−(b−a+1)/2}); a rise means another arc: stop there.
   for (let j = 1; j * h < Math.PI; j++) {
     const y = j * h;
@@ -431,7 +410,7 @@ function computeSaddle(shape: Shape, m: number): Saddle {
     if (j > last && (size < TAIL_CUT || size > previous)) break;
     previous = size;
     // m·y reduced exactly: y = 2πj/K, m·j < 2^53.
-    const im = (2 * Math.PI * ((m * j) % K)) / K + li;
+    const im = nodePhase(m, j, K) + li;
     sum += 2 * size * Math.cos(im);
   }
   return { t, phi, logI: Math.log((h * sum) / (2 * Math.PI)) };
@@ -560,17 +539,6 @@ function li2ExpNegShift(u0: number, delta: number): [number, number] {
     }
   }
   return [re, im];
-}
-
-/** log(1 − e^{−(x + iy)}) − log(1 − e^{−x}) as [Re, Im] (x > 0). */
-function log1mExpShift(x: number, y: number): [number, number] {
-  const e = Math.exp(-x);
-  const den = -Math.expm1(-x);
-  const s = Math.sin(y / 2);
-  // 1 − e^{−x−iy} = (1 − e) + e(1 − e^{−iy}) = (1 − e)(1 + e(2 sin²(y/2) + i sin y)/(1 − e)).
-  const wr = (e * 2 * s * s) / den;
-  const wi = (e * Math.sin(y)) / den;
-  return [0.5 * Math.log1p(2 * wr + wr * wr + wi * wi), Math.atan2(wi, 1 + wr)];
 }
 
 /**

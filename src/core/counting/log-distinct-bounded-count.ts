@@ -1,3 +1,7 @@
+import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
+import { saddleNewton } from './saddle-newton.js';
+import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
+
 /**
  * log Q(m), Q(m) = Q_{a,b}(m) the number of partitions of m into distinct parts in [a, b]
  * (a >= 1, b >= a or b = ∞; OEIS A000009 for a = 1, b = ∞; A025147 for parts >= 2; A025148 for
@@ -44,7 +48,7 @@ export class LogDistinctBoundedCounts {
   private logTable: Float64Array | null = null;
   /** Largest m the table holds (or will hold once built). */
   private tableEnd: number;
-  private readonly memo = new Map<number, Saddle>();
+  private readonly memo = new SaddleMemo((m) => computeSaddle(this.a, this.b, m));
   private concaveFrom = -1;
 
   constructor(
@@ -87,7 +91,7 @@ export class LogDistinctBoundedCounts {
   /** Whether the saddle-point integral serves this (folded) m: b = ∞, or the tail series converges fast enough. */
   private fast(m: number): boolean {
     if (this.b === Infinity) return true;
-    const t = this.saddle(m).t;
+    const t = this.memo.get(m).t;
     return t > 0 && (this.b + 1) * t >= LogDistinctBoundedCounts.TAIL_MIN_BT;
   }
 
@@ -145,7 +149,7 @@ export class LogDistinctBoundedCounts {
     const f = this.fold(m);
     if (f < this.exact.length) return this.logExact[f];
     if (this.fast(f)) {
-      const s = this.saddle(f);
+      const s = this.memo.get(f);
       return s.phi + s.logI;
     }
     this.grow(f);
@@ -163,8 +167,8 @@ export class LogDistinctBoundedCounts {
     const n = this.exact.length;
     if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
     if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
-    const s1 = this.saddle(f1);
-    const s2 = this.saddle(f2);
+    const s1 = this.memo.get(f1);
+    const s2 = this.memo.get(f2);
     return this.phiDifference(f1, s1.t, f2, s2.t) + s1.logI - s2.logI;
   }
 
@@ -202,15 +206,6 @@ export class LogDistinctBoundedCounts {
       throw new RangeError(`m must be an integer in [0, ${LogDistinctBoundedCounts.MAX_M}], got ${m}`);
     }
   }
-
-  private saddle(m: number): Saddle {
-    const hit = this.memo.get(m);
-    if (hit !== undefined) return hit;
-    const s = computeSaddle(this.a, this.b, m);
-    if (this.memo.size >= MEMO_LIMIT) this.memo.clear();
-    this.memo.set(m, s);
-    return s;
-  }
 }
 
 /** Q(0..upTo) for distinct parts in [a, b], by c(m) += c(m − k) (m descending), doubles. */
@@ -222,16 +217,7 @@ function knapsack(a: number, b: number, upTo: number): Float64Array {
   return c;
 }
 
-interface Saddle {
-  readonly t: number;
-  readonly phi: number;
-  readonly logI: number;
-}
-
 const PI2_12 = (Math.PI * Math.PI) / 12;
-const MEMO_LIMIT = 4096;
-const STEP = 0.5;
-const RANGE = 10;
 /** The integrand is summed until it is below e^{−CUTOFF} of its peak. */
 const CUTOFF = 45;
 
@@ -320,20 +306,10 @@ function derivatives(a: number, b: number, m: number, t: number): [number, numbe
  * Boltzmann parameter x = e^{−t} at which distinct parts in [a, b] have mean size ≈ m.
  */
 export function distinctBoundedSaddle(a: number, b: number, m: number): number {
-  let t = Math.PI / Math.sqrt(12 * m);
-  for (let i = 0; i < 80; i++) {
-    const [d1, d2] = derivatives(a, b, m, t);
-    let next = t - d1 / d2;
-    if (!(d2 > 0) || !(next > t / 2)) next = t / 2;
-    else if (next > 2 * t) next = 2 * t;
-    const done = Math.abs(next - t) <= 1e-15 * t;
-    t = next;
-    if (done) break;
-  }
-  return t;
+  return saddleNewton((t) => derivatives(a, b, m, t), Math.PI / Math.sqrt(12 * m), 80, 1e-15);
 }
 
-function computeSaddle(a: number, b: number, m: number): Saddle {
+function computeSaddle(a: number, b: number, m: number): SaddleIntegral {
   const t = distinctBoundedSaddle(a, b, m);
   const [, d2] = derivatives(a, b, m, t);
   const sigma = Math.sqrt(d2);
@@ -342,12 +318,10 @@ function computeSaddle(a: number, b: number, m: number): Saddle {
   const tailT = b === Infinity ? 0 : tail(b, t);
   phi -= tailT;
   // Trapezoid with h = 2π/K, K integer, so that the phase m·y = 2π(m·j mod K)/K is exact.
-  const K = Math.ceil((2 * Math.PI * sigma) / STEP);
-  const h = (2 * Math.PI) / K;
   // Beyond the Gaussian core the integrand is not Gaussian: |exp(π²/(12τ))| decays only to
   // exp(π²/(12t)·(1/(1 + s²) − 1)), s = y/t. So the sum runs on until the integrand is below
-  // e^{−CUTOFF} relative (at least RANGE/σ, at most y = π).
-  const first = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
+  // e^{−CUTOFF} relative (at least TRAPEZOID_RANGE/σ, at most y = π).
+  const { K, h, last: first } = trapezoidGrid(sigma);
   let sum = 1;
   for (let j = 1; j <= K / 2; j++) {
     const [re, im] = phiShift(a, b, m, t, j * h, j, K);
@@ -368,8 +342,7 @@ function phiShift(a: number, b: number, m: number, t: number, y: number, j: numb
   const s2 = s * s;
   const c = PI2_12 / (t * t) / (1 + s2);
   let re = (-c * y * y) / t;
-  const phase = (2 * Math.PI * ((m * j) % K)) / K;
-  let im = phase - c * y + y / 24;
+  let im = nodePhase(m, j, K) - c * y + y / 24;
   for (let k = 1; k < a; k++) {
     const e = Math.exp(-k * t);
     const p = e / (1 + e);

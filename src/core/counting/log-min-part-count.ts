@@ -1,3 +1,8 @@
+import { log1mExpShift } from './log1m-exp-shift.js';
+import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
+import { saddleNewton } from './saddle-newton.js';
+import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
+
 /**
  * log c_b(m), c_b(m) the number of partitions of m into parts >= b (OEIS A002865 for b = 2,
  * A008483 for b = 3, A008484 for b = 4), for b >= 2 and 0 <= m <= 1e9, with numerically stable
@@ -35,8 +40,8 @@ export class LogMinPartCounts {
   /** Exact (double) counts c_b(0..exactUpTo). */
   private readonly exact: Float64Array;
   private readonly logExact: Float64Array;
-  /** Saddle-point data per m above the table (memo, bounded). */
-  private readonly memo = new Map<number, Saddle>();
+  /** Saddle-point data per m above the table. */
+  private readonly memo = new SaddleMemo((m) => computeSaddle(this.b, m));
   private concaveFrom = -1;
 
   constructor(
@@ -84,7 +89,7 @@ export class LogMinPartCounts {
   log(m: number): number {
     checkArgument(m);
     if (m <= this.exactUpTo) return this.logExact[m];
-    const s = this.saddle(m);
+    const s = this.memo.get(m);
     return s.phi + s.logI;
   }
 
@@ -95,8 +100,8 @@ export class LogMinPartCounts {
     if (m1 === m2) return 0;
     if (m1 <= this.exactUpTo && m2 <= this.exactUpTo) return Math.log(this.exact[m1] / this.exact[m2]);
     if (m1 <= this.exactUpTo || m2 <= this.exactUpTo) return this.log(m1) - this.log(m2);
-    const s1 = this.saddle(m1);
-    const s2 = this.saddle(m2);
+    const s1 = this.memo.get(m1);
+    const s2 = this.memo.get(m2);
     return this.phiDifference(m1, s1.t, m2, s2.t) + s1.logI - s2.logI;
   }
 
@@ -110,31 +115,9 @@ export class LogMinPartCounts {
     for (let k = 1; k < this.b; k++) sum += Math.log1p((Math.exp(-k * t2) * Math.expm1(-k * d)) / Math.expm1(-k * t2));
     return sum;
   }
-
-  private saddle(m: number): Saddle {
-    const hit = this.memo.get(m);
-    if (hit !== undefined) return hit;
-    const s = computeSaddle(this.b, m);
-    if (this.memo.size >= MEMO_LIMIT) this.memo.clear();
-    this.memo.set(m, s);
-    return s;
-  }
-}
-
-interface Saddle {
-  /** The real saddle point. */
-  readonly t: number;
-  /** φ(t). */
-  readonly phi: number;
-  /** log of (1/2π)∫ exp(φ(t + iy) − φ(t)) dy. */
-  readonly logI: number;
 }
 
 const PI2_6 = (Math.PI * Math.PI) / 6;
-const MEMO_LIMIT = 4096;
-/** Trapezoid step in units of 1/σ, and the half-range of the sum in the same units. */
-const STEP = 0.5;
-const RANGE = 10;
 
 /**
  * The table's end per b: above it the dropped arcs are below double rounding. Measured against
@@ -170,20 +153,10 @@ function derivatives(b: number, m: number, t: number): [number, number] {
  * which partitions into parts >= b have mean size ≈ m (used by the sampler).
  */
 export function minPartSaddle(b: number, m: number): number {
-  let t = Math.PI / Math.sqrt(6 * m);
-  for (let i = 0; i < 60; i++) {
-    const [d1, d2] = derivatives(b, m, t);
-    let next = t - d1 / d2;
-    if (!(d2 > 0) || !(next > t / 2)) next = t / 2;
-    else if (next > 2 * t) next = 2 * t;
-    const done = Math.abs(next - t) <= 1e-15 * t;
-    t = next;
-    if (done) break;
-  }
-  return t;
+  return saddleNewton((t) => derivatives(b, m, t), Math.PI / Math.sqrt(6 * m), 60, 1e-15);
 }
 
-function computeSaddle(b: number, m: number): Saddle {
+function computeSaddle(b: number, m: number): SaddleIntegral {
   const t = minPartSaddle(b, m);
   const [, d2] = derivatives(b, m, t);
   const sigma = Math.sqrt(d2);
@@ -191,9 +164,7 @@ function computeSaddle(b: number, m: number): Saddle {
   let phi = 0.5 * Math.log(t / (2 * Math.PI)) + PI2_6 / t + (m - 1 / 24) * t;
   for (let k = 1; k < b; k++) phi += Math.log(-Math.expm1(-k * t));
   // The trapezoid with h = 2π/K, K integer, so that the phase m·y = 2π(m·j mod K)/K is exact.
-  const K = Math.ceil((2 * Math.PI * sigma) / STEP);
-  const h = (2 * Math.PI) / K;
-  const last = Math.ceil((RANGE * K) / (2 * Math.PI * sigma));
+  const { K, h, last } = trapezoidGrid(sigma);
   let sum = 1; // j = 0
   for (let j = 1; j <= last; j++) {
     const y = j * h;
@@ -218,16 +189,11 @@ function phiShift(b: number, m: number, t: number, y: number, j: number, K: numb
   const a = PI2_6 / (t * t) / (1 + s2);
   re -= (a * y * y) / t;
   // Imaginary: m·y − π²y/(6t²(1 + s²)) − y/24. m·y = 2π·((m·j) mod K)/K exactly (m·j < 2^53).
-  const phase = (2 * Math.PI * ((m * j) % K)) / K;
-  im += phase - a * y - y / 24;
+  im += nodePhase(m, j, K) - a * y - y / 24;
   for (let k = 1; k < b; k++) {
-    const e = Math.exp(-k * t);
-    const den = -Math.expm1(-k * t);
-    const half = Math.sin((k * y) / 2);
-    const wr = (e * 2 * half * half) / den;
-    const wi = (e * Math.sin(k * y)) / den;
-    re += 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
-    im += Math.atan2(wi, 1 + wr);
+    const [dr, di] = log1mExpShift(k * t, k * y);
+    re += dr;
+    im += di;
   }
   return [re, im];
 }
