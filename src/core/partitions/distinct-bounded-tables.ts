@@ -1,14 +1,10 @@
 import { LogDistinctBoundedCounts, distinctBoundedSaddle } from '../counting/log-distinct-bounded-count.js';
 import type { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
+import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
 import { DistinctPartitionTable } from './distinct-table.js';
 
 /** What a level of the bounded distinct engine needs of its counts. */
-export interface DistinctCounts {
-  logRatio(m1: number, m2: number): number;
-  log(m: number): number;
-  /** From here on the counts are log-concave in m (a local maximum of the weight is global). */
-  logConcaveFrom(): number;
-}
+export type DistinctCounts = LogConcaveCounts;
 
 /**
  * The count tables and base tables the distinct self-similar engine uses for a smallest part
@@ -61,64 +57,9 @@ export class DistinctBoundedTables {
     return t > 0 && Number.isFinite(t) ? t : c === Infinity ? Math.PI / Math.sqrt(12 * n) : 1 / c;
   }
 
-  /**
-   * argmax over integers 0 <= m <= n/2 of log Q(m) + 2m·logX. Above logConcaveFrom() = L the
-   * weight is concave, so the last m with a positive forward difference is found by bisection;
-   * m < L is scanned unless the peak is above log Q(L), which bounds every weight there (Q is
-   * non-decreasing for m >= the smallest part b — add 1 to the largest part — Q(m) = 0 for
-   * 0 < m < b, and x < 1).
-   */
+  /** argmax over integers 0 <= m <= n/2 of log Q(m) + 2m·logX (concave-maximiser.ts). */
   maximiser(counts: DistinctCounts, n: number, logX: number, guess?: number): number {
-    const half = Math.floor(n / 2);
-    const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
-    const from = counts.logConcaveFrom();
-    if (half <= from) {
-      let best = 0;
-      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
-      return best;
-    }
-    // rises(m): weight(m) > weight(m − 1); true then false on (from, half] (concave). The last m
-    // where it holds (or from) is bracketed by galloping from the guess, then bisected: the same
-    // answer as bisecting all of [from, half], in ~log₂|guess error| counts instead of log₂ n.
-    const rises = (m: number) => weight(m, m - 1) > 0;
-    let lo = from; // rises(lo) or lo = from
-    let hi = half; // the answer is <= hi
-    if (guess !== undefined && Number.isFinite(guess)) {
-      const g = Math.min(half, Math.max(from + 1, Math.round(guess)));
-      if (rises(g)) {
-        lo = g;
-        for (let step = 1; ; step *= 2) {
-          const probe = g + step;
-          if (probe > half) break;
-          if (!rises(probe)) {
-            hi = probe - 1;
-            break;
-          }
-          lo = probe;
-        }
-      } else {
-        hi = g - 1;
-        for (let step = 1; ; step *= 2) {
-          const probe = g - step;
-          if (probe <= from) break;
-          if (rises(probe)) {
-            lo = probe;
-            break;
-          }
-          hi = probe - 1;
-        }
-      }
-    }
-    while (lo < hi) {
-      const mid = Math.ceil((lo + hi) / 2);
-      if (rises(mid)) lo = mid;
-      else hi = mid - 1;
-    }
-    let m = lo;
-    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
-      for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
-    }
-    return m;
+    return concaveMaximiser(counts, n, logX, guess);
   }
 }
 

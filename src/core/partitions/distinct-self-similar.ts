@@ -168,26 +168,9 @@ export class DistinctSelfSimilarEngine {
     all?: DistinctSelfSimilarStats,
   ): number {
     const logX = distinctLogX(n);
-    const best = this.maximiser(n, logX);
-    for (;;) {
-      const rest = proposal.draw(source, logX, 3, 2, n);
-      if (top) top.topProposals++;
-      if (all) {
-        all.proposals++;
-        all.visited += proposal.visited;
-      }
-      if (rest === DistinctOddProposal.OVER) continue;
-      const j0 = (n - rest) % 2;
-      const t = rest + j0;
-      if (t > n) continue;
-      const m = (n - t) / 2;
-      // log of q(m)x^{2m}x^{j0} / q(best)x^{2·best}.
-      const logAccept = this.weightRatio(m, best, logX) + j0 * logX;
-      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
-        this.one = j0 === 1;
-        return m;
-      }
-    }
+    const [m, j0] = this.accept(source, n, 1, Infinity, logX, this.options.logQ, this.maximiser(n, logX), proposal, top, all);
+    this.one = j0 === 1;
+    return m;
   }
 
   /**
@@ -210,6 +193,29 @@ export class DistinctSelfSimilarEngine {
     const logX = -bounded.saddle(b, n, cap);
     const best = bounded.maximiser(counts, n, logX, maximiserGuess(bp, cp, -logX));
     const s = b % 2 === 1 ? b : b + 1;
+    const [m, j0] = this.accept(source, n, s, cap, logX, counts, best, proposal, top, all);
+    this.extra = j0 === 1 ? s : 0;
+    return m;
+  }
+
+  /**
+   * Steps 1–3 at size n until acceptance: A' over the odd sizes s + 2, s + 4, ... up to cap at x,
+   * the smallest odd size s taken once when the parity j0 = (n − |A'|) mod 2 needs it, accepted
+   * with probability Q(m)x^{2m}x^{s·j0} / Q(best)x^{2·best}, m = (n − |A'| − s·j0)/2. Returns
+   * [m, j0] (A' stays in `proposal`).
+   */
+  private accept(
+    source: RandomSource,
+    n: number,
+    s: number,
+    cap: number,
+    logX: number,
+    counts: { logRatio(m1: number, m2: number): number },
+    best: number,
+    proposal: DistinctOddProposal,
+    top?: DistinctSelfSimilarStats,
+    all?: DistinctSelfSimilarStats,
+  ): [number, number] {
     for (;;) {
       const rest = proposal.draw(source, logX, s + 2, 2, n, cap);
       if (top) top.topProposals++;
@@ -223,11 +229,9 @@ export class DistinctSelfSimilarEngine {
       const t = rest + s * j0;
       if (t > n) continue;
       const m = (n - t) / 2;
+      // log of Q(m)x^{2m}x^{s·j0} / Q(best)x^{2·best}.
       const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
-      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
-        this.extra = j0 === 1 ? s : 0;
-        return m;
-      }
+      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) return [m, j0];
     }
   }
 

@@ -5,6 +5,7 @@ import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal } from './boltzmann-proposal.js';
+import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
 import { MinPartTable } from './min-part-table.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable } from './table-recursive.js';
@@ -125,7 +126,7 @@ export class MinPartSelfSimilarTables {
   }
 
   /** log c_b for b >= 1 (b = 1: the partition numbers). */
-  countsFor(b: number): Counts {
+  countsFor(b: number): LogConcaveCounts {
     if (b === 1) return { logRatio: (x, y) => this.logP.logRatio(x, y), log: (m) => this.logP.log(m), logConcaveFrom: () => 26 };
     let c = this.counts.get(b);
     if (c === undefined) {
@@ -134,12 +135,6 @@ export class MinPartSelfSimilarTables {
     }
     return c;
   }
-}
-
-interface Counts {
-  logRatio(m1: number, m2: number): number;
-  log(m: number): number;
-  logConcaveFrom(): number;
 }
 
 /** Sub-problems up to this size use the min-part table (201 × 202 cells). */
@@ -258,31 +253,50 @@ export class MinPartSelfSimilarEngine {
     const logX = -minPartSaddle(b, n);
     const best = this.maximiser(counts, n, logX);
     const s = b % 2 === 1 ? b : b + 1;
-    const logXs2 = 2 * s * logX;
     for (;;) {
-      const rest = level.proposal.draw(source, logX, s + 2, 2, n);
-      if (top) top.topProposals++;
-      if (all) {
-        all.proposals++;
-        all.visited += level.proposal.visited;
-      }
-      if (rest === BoltzmannProposal.OVER) continue;
-      const j0 = (n - rest) % 2;
-      // G ~ Geometric(x^{2s}): P(G >= g) = x^{2sg}.
-      const u = 1 - source.nextDouble();
-      let g = 0;
-      if (u < Math.exp(logXs2)) g = Math.max(1, Math.floor(Math.log(u) / logXs2));
-      const xs = j0 + 2 * g;
-      const t = rest + s * xs;
-      if (t > n) continue;
+      const t = this.propose(source, n, s, Infinity, logX, level, top, all);
+      if (t < 0) continue;
+      const j0 = level.xs % 2;
       const m = (n - t) / 2;
       const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
       if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
         level.s = s;
-        level.xs = xs;
         return m;
       }
     }
+  }
+
+  /**
+   * Steps 1–2 of one proposal at size n: the odd sizes s + 2, s + 4, ... up to maxPart at x, then
+   * X_s = j0 + 2G, the parity j0 that can complete the size. Leaves X_s in level.xs (A' in
+   * level.proposal) and returns |A|, or −1 when the proposal is over n (rejected).
+   */
+  private propose(
+    source: RandomSource,
+    n: number,
+    s: number,
+    maxPart: number,
+    logX: number,
+    level: Level,
+    top?: MinPartSelfSimilarStats,
+    all?: MinPartSelfSimilarStats,
+  ): number {
+    const rest = level.proposal.draw(source, logX, s + 2, 2, n, maxPart);
+    if (top) top.topProposals++;
+    if (all) {
+      all.proposals++;
+      all.visited += level.proposal.visited;
+    }
+    if (rest === BoltzmannProposal.OVER) return -1;
+    const j0 = (n - rest) % 2;
+    // G ~ Geometric(x^{2s}): P(G >= g) = x^{2sg}.
+    const logXs2 = 2 * s * logX;
+    const u = 1 - source.nextDouble();
+    let g = 0;
+    if (u < Math.exp(logXs2)) g = Math.max(1, Math.floor(Math.log(u) / logXs2));
+    level.xs = j0 + 2 * g;
+    const t = rest + s * level.xs;
+    return t > n ? -1 : t;
   }
 
   /**
@@ -312,56 +326,22 @@ export class MinPartSelfSimilarEngine {
     const logX = -boundedPartSaddle(a, b, n);
     const best = this.options.tables.boundedBest(counts, n, logX);
     // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.
-    const logXs2 = 2 * s * logX;
     for (;;) {
-      const rest = level.proposal.draw(source, logX, s + 2, 2, n, b);
-      if (top) top.topProposals++;
-      if (all) {
-        all.proposals++;
-        all.visited += level.proposal.visited;
-      }
-      if (rest === BoltzmannProposal.OVER) continue;
-      const j0 = (n - rest) % 2;
-      const u = 1 - source.nextDouble();
-      let g = 0;
-      if (u < Math.exp(logXs2)) g = Math.max(1, Math.floor(Math.log(u) / logXs2));
-      const xs = j0 + 2 * g;
-      const t = rest + s * xs;
-      if (t > n) continue;
+      const t = this.propose(source, n, s, b, logX, level, top, all);
+      if (t < 0) continue;
+      const j0 = level.xs % 2;
       const m = (n - t) / 2;
       const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
       if (source.nextDouble() < Math.exp(logAccept)) {
         level.s = s;
-        level.xs = xs;
         return m;
       }
     }
   }
 
-  /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment). */
-  maximiser(counts: Counts, n: number, logX: number): number {
-    const half = Math.floor(n / 2);
-    const weight = (a: number, b: number) => counts.logRatio(a, b) + 2 * (a - b) * logX;
-    const from = counts.logConcaveFrom();
-    if (half <= from) {
-      // No concave range: a direct scan (c(0) = 1 > 0, so best starts there).
-      let best = 0;
-      for (let m = 1; m <= half; m++) if (weight(m, best) > 0) best = m;
-      return best;
-    }
-    // Bisection on [from, half] for the last m with weight(m, m − 1) > 0 (concave: a sign change once).
-    let lo = from;
-    let hi = half;
-    while (lo < hi) {
-      const mid = Math.ceil((lo + hi) / 2);
-      if (weight(mid, mid - 1) > 0) lo = mid;
-      else hi = mid - 1;
-    }
-    let m = lo;
-    if (counts.log(m) + 2 * m * logX < counts.log(from)) {
-      for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
-    }
-    return m;
+  /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment; concave-maximiser.ts). */
+  maximiser(counts: LogConcaveCounts, n: number, logX: number): number {
+    return concaveMaximiser(counts, n, logX);
   }
 }
 
