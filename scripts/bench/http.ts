@@ -16,6 +16,7 @@ import { strongEtag } from '../../src/http/caching.js';
 import { parseQuery, QueryReader } from '../../src/http/query.js';
 import { partitionFamilyOf } from '../../src/library/partitions.js';
 import { partitionsQuery } from '../../src/schemas/partitions.js';
+import { FIXED_HEADERS } from '../load/fixed-headers.js';
 
 const ROUNDS = 7;
 const CALLS = 2000;
@@ -74,18 +75,6 @@ function fakeExchange(path: string, done: (bytes: number) => void) {
 }
 
 /** The Hono reference of `npm run load` (scripts/load/fixed-hono-server.ts): partsmith's headers, a fixed n = 1000 body. */
-const FIXED_HEADERS: Readonly<Record<string, string>> = {
-  'access-control-allow-origin': '*',
-  'access-control-expose-headers': 'ETag, Partsmith-Seed, Partsmith-Method, Retry-After',
-  'cache-control': 'public, max-age=31536000, immutable',
-  'content-security-policy': "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
-  'content-type': 'application/json; charset=utf-8',
-  etag: '"00000000000000000000000000000000"',
-  'partsmith-method': 'table-recursive/1',
-  'partsmith-seed': 'fixed',
-  'referrer-policy': 'no-referrer',
-  'x-content-type-options': 'nosniff',
-};
 const FIXED_BODY = `{"family":{"kind":"partition","n":1000},"seed":"fixed","start":0,"method":"table-recursive/1","samples":[[${'7,'.repeat(80)}1]]}`;
 
 export async function benchHttp(): Promise<void> {

@@ -4,6 +4,7 @@ import { familyKey } from '../../src/core/family.js';
 import { planPartitionSampler } from '../../src/core/partitions/plan.js';
 import { SampleStreams } from '../../src/core/seeding.js';
 import { partitionAsParts } from '../../src/http/encode.js';
+import { FIXED_HEADERS } from './fixed-headers.js';
 
 /**
  * A reference for `npm run load -- --ceiling`: a Hono app on the same Node adapter as partsmith,
@@ -21,18 +22,6 @@ import { partitionAsParts } from '../../src/http/encode.js';
 const workUs = Number(process.env.WORK_US ?? 0);
 if (!Number.isFinite(workUs) || workUs < 0) throw new Error(`WORK_US must be a non-negative number, got ${process.env.WORK_US}`);
 
-const HEADERS: Readonly<Record<string, string>> = {
-  'access-control-allow-origin': '*',
-  'access-control-expose-headers': 'ETag, Partsmith-Seed, Partsmith-Method, Retry-After',
-  'cache-control': 'public, max-age=31536000, immutable',
-  'content-security-policy': "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
-  'content-type': 'application/json; charset=utf-8',
-  etag: '"00000000000000000000000000000000"',
-  'partsmith-method': 'table-recursive/1',
-  'partsmith-seed': 'fixed',
-  'referrer-policy': 'no-referrer',
-  'x-content-type-options': 'nosniff',
-};
 const BODY =
   '{"family":{"kind":"partition","n":1000},"seed":"fixed","start":0,"method":"table-recursive/1","samples":[[109,62,59,56,52,50,37,36,36,29,22,22,22,21,20,19,16,16,16,16,14,14,13,12,12,12,8,8,8,8,8,7,7,7,7,7,7,7,7,7,6,6,5,5,4,4,4,3,3,3,3,3,3,3,3,3,3,3,3,3,3,3,2,2,2,2,2,1,1,1,1,1,1,1,1,1,1,1,1,1,1,1]]}';
 
@@ -54,13 +43,13 @@ const app = new Hono();
 app.get('/v1/partitions', (c) => {
   if (sampleFromQuery) {
     const seed = c.req.query('seed') ?? 'fixed';
-    return new Response(sampleBody(Number(c.req.query('n')), seed), { status: 200, headers: { ...HEADERS, 'partsmith-seed': seed } });
+    return new Response(sampleBody(Number(c.req.query('n')), seed), { status: 200, headers: { ...FIXED_HEADERS, 'partsmith-seed': seed } });
   }
   if (workUs > 0) {
     const until = performance.now() + workUs / 1000;
     while (performance.now() < until);
   }
-  return new Response(BODY, { status: 200, headers: { ...HEADERS } });
+  return new Response(BODY, { status: 200, headers: { ...FIXED_HEADERS } });
 });
 
 const server = serve({ fetch: app.fetch, port: 0, hostname: '127.0.0.1' }, (info) => console.log(`fixed Hono server listening on http://127.0.0.1:${info.port}`));
