@@ -89,6 +89,37 @@ export function nsPerStep(method: string): number {
   return NS_PER_STEP[baseMethod(method)] ?? UNKNOWN_NS_PER_STEP;
 }
 
+/**
+ * Nanoseconds per unit of a method's setupWork (what its constructor reports: table cells, count
+ * additions, tilt steps), for planners that weigh setup against samples. Methods missing here
+ * count setup in their own steps (nsPerStep). Measured with process CPU time, best of 5 builds,
+ * Node 20 on the 2-core machine (build time / setupWork):
+ * - table-sizes 8.1-8.5 (n = 2000, distinct or minPart = 3, 4e6 cells), table-lengths 5.1-6.8
+ *   (n = 2e4 distinct, n = 3e4 with length = 100), table-sizes-lengths 9.0-10.8 (n = 600 parts
+ *   <= 50 with 60 parts; n = 1000, 13 allowed sizes, at most 300 parts);
+ * - allowed-subset 32-73 per cell (1000 sizes, k = 400 and 100; the tilt dominates small tables);
+ * - distinct-boltzmann 12-22 per block-table cell, tilt included (2e6 cells, n = 1e5-1e7);
+ * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files'
+ *   measured figure); distinct-bounded-self-similar reports 0.05 units per addition of ~3 ns
+ *   (its file), so 60 per unit; box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
+ */
+export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
+  'table-sizes/1': 8,
+  'table-lengths/1': 6,
+  'table-sizes-lengths/1': 10,
+  'allowed-subset/1': 40,
+  'distinct-boltzmann/1': 17,
+  'minpart-self-similar/1': 1.4,
+  'bounded-self-similar/1': 1.4,
+  'distinct-bounded-self-similar/1': 60,
+  'box-mixture/1': 60,
+};
+
+/** Nanoseconds per unit of setupWork of a method (wrapped ids by their base; else its step). */
+export function nsPerSetupUnit(method: string): number {
+  return NS_PER_SETUP_UNIT[baseMethod(method)] ?? nsPerStep(method);
+}
+
 /** What the time estimate needs to know of a sampler. */
 export interface CostedSampler {
   readonly method: string;

@@ -21,6 +21,7 @@ import {
 } from './spec.js';
 import { lengthTableSampler, sizeLengthTableSampler, sizeTableSampler, type TableSampler } from './table-sampler.js';
 import { solveTilt, tiltMoments } from './tilt.js';
+import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
 
 /**
  * Planner for constrained partition families: lists the exact methods that apply, estimates
@@ -62,8 +63,12 @@ export const TABLE_CELL_LIMIT = 5_000_000;
 export const SAMPLE_WORK_LIMIT = 1e7;
 /** Samples a plan is costed for (setup is paid once per request). */
 export const NOMINAL_SAMPLES = 100;
-/** Boltzmann methods are considered (and built) only when the best table costs more than this. */
-const BOLTZMANN_CONSIDERED_ABOVE = 2e5;
+/**
+ * Boltzmann methods are considered (and built) only when the best table's plan is estimated
+ * above this many nanoseconds (2 ms for NOMINAL_SAMPLES samples: below it, building them could
+ * save little).
+ */
+const BOLTZMANN_CONSIDERED_ABOVE_NS = 2e6;
 
 export interface PlanOptions {
   /**
@@ -98,20 +103,32 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
   } else {
     const fitting = candidates.filter((c) => c.fits);
     if (fitting.length === 0) {
-      const least = candidates.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+      const least = candidates.reduce((a, b) => (steps(b) < steps(a) ? b : a));
       // The hint of the method closest to fitting that knows what would fit.
       const hinted = candidates.filter((c) => c.hint !== undefined);
       const hint = hinted.length === 0 ? undefined : hinted.reduce((a, b) => (b.sampleWork < a.sampleWork ? b : a)).hint;
       throw refusal(family, { setupWork: least.setupWork, sampleWork: least.sampleWork, hint }, TABLE_CELL_LIMIT, SAMPLE_WORK_LIMIT);
     }
-    chosen = fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+    chosen = fitting.reduce((a, b) => (planCostNs(b) < planCostNs(a) ? b : a));
   }
   const sampler = chosen.build();
   if ((sampler as Partial<TableSampler>).total === 0) throw new EmptyFamilyError(emptyFamilyMessage(spec.family));
   return sampler;
 }
 
-function cost(c: PlanCandidate): number {
+/**
+ * A plan's estimated time in nanoseconds: setup once plus NOMINAL_SAMPLES samples, each method's
+ * steps and setup units priced by its measured rows (work-costs.ts; wrapped ids such as
+ * "bounded-boltzmann/1+conjugate" or "...+length-filter" by the method they wrap). Steps differ
+ * many-fold between methods (a table cell ~8 ns, a Boltzmann step ~100 ns), so counts alone do
+ * not compare. The rows are constants: the choice stays a function of the family.
+ */
+export function planCostNs(c: Pick<PlanCandidate, 'method' | 'setupWork' | 'sampleWork'>): number {
+  return c.setupWork * nsPerSetupUnit(c.method) + NOMINAL_SAMPLES * c.sampleWork * nsPerStep(c.method);
+}
+
+/** The work a refused family's nearest method would need, in steps (the limits' unit). */
+function steps(c: PlanCandidate): number {
   return c.setupWork + NOMINAL_SAMPLES * c.sampleWork;
 }
 
@@ -173,18 +190,21 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     );
   }
 
-  const bestTable = Math.min(...out.filter((c) => c.fits).map(cost), Infinity);
-  if (!includeAll && bestTable <= BOLTZMANN_CONSIDERED_ABOVE) return out;
-  const boltzmann = (make: () => PartitionSampler & { setupWork?: number }) => {
-    const sampler = make();
-    const setup = sampler.setupWork ?? 0;
+  const bestTable = Math.min(...out.filter((c) => c.fits).map(planCostNs), Infinity);
+  if (!includeAll && bestTable <= BOLTZMANN_CONSIDERED_ABOVE_NS) return out;
+  // A sampler built while planning, with its own estimates; `setupFits`: whether the memory or
+  // setup it holds is within its limit.
+  const prepared = (sampler: PartitionSampler & { setupWork?: number }, setupFits: boolean) =>
     out.push({
       method: sampler.method,
-      setupWork: setup,
+      setupWork: sampler.setupWork ?? 0,
       sampleWork: sampler.expectedWork,
-      fits: setup <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+      fits: setupFits && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
       build: () => sampler,
     });
+  const boltzmann = (make: () => PartitionSampler & { setupWork?: number }) => {
+    const sampler = make();
+    prepared(sampler, (sampler.setupWork ?? 0) <= TABLE_CELL_LIMIT);
   };
   if (!hasLength && feasible === true) {
     // Plain distinct parts (no bound on the sizes): the self-similar method (distinct-self-similar.ts).
@@ -201,15 +221,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
-    if (sampler !== null && sampler.servable) {
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
-    }
+    if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
     if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {
@@ -217,25 +229,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       // (min-part-self-similar.ts). Its setup is time (count tables of ~1e4 doubles each), so it
       // fits on the sample-work limit and the memory it holds.
       const sampler = new MinPartSelfSimilarSampler(n, lo);
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
+      prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     }
     if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
       // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
       // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
       const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.fitsLimits() && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
+      prepared(sampler, sampler.fitsLimits());
     }
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
@@ -253,7 +253,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
 function cheapestWithoutLength(family: PartitionFamily): PlanCandidate | null {
   const { length: _length, maxLength: _maxLength, ...rest } = family;
   const fitting = planCandidates(rest).filter((c) => c.fits);
-  return fitting.length === 0 ? null : fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+  return fitting.length === 0 ? null : fitting.reduce((a, b) => (planCostNs(b) < planCostNs(a) ? b : a));
 }
 
 /**
