@@ -99,9 +99,11 @@ export function nsPerStep(method: string): number {
  *   <= 50 with 60 parts; n = 1000, 13 allowed sizes, at most 300 parts);
  * - allowed-subset 32-73 per cell (1000 sizes, k = 400 and 100; the tilt dominates small tables);
  * - distinct-boltzmann 12-22 per block-table cell, tilt included (2e6 cells, n = 1e5-1e7);
- * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files'
- *   measured figure); distinct-bounded-self-similar reports 0.05 units per addition of ~3 ns
- *   (its file), so 60 per unit; box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
+ * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files' figure;
+ *   bounded-self-similar's constructor measured 0.2-4 once compiled, n = 1e5-1e8, b = 791-1e4);
+ * - distinct-bounded-self-similar 6-67 per unit of its setupWork (0.05 per addition; constructor,
+ *   n = 1e5-1e9, a = 7, 9, 50, with and without maxPart; median ~30);
+ * - box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
  */
 export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
   'table-sizes/1': 8,
@@ -111,7 +113,7 @@ export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
   'distinct-boltzmann/1': 17,
   'minpart-self-similar/1': 1.4,
   'bounded-self-similar/1': 1.4,
-  'distinct-bounded-self-similar/1': 60,
+  'distinct-bounded-self-similar/1': 30,
   'box-mixture/1': 60,
 };
 

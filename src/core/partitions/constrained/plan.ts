@@ -65,10 +65,10 @@ export const SAMPLE_WORK_LIMIT = 1e7;
 export const NOMINAL_SAMPLES = 100;
 /**
  * Boltzmann methods are considered (and built) only when the best table's plan is estimated
- * above this many nanoseconds (2 ms for NOMINAL_SAMPLES samples: below it, building them could
- * save little).
+ * above this many nanoseconds (5 ms for NOMINAL_SAMPLES samples: below it, what they could save
+ * is about what building them costs, ~1-2 ms of tilts and candidates measured at n = 1e3-3e3).
  */
-const BOLTZMANN_CONSIDERED_ABOVE_NS = 2e6;
+const BOLTZMANN_CONSIDERED_ABOVE_NS = 5e6;
 
 export interface PlanOptions {
   /**
