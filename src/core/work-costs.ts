@@ -92,13 +92,14 @@ export function nsPerStep(method: string): number {
 /**
  * Nanoseconds per unit of a method's setupWork (what its constructor reports: table cells, count
  * additions, tilt steps), for planners that weigh setup against samples. Methods missing here
- * count setup in their own steps (nsPerStep). Measured with process CPU time, best of 5 builds,
- * Node 20 on the 2-core machine (build time / setupWork):
- * - table-sizes 8.1-8.5 (n = 2000, distinct or minPart = 3, 4e6 cells), table-lengths 5.1-6.8
- *   (n = 2e4 distinct, n = 3e4 with length = 100), table-sizes-lengths 9.0-10.8 (n = 600 parts
- *   <= 50 with 60 parts; n = 1000, 13 allowed sizes, at most 300 parts);
+ * count setup in their own steps (nsPerStep). Measured with process CPU time, Node 20 on the
+ * 2-core machine (build time / setupWork; tables freshly allocated, as a request builds them):
+ * - table-sizes 12-23 (first builds; 8-9 rebuilt: n = 2000 distinct, 4e6 cells; n = 1e4 distinct
+ *   parts <= 200), table-lengths 8-17 (n = 2e4 distinct parts >= 7, n = 8000 at most 100 parts
+ *   >= 5), table-sizes-lengths 9-11 rebuilt (n = 600 parts <= 50 with 60 parts; n = 1000, 13
+ *   allowed sizes, at most 300 parts), taken as 15;
  * - allowed-subset 32-73 per cell (1000 sizes, k = 400 and 100; the tilt dominates small tables);
- * - distinct-boltzmann 12-22 per block-table cell, tilt included (2e6 cells, n = 1e5-1e7);
+ * - distinct-boltzmann 17-27 per block-table cell, tilt included (1e6-2e6 cells, n = 1e4-1e6);
  * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files' figure;
  *   bounded-self-similar's constructor measured 0.2-4 once compiled, n = 1e5-1e8, b = 791-1e4);
  * - distinct-bounded-self-similar 6-67 per unit of its setupWork (0.05 per addition; constructor,
@@ -106,11 +107,11 @@ export function nsPerStep(method: string): number {
  * - box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
  */
 export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
-  'table-sizes/1': 8,
-  'table-lengths/1': 6,
-  'table-sizes-lengths/1': 10,
+  'table-sizes/1': 15,
+  'table-lengths/1': 12,
+  'table-sizes-lengths/1': 15,
   'allowed-subset/1': 40,
-  'distinct-boltzmann/1': 17,
+  'distinct-boltzmann/1': 25,
   'minpart-self-similar/1': 1.4,
   'bounded-self-similar/1': 1.4,
   'distinct-bounded-self-similar/1': 30,

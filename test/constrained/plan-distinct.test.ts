@@ -21,9 +21,9 @@ describe('planning plain distinct parts', () => {
     }
   });
 
-  // Below n ~ 1e4 the table is estimated faster for a request (its cells ~6 ns each against
-  // distinct-self-similar's per-process tables, ~10 ms; measured 31 ms cold at n = 3000).
-  it('chooses distinct-self-similar from n ~ 1e4 to 1e9, within the work limits', () => {
+  // Below n ~ 7000 the table is estimated faster for a request (its cells ~12 ns each against
+  // distinct-self-similar's per-process tables, ~10 ms estimated; 31 ms measured cold at n = 3000).
+  it('chooses distinct-self-similar from n ~ 7000 to 1e9, within the work limits', () => {
     for (const n of [2000, 3000, 5000]) expect(constrainedPartitionSampler(family(n)).method, `n = ${n}`).toBe('table-lengths/1');
     for (const n of [1e4, 1e5, 1e8, 1e9]) {
       const candidates = planCandidates(family(n));

@@ -91,14 +91,15 @@ describe('distinct-bounded-self-similar is exactly uniform (chi-square over the 
 });
 
 describe('distinct-bounded-self-similar: the exact law of the number of parts', () => {
-  // n = 10,000 with parts >= 4 (the planner picks table-lengths there, estimated faster in time;
-  // this tests the method itself, constructed directly); the top level's counts Q_2(m) come from the saddle-point integral for m > 2101 (its peak is near
+  // n = 10,000 with parts >= 4: the planner's choice there (table-lengths would fit too); the
+  // top level's counts Q_2(m) come from the saddle-point integral for m > 2101 (its peak is near
   // n/4). Pearson chi-square on the pooled law; false-alarm probability 1e-4.
   it('n = 10,000, parts >= 4', () => {
     const n = 10_000;
     const a = 4;
     const family: PartitionFamily = { kind: 'partition', n, distinct: true, minPart: a };
-    expect(constrainedPartitionSampler(family).method).toBe('table-lengths/1');
+    const planned = constrainedPartitionSampler(family);
+    expect(planned.method).toBe('distinct-bounded-self-similar/1');
     const law = exactPartCountLaw(n, a);
     const samples = 6000;
     const observed = new Array<number>(law.length).fill(0);
