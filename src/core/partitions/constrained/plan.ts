@@ -25,16 +25,17 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
 
 /**
  * Planner for constrained partition families: lists the exact methods that apply, estimates
- * each one's cost as setup + NOMINAL_SAMPLES x expected work per sample, and builds the cheapest
- * that fits the budgets. The choice depends on the family only, so sample i stays a function of
- * (seed, i, family, ALGORITHM_VERSION).
+ * each one's time as setup + NOMINAL_SAMPLES x expected work per sample, both priced in
+ * nanoseconds per unit of that method (planCostNs, rows in work-costs.ts), and builds the
+ * fastest that fits the budgets. The choice depends on the family only (the rows are
+ * constants), so sample i stays a function of (seed, i, family, ALGORITHM_VERSION).
  *
  * Limits (for the README):
  * - TABLE_CELL_LIMIT = 5e6 cells (8 bytes each, 40 MB) for any counting table. Hence, roughly:
  *   table-sizes (no length constraint) needs (#sizes + 1)(n + 1) <= 5e6, e.g. distinct or
  *   minPart-only families up to n ~ 2200 this way; table-lengths needs (K + 1)(n + 1), e.g.
  *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4 (plain distinct parts switch to
- *   distinct-self-similar from n ~ 2500, where it is cheaper), exactly k parts with k = 100 up to n ~ 5e4;
+ *   distinct-self-similar from n ~ 7000, where it is estimated faster), exactly k parts with k = 100 up to n ~ 5e4;
  *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
  * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
@@ -49,8 +50,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
- *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the cheaper
- *   estimate chosen (bounded-self-similar from n ~ 1e8 on for b ~ √n); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
+ *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
+ *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
@@ -218,7 +220,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // (`servable`: not for an upper bound near the middle of its range at large n, e.g.
     // maxPart ~ 2√n). Its setup is time (count tables of a few thousand doubles each), so it fits
     // on the sample-work limit and the memory it holds.
-    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
+    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated faster.
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
     if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
