@@ -94,10 +94,11 @@ export function nsPerStep(method: string): number {
  * additions, tilt steps), for planners that weigh setup against samples. Methods missing here
  * count setup in their own steps (nsPerStep). Measured with process CPU time, Node 20 on the
  * 2-core machine (build time / setupWork; tables freshly allocated, as a request builds them):
- * - table-sizes 12-23 (first builds; 8-9 rebuilt: n = 2000 distinct, 4e6 cells; n = 1e4 distinct
- *   parts <= 200), table-lengths 8-17 (n = 2e4 distinct parts >= 7, n = 8000 at most 100 parts
- *   >= 5), table-sizes-lengths 9-11 rebuilt (n = 600 parts <= 50 with 60 parts; n = 1000, 13
- *   allowed sizes, at most 300 parts), taken as 15;
+ * - table-sizes 12-28, taken as 20 (first builds; 8-9 rebuilt: n = 2000 distinct, 4e6 cells;
+ *   n = 1e4 distinct parts <= 200; 3e6 cells for n = 3000 from 1000 distinct sizes); table-lengths
+ *   8-17, taken as 12 (n = 2e4 distinct parts >= 7, n = 8000 at most 100 parts >= 5);
+ *   table-sizes-lengths 9-11 rebuilt, taken as 15 (n = 600 parts <= 50 with 60 parts; n = 1000,
+ *   13 allowed sizes, at most 300 parts);
  * - allowed-subset 32-73 per cell (1000 sizes, k = 400 and 100; the tilt dominates small tables);
  * - distinct-boltzmann 17-27 per block-table cell, tilt included (1e6-2e6 cells, n = 1e4-1e6);
  * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files' figure;
@@ -107,7 +108,7 @@ export function nsPerStep(method: string): number {
  * - box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
  */
 export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
-  'table-sizes/1': 15,
+  'table-sizes/1': 20,
   'table-lengths/1': 12,
   'table-sizes-lengths/1': 15,
   'allowed-subset/1': 40,
