@@ -89,6 +89,41 @@ export function nsPerStep(method: string): number {
   return NS_PER_STEP[baseMethod(method)] ?? UNKNOWN_NS_PER_STEP;
 }
 
+/**
+ * Nanoseconds per unit of a method's setupWork (what its constructor reports: table cells, count
+ * additions, tilt steps), for planners that weigh setup against samples. Methods missing here
+ * count setup in their own steps (nsPerStep). Measured with process CPU time, Node 20 on the
+ * 2-core machine (build time / setupWork; tables freshly allocated, as a request builds them):
+ * - table-sizes 12-28, taken as 20 (first builds; 8-9 rebuilt: n = 2000 distinct, 4e6 cells;
+ *   n = 1e4 distinct parts <= 200; 3e6 cells for n = 3000 from 1000 distinct sizes); table-lengths
+ *   8-17, taken as 12 (n = 2e4 distinct parts >= 7, n = 8000 at most 100 parts >= 5);
+ *   table-sizes-lengths 9-11 rebuilt, taken as 15 (n = 600 parts <= 50 with 60 parts; n = 1000,
+ *   13 allowed sizes, at most 300 parts);
+ * - allowed-subset 32-73 per cell (1000 sizes, k = 400 and 100; the tilt dominates small tables);
+ * - distinct-boltzmann 17-27 per block-table cell, tilt included (1e6-2e6 cells, n = 1e4-1e6);
+ * - minpart-self-similar and bounded-self-similar ~1.4 per count addition (their files' figure;
+ *   bounded-self-similar's constructor measured 0.2-4 once compiled, n = 1e5-1e8, b = 791-1e4);
+ * - distinct-bounded-self-similar 6-67 per unit of its setupWork (0.05 per addition; constructor,
+ *   n = 1e5-1e9, a = 7, 9, 50, with and without maxPart; median ~30);
+ * - box-mixture ~60 per setup step (7.9e5 steps in 40-60 ms, plan-length.ts).
+ */
+export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
+  'table-sizes/1': 20,
+  'table-lengths/1': 12,
+  'table-sizes-lengths/1': 15,
+  'allowed-subset/1': 40,
+  'distinct-boltzmann/1': 25,
+  'minpart-self-similar/1': 1.4,
+  'bounded-self-similar/1': 1.4,
+  'distinct-bounded-self-similar/1': 30,
+  'box-mixture/1': 60,
+};
+
+/** Nanoseconds per unit of setupWork of a method (wrapped ids by their base; else its step). */
+export function nsPerSetupUnit(method: string): number {
+  return NS_PER_SETUP_UNIT[baseMethod(method)] ?? nsPerStep(method);
+}
+
 /** What the time estimate needs to know of a sampler. */
 export interface CostedSampler {
   readonly method: string;

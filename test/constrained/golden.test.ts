@@ -10,7 +10,7 @@ import { sampleSource } from '../../src/core/seeding.js';
  * reproducibility, so a change here means the algorithm version must be bumped.
  */
 const cases: Array<{ family: PartitionFamily; method: string; parts: number[][] }> = [
-  { family: { kind: 'partition', n: 30, distinct: true }, method: 'table-lengths/1', parts: [[11, 9, 8, 2], [9, 7, 6, 5, 3], [13, 9, 8]] },
+  { family: { kind: 'partition', n: 30, distinct: true }, method: 'table-sizes/1', parts: [[14, 9, 5, 2], [10, 9, 6, 4, 1], [13, 10, 5, 2]] },
   {
     family: { kind: 'partition', n: 40, allowed: [1, 2, 5, 10], maxLength: 8 },
     method: 'table-sizes-lengths/1',
@@ -27,8 +27,8 @@ const cases: Array<{ family: PartitionFamily; method: string; parts: number[][] 
 const large: Array<{ family: PartitionFamily; method: string; heads: Array<[number, number[]]> }> = [
   {
     family: { kind: 'partition', n: 2000, distinct: true, maxPart: 300 },
-    method: 'distinct-boltzmann/1',
-    heads: [[31, [254, 190, 160, 139, 127]], [32, [171, 158, 145, 136, 115]], [36, [206, 139, 125, 121, 110]]],
+    method: 'table-sizes/1',
+    heads: [[37, [139, 128, 127, 104, 92]], [34, [282, 257, 201, 118, 117]], [33, [203, 157, 153, 113, 110]]],
   },
   // Plain distinct parts at large n (distinct-self-similar, new in ALGORITHM_VERSION 4).
   {
@@ -43,8 +43,8 @@ const large: Array<{ family: PartitionFamily; method: string; heads: Array<[numb
   },
   {
     family: { kind: 'partition', n: 5000, maxPart: 12 },
-    method: 'table-sizes/1',
-    heads: [[891, [12, 12, 12, 12, 12]], [1507, [12, 12, 12, 12, 12]], [1862, [12, 12, 12, 12, 12]]],
+    method: 'bounded-boltzmann/1',
+    heads: [[1285, [12, 12, 12, 12, 11]], [921, [12, 12, 12, 12, 12]], [1601, [12, 11, 11, 11, 11]]],
   },
   // The length branch's methods (since ALGORITHM_VERSION 3).
   {

@@ -1,7 +1,17 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { NS_PER_NUMBER, NS_PER_STEP, SEEDING_NS, UNKNOWN_NS_PER_STEP, baseMethod, nsPerStep, sampleTimeNs } from '../../src/core/work-costs.js';
+import {
+  NS_PER_NUMBER,
+  NS_PER_SETUP_UNIT,
+  NS_PER_STEP,
+  SEEDING_NS,
+  UNKNOWN_NS_PER_STEP,
+  baseMethod,
+  nsPerSetupUnit,
+  nsPerStep,
+  sampleTimeNs,
+} from '../../src/core/work-costs.js';
 import { partitionFamily } from '../../src/library/partitions.js';
 import { compositionFamily } from '../../src/library/compositions.js';
 import { setPartitionFamily } from '../../src/library/set-partitions.js';
@@ -52,6 +62,13 @@ describe('the work-cost table', () => {
     }
     expect(baseMethod('bounded-boltzmann/1+conjugate')).toBe('bounded-boltzmann/1');
     expect(baseMethod('box-subset/1+conjugate+length-filter')).toBe('box-subset/1');
+  });
+
+  it('prices setup units per method: rows only for existing methods, wrapped ids by their base, else the step', () => {
+    for (const id of Object.keys(NS_PER_SETUP_UNIT)) expect(NS_PER_STEP[id], id).toBeDefined();
+    expect(nsPerSetupUnit('bounded-self-similar/1+conjugate')).toBe(NS_PER_SETUP_UNIT['bounded-self-similar/1']);
+    expect(nsPerSetupUnit('table-sizes/1+length-filter')).toBe(NS_PER_SETUP_UNIT['table-sizes/1']);
+    expect(nsPerSetupUnit('box-subset/1')).toBe(NS_PER_STEP['box-subset/1']);
   });
 
   it('estimates a sample as seeding + steps × ns/step + numbers × ns/number', () => {

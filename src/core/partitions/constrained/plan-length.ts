@@ -27,7 +27,7 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
  *   (allowed lists, distinct parts, exactly k): the subset design over the list;
  * - "bounded-boltzmann/1+conjugate" and "bounded-self-similar/1+conjugate": no upper bound on
- *   the parts, by conjugation (parts <= k; the self-similar one is cheaper for k near √n at large n);
+ *   the parts, by conjugation (parts <= k; the self-similar one is estimated faster for k near √n/4 from n ~ 1e7);
  * - "<method>+length-filter": the family without its length constraint, keeping the samples that
  *   satisfy it, when that constraint rarely binds (restriction of a uniform law is uniform).
  *

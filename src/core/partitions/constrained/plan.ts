@@ -21,19 +21,21 @@ import {
 } from './spec.js';
 import { lengthTableSampler, sizeLengthTableSampler, sizeTableSampler, type TableSampler } from './table-sampler.js';
 import { solveTilt, tiltMoments } from './tilt.js';
+import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
 
 /**
  * Planner for constrained partition families: lists the exact methods that apply, estimates
- * each one's cost as setup + NOMINAL_SAMPLES x expected work per sample, and builds the cheapest
- * that fits the budgets. The choice depends on the family only, so sample i stays a function of
- * (seed, i, family, ALGORITHM_VERSION).
+ * each one's time as setup + NOMINAL_SAMPLES x expected work per sample, both priced in
+ * nanoseconds per unit of that method (planCostNs, rows in work-costs.ts), and builds the
+ * fastest that fits the budgets. The choice depends on the family only (the rows are
+ * constants), so sample i stays a function of (seed, i, family, ALGORITHM_VERSION).
  *
  * Limits (for the README):
  * - TABLE_CELL_LIMIT = 5e6 cells (8 bytes each, 40 MB) for any counting table. Hence, roughly:
  *   table-sizes (no length constraint) needs (#sizes + 1)(n + 1) <= 5e6, e.g. distinct or
  *   minPart-only families up to n ~ 2200 this way; table-lengths needs (K + 1)(n + 1), e.g.
  *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4 (plain distinct parts switch to
- *   distinct-self-similar from n ~ 2500, where it is cheaper), exactly k parts with k = 100 up to n ~ 5e4;
+ *   distinct-self-similar from n ~ 7000, where it is estimated faster), exactly k parts with k = 100 up to n ~ 5e4;
  *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
  * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
@@ -48,8 +50,9 @@ import { solveTilt, tiltMoments } from './tilt.js';
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
- *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the cheaper
- *   estimate chosen (bounded-self-similar from n ~ 1e8 on for b ~ √n); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
+ *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
+ *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
@@ -62,8 +65,12 @@ export const TABLE_CELL_LIMIT = 5_000_000;
 export const SAMPLE_WORK_LIMIT = 1e7;
 /** Samples a plan is costed for (setup is paid once per request). */
 export const NOMINAL_SAMPLES = 100;
-/** Boltzmann methods are considered (and built) only when the best table costs more than this. */
-const BOLTZMANN_CONSIDERED_ABOVE = 2e5;
+/**
+ * Boltzmann methods are considered (and built) only when the best table's plan is estimated
+ * above this many nanoseconds (5 ms for NOMINAL_SAMPLES samples: below it, what they could save
+ * is about what building them costs, ~1-2 ms of tilts and candidates measured at n = 1e3-3e3).
+ */
+const BOLTZMANN_CONSIDERED_ABOVE_NS = 5e6;
 
 export interface PlanOptions {
   /**
@@ -98,20 +105,32 @@ export function constrainedPartitionSampler(family: PartitionFamily, options: Pl
   } else {
     const fitting = candidates.filter((c) => c.fits);
     if (fitting.length === 0) {
-      const least = candidates.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+      const least = candidates.reduce((a, b) => (steps(b) < steps(a) ? b : a));
       // The hint of the method closest to fitting that knows what would fit.
       const hinted = candidates.filter((c) => c.hint !== undefined);
       const hint = hinted.length === 0 ? undefined : hinted.reduce((a, b) => (b.sampleWork < a.sampleWork ? b : a)).hint;
       throw refusal(family, { setupWork: least.setupWork, sampleWork: least.sampleWork, hint }, TABLE_CELL_LIMIT, SAMPLE_WORK_LIMIT);
     }
-    chosen = fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+    chosen = fitting.reduce((a, b) => (planCostNs(b) < planCostNs(a) ? b : a));
   }
   const sampler = chosen.build();
   if ((sampler as Partial<TableSampler>).total === 0) throw new EmptyFamilyError(emptyFamilyMessage(spec.family));
   return sampler;
 }
 
-function cost(c: PlanCandidate): number {
+/**
+ * A plan's estimated time in nanoseconds: setup once plus NOMINAL_SAMPLES samples, each method's
+ * steps and setup units priced by its measured rows (work-costs.ts; wrapped ids such as
+ * "bounded-boltzmann/1+conjugate" or "...+length-filter" by the method they wrap). Steps differ
+ * many-fold between methods (a table cell ~8 ns, a Boltzmann step ~100 ns), so counts alone do
+ * not compare. The rows are constants: the choice stays a function of the family.
+ */
+export function planCostNs(c: Pick<PlanCandidate, 'method' | 'setupWork' | 'sampleWork'>): number {
+  return c.setupWork * nsPerSetupUnit(c.method) + NOMINAL_SAMPLES * c.sampleWork * nsPerStep(c.method);
+}
+
+/** The work a refused family's nearest method would need, in steps (the limits' unit). */
+function steps(c: PlanCandidate): number {
   return c.setupWork + NOMINAL_SAMPLES * c.sampleWork;
 }
 
@@ -173,18 +192,21 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     );
   }
 
-  const bestTable = Math.min(...out.filter((c) => c.fits).map(cost), Infinity);
-  if (!includeAll && bestTable <= BOLTZMANN_CONSIDERED_ABOVE) return out;
-  const boltzmann = (make: () => PartitionSampler & { setupWork?: number }) => {
-    const sampler = make();
-    const setup = sampler.setupWork ?? 0;
+  const bestTable = Math.min(...out.filter((c) => c.fits).map(planCostNs), Infinity);
+  if (!includeAll && bestTable <= BOLTZMANN_CONSIDERED_ABOVE_NS) return out;
+  // A sampler built while planning, with its own estimates; `setupFits`: whether the memory or
+  // setup it holds is within its limit.
+  const prepared = (sampler: PartitionSampler & { setupWork?: number }, setupFits: boolean) =>
     out.push({
       method: sampler.method,
-      setupWork: setup,
+      setupWork: sampler.setupWork ?? 0,
       sampleWork: sampler.expectedWork,
-      fits: setup <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
+      fits: setupFits && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
       build: () => sampler,
     });
+  const boltzmann = (make: () => PartitionSampler & { setupWork?: number }) => {
+    const sampler = make();
+    prepared(sampler, (sampler.setupWork ?? 0) <= TABLE_CELL_LIMIT);
   };
   if (!hasLength && feasible === true) {
     // Plain distinct parts (no bound on the sizes): the self-similar method (distinct-self-similar.ts).
@@ -198,18 +220,10 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // (`servable`: not for an upper bound near the middle of its range at large n, e.g.
     // maxPart ~ 2√n). Its setup is time (count tables of a few thousand doubles each), so it fits
     // on the sample-work limit and the memory it holds.
-    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated cheaper.
+    // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated faster.
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
-    if (sampler !== null && sampler.servable) {
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
-    }
+    if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
     if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {
@@ -217,25 +231,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       // (min-part-self-similar.ts). Its setup is time (count tables of ~1e4 doubles each), so it
       // fits on the sample-work limit and the memory it holds.
       const sampler = new MinPartSelfSimilarSampler(n, lo);
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.setupCells <= TABLE_CELL_LIMIT && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
+      prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     }
     if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
       // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
       // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
       const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
-      out.push({
-        method: sampler.method,
-        setupWork: sampler.setupWork,
-        sampleWork: sampler.expectedWork,
-        fits: sampler.fitsLimits() && sampler.expectedWork <= SAMPLE_WORK_LIMIT,
-        build: () => sampler,
-      });
+      prepared(sampler, sampler.fitsLimits());
     }
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
@@ -253,7 +255,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
 function cheapestWithoutLength(family: PartitionFamily): PlanCandidate | null {
   const { length: _length, maxLength: _maxLength, ...rest } = family;
   const fitting = planCandidates(rest).filter((c) => c.fits);
-  return fitting.length === 0 ? null : fitting.reduce((a, b) => (cost(b) < cost(a) ? b : a));
+  return fitting.length === 0 ? null : fitting.reduce((a, b) => (planCostNs(b) < planCostNs(a) ? b : a));
 }
 
 /**
