@@ -172,9 +172,6 @@ function shapeOf(a: number, b: number): Shape {
   return { a, b, direct: b < DIRECT_BELOW, headDirect: a - 1 < DIRECT_BELOW };
 }
 
-/** Work counters (bench and cost model): saddle integrals, their nodes, Newton iterations. */
-export const boundedCountWork = { saddles: 0, nodes: 0, newton: 0 };
-
 /** The default table end is capped here (a sampler passes the largest size it needs). */
 const DEFAULT_CAP = 1_000_000;
 const PI2_6 = (Math.PI * Math.PI) / 6;
@@ -374,11 +371,7 @@ function wDerivativesReal(u: number, n: number): number[] {
 export function boundedSaddle(shape: Shape, m: number, guess?: number): number {
   // Start: the unrestricted value, or for few sizes the mean of b − a + 1 geometrics, (#sizes)/t = m.
   const start = guess ?? Math.max(Math.PI / Math.sqrt(6 * m), (shape.b - shape.a + 1) / m);
-  return saddleNewton((t) => realDerivatives(shape, m, t), start, 100, 1e-14, countNewtonStep);
-}
-
-function countNewtonStep(): void {
-  boundedCountWork.newton++;
+  return saddleNewton((t) => realDerivatives(shape, m, t), start, 100, 1e-14);
 }
 
 /** boundedSaddle for [a, b] (a <= b). */
@@ -390,7 +383,6 @@ export function boundedPartSaddle(a: number, b: number, m: number): number {
 // Complex parts: L(t + iy) − L(t) at the trapezoid nodes.
 
 function computeSaddle(shape: Shape, m: number): SaddleIntegral {
-  boundedCountWork.saddles++;
   const t = boundedSaddle(shape, m);
   const [, d2] = realDerivatives(shape, m, t);
   const sigma = Math.sqrt(d2);
@@ -404,7 +396,6 @@ function computeSaddle(shape: Shape, m: number): SaddleIntegral {
   // integrand polynomial tails, (1 + (y/t)²)^{−(b−a+1)/2}); a rise means another arc: stop there.
   for (let j = 1; j * h < Math.PI; j++) {
     const y = j * h;
-    boundedCountWork.nodes++;
     const [re, li] = shift(shape, t, y);
     const size = Math.exp(re);
     if (j > last && (size < TAIL_CUT || size > previous)) break;

@@ -110,8 +110,8 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
 const PROPOSALS = 1.5;
 /**
  * A saddle-point count: ~25-40 trapezoid nodes of ~3 us (complex logarithms, or the
- * Euler–Maclaurin tail with its dilogarithm), ~50 visited sizes each (measured with
- * boundedCountWork and the bench).
+ * Euler–Maclaurin tail with its dilogarithm), ~50 visited sizes each (measured with work
+ * counters while the method was built, and `npm run bench -- costs`).
  */
 const SADDLE_STEPS = 1500;
 /** Newton steps of the maximiser's proxy bisection per level (~30 proxies), ~25 sizes' time each. */
