@@ -12,7 +12,7 @@ import { familyKey } from '../../src/core/family.js';
 import { planPartitionSampler } from '../../src/core/partitions/plan.js';
 import { SampleStreams, sampleSource } from '../../src/core/seeding.js';
 import { createApp } from '../../src/http/app.js';
-import { strongEtag } from '../../src/http/caching.js';
+import { SeedEtags, strongEtag } from '../../src/http/caching.js';
 import { parseQuery, QueryReader } from '../../src/http/query.js';
 import { partitionFamilyOf } from '../../src/library/partitions.js';
 import { partitionsQuery } from '../../src/schemas/partitions.js';
@@ -58,6 +58,9 @@ async function interleaved(ways: readonly ((i: number) => unknown)[]): Promise<n
   return rounds.map(median);
 }
 
+/** node:http's test of a header value (lib/_http_common.js, checkInvalidHeaderChar). */
+const INVALID_HEADER_CHAR = /[^\t\x20-\x7e\x80-\xff]/;
+
 /**
  * What the adapter's listener needs of node:http's IncomingMessage and ServerResponse; the
  * request's headers are those undici's Pool sends (`npm run load`'s client).
@@ -75,7 +78,12 @@ function fakeExchange(path: string, done: (bytes: number) => void) {
     writableFinished: false,
     hasHeader: () => false,
     writeHead(_status: number, headers: Record<string, unknown> = {}) {
-      for (const key in headers) bytes += key.length + String(headers[key]).length + 4;
+      for (const key in headers) {
+        const value = String(headers[key]);
+        // node:http checks every header value so (checkInvalidHeaderChar); its cost depends on the string's shape.
+        if (INVALID_HEADER_CHAR.test(value)) throw new TypeError(`invalid character in header ${key}`);
+        bytes += key.length + value.length + 4;
+      }
     },
     write(chunk: string | Uint8Array) {
       bytes += chunk.length;
@@ -112,6 +120,7 @@ export async function benchHttp(): Promise<void> {
   const key = familyKey(family);
   const reader = new QueryReader(partitionsQuery);
   const streams = new SampleStreams(key);
+  const etags = new SeedEtags('/v1/partitions', { n: 1000, count: 1, seed: 'a64-0', start: 0, format: 'json', as: 'parts' });
   const referenceOnce = (fetch: (request: Request) => Response | Promise<Response>) => {
     const referenceListener = getRequestListener(fetch);
     return (i: number) =>
@@ -134,6 +143,7 @@ export async function benchHttp(): Promise<void> {
     ['QueryReader.read (zod: the seed; the rest remembered)', await microseconds((i) => reader.read(url(1000, i)).query)],
     ['familyKey(partitionFamilyOf(query))', await microseconds(() => familyKey(partitionFamilyOf({ n: 1000 } as never)))],
     ['strongEtag(parsed query)', await microseconds((i) => strongEtag('/v1/partitions', { n: 1000, count: 1, seed: `a64-${i}`, start: 0, format: 'json', as: 'parts' }))],
+    ["SeedEtags.etag + node:http's header-value check", await microseconds((i) => INVALID_HEADER_CHAR.test(etags.etag(`a64-${i}`)))],
     ['sampleSource (stream seeding, whole key)', await microseconds((i) => sampleSource(`a64-${i}`, 0, key))],
     ['SampleStreams.source (family prefix hashed once)', await microseconds((i) => streams.source(`a64-${i}`, 0))],
     ['sampler.sample, n = 1000', await microseconds((i) => sampler.sample(streams.source(`a64-${i}`, 0)))],
