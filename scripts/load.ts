@@ -3,7 +3,7 @@ import { parseArgs } from 'node:util';
 import { request } from 'undici';
 import { mergeResults, runLoad, type LoadPhase, type LoadResult } from './load/generator.js';
 import { bareRequest, mixedRequest, sampleRequest } from './load/requests.js';
-import { rssMb, startServer, type RunningServer } from './load/servers.js';
+import { cpuUs, rssMb, startServer, type RunningServer } from './load/servers.js';
 
 /**
  * `npm run load`: load tests of the Node server on loopback, each phase bounded in time and in
@@ -57,6 +57,8 @@ interface Row {
   readonly result: LoadResult;
   readonly rssBefore: number;
   readonly rssAfter: number;
+  /** The server process's CPU time per answered request, in µs (NaN where /proc is missing). */
+  readonly cpuUsPerRequest: number;
   readonly note?: string;
 }
 
@@ -67,6 +69,8 @@ const notes: string[] = [];
 interface InterleavedRow extends Row {
   /** req/s of this side over req/s of the first side (the baseline) in the same round. */
   readonly roundRatios: readonly number[];
+  /** The server's CPU µs per request in each round. */
+  readonly roundCpuUs: readonly number[];
 }
 
 /**
@@ -78,17 +82,22 @@ interface InterleavedRow extends Row {
  */
 async function interleaved(rounds: number, sides: readonly { scenario: string; server: RunningServer; request: LoadPhase['request'] }[], connections: number): Promise<InterleavedRow[]> {
   const slices: LoadResult[][] = sides.map(() => []);
+  const cpu: number[][] = sides.map(() => []);
   const rss = sides.map((side) => ({ before: rssMb(side.server.pid), after: NaN }));
   for (const side of sides) await runLoad({ origin: side.server.origin, connections, durationMs: Math.min(1000, phaseMs / 4), maxRequests, request: side.request });
   for (let round = 0; round < rounds; round++) {
     for (const [k, side] of sides.entries()) {
-      slices[k].push(await runLoad({ origin: side.server.origin, connections, durationMs: phaseMs / rounds, maxRequests, request: side.request }));
+      const cpu0 = cpuUs(side.server.pid);
+      const slice = await runLoad({ origin: side.server.origin, connections, durationMs: phaseMs / rounds, maxRequests, request: side.request });
+      slices[k].push(slice);
+      cpu[k].push((cpuUs(side.server.pid) - cpu0) / slice.requests);
     }
   }
   return sides.map((side, k) => {
     const result = mergeResults(slices[k]);
     const roundRatios = slices[k].map((slice, round) => slice.requestsPerSecond / slices[0][round].requestsPerSecond);
-    const row = { scenario: side.scenario, server: side.server.name, connections, result, rssBefore: rss[k].before, rssAfter: rssMb(side.server.pid), roundRatios };
+    const cpuUsPerRequest = (cpu[k].reduce((sum, us, round) => sum + us * slices[k][round].requests, 0)) / result.requests;
+    const row = { scenario: side.scenario, server: side.server.name, connections, result, rssBefore: rss[k].before, rssAfter: rssMb(side.server.pid), cpuUsPerRequest, roundRatios, roundCpuUs: cpu[k] };
     rows.push(row);
     console.error(`  ${side.scenario} (${side.server.name}, ${connections} conns): ${result.requestsPerSecond.toFixed(0)} req/s, p50 ${result.p50Ms.toFixed(1)} ms, p99 ${result.p99Ms.toFixed(1)} ms, ${result.errors} errors`);
     for (const sample of result.errorSamples) console.error(`    error: ${sample}`);
@@ -104,8 +113,9 @@ function median(values: readonly number[]): number {
 
 async function phase(scenario: string, server: RunningServer, connections: number, request: LoadPhase['request'], durationMs = phaseMs, note?: string): Promise<Row> {
   const rssBefore = rssMb(server.pid);
+  const cpu0 = cpuUs(server.pid);
   const result = await runLoad({ origin: server.origin, connections, durationMs, maxRequests, request });
-  const row = { scenario, server: server.name, connections, result, rssBefore, rssAfter: rssMb(server.pid), note };
+  const row = { scenario, server: server.name, connections, result, rssBefore, rssAfter: rssMb(server.pid), cpuUsPerRequest: (cpuUs(server.pid) - cpu0) / result.requests, note };
   rows.push(row);
   console.error(`  ${scenario} (${server.name}, ${connections} conns): ${result.requestsPerSecond.toFixed(0)} req/s, p50 ${result.p50Ms.toFixed(1)} ms, p99 ${result.p99Ms.toFixed(1)} ms, ${result.errors} errors`);
   for (const sample of result.errorSamples) console.error(`    error: ${sample}`);
@@ -162,11 +172,11 @@ async function main(): Promise<void> {
     await phase(`(c) n = ${n}, 10% bad requests`, partsmith, connectionCounts[0], mixedRequest(n, 'c'));
     if (soakMs > 0) await phase(`soak: (c) for ${soakMs / 1000} s`, partsmith, connectionCounts[0], mixedRequest(n, 's'), soakMs);
 
-    console.log('\n| scenario | server | conns | requests | req/s | p50 ms | p99 ms | errors | RSS before MB | RSS after MB |');
-    console.log('|---|---|---:|---:|---:|---:|---:|---:|---:|---:|');
+    console.log('\n| scenario | server | conns | requests | req/s | p50 ms | p99 ms | errors | server CPU µs/req | RSS before MB | RSS after MB |');
+    console.log('|---|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|');
     for (const row of rows) {
       const r = row.result;
-      console.log(`| ${row.scenario} | ${row.server} | ${row.connections} | ${r.requests} | ${fmt(r.requestsPerSecond)} | ${fmt(r.p50Ms, 1)} | ${fmt(r.p99Ms, 1)} | ${r.errors} | ${fmt(row.rssBefore, 1)} | ${fmt(row.rssAfter, 1)} |`);
+      console.log(`| ${row.scenario} | ${row.server} | ${row.connections} | ${r.requests} | ${fmt(r.requestsPerSecond)} | ${fmt(r.p50Ms, 1)} | ${fmt(r.p99Ms, 1)} | ${r.errors} | ${fmt(row.cpuUsPerRequest)} | ${fmt(row.rssBefore, 1)} | ${fmt(row.rssAfter, 1)} |`);
     }
     console.log('\n| ratio to bare node:http (median of paired rounds; ratio of totals; range of rounds) | ' + connectionCounts.map((c) => `${c} conns`).join(' | ') + ' |');
     console.log('|---|' + connectionCounts.map(() => '---:').join('|') + '|');
@@ -180,6 +190,14 @@ async function main(): Promise<void> {
       });
       console.log(`| ${scenario} | ${cells.join(' | ')} |`);
     }
+    // CPU per request is what a change to the server moves; it shifts much less than req/s
+    // when other processes take the cores (the client shares them as well).
+    console.log('\n| server CPU µs per request (median of rounds; range) | ' + connectionCounts.map((c) => `${c} conns`).join(' | ') + ' |');
+    console.log('|---|' + connectionCounts.map(() => '---:').join('|') + '|');
+    const cpuCells = (row: InterleavedRow) => `**${fmt(median(row.roundCpuUs))}**; ${fmt(Math.min(...row.roundCpuUs))}–${fmt(Math.max(...row.roundCpuUs))}`;
+    const baselines = connectionCounts.map((c) => rows.find((r) => r.server === bare.name && r.connections === c) as InterleavedRow);
+    console.log(`| baseline: fixed 200-byte JSON (bare node:http) | ${baselines.map(cpuCells).join(' | ')} |`);
+    for (const [scenario, byConnections] of ratioRows) console.log(`| ${scenario} | ${connectionCounts.map((c) => cpuCells(byConnections.get(c)!)).join(' | ')} |`);
     const soak = rows.find((row) => row.scenario.startsWith('soak'));
     if (soak) console.log(`\nRSS growth over the ${soakMs / 1000} s soak: ${fmt(soak.rssAfter - soak.rssBefore, 1)} MB (${fmt(soak.rssBefore, 1)} -> ${fmt(soak.rssAfter, 1)} MB).`);
     const totalErrors = rows.reduce((sum, row) => sum + row.result.errors, 0);

@@ -10,13 +10,15 @@
  * 2. A fresh server (its own process, as `npm start` runs it, warm-up included): the first
  *    request for an n against the repeated ones, at n = 1e3, 1e6, 1e9 (fresh servers per n).
  * 3. Warm server, n = 1e9, as=multiplicities: the HTTP answer time (over loopback) against the
- *    core sampler alone on the same family.
+ *    core sampler alone on the same family; beside it, the floor of any Node server for that
+ *    answer: a bare node:http handler that draws the sample with the same sampler, encodes it
+ *    with the same byte writer and writes the bytes (no Hono, no query, limits or caching).
  * 4. An unrestricted composition of 1e6 written as the JSON text the service sends, as the
  *    core's typed parts, and as the library's number[], against the same algorithm writing its parts into a typed array in one
  *    pass (the floor).
  */
 import { serve, type ServerType } from '@hono/node-server';
-import { Agent, createServer, get } from 'node:http';
+import { Agent, createServer, get, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { resolve } from 'node:path';
 import { unrestrictedSampler } from '../../src/core/compositions/unrestricted.js';
@@ -25,7 +27,7 @@ import { planPartitionSampler } from '../../src/core/partitions/plan.js';
 import type { RandomSource } from '../../src/core/random.js';
 import { SampleStreams } from '../../src/core/seeding.js';
 import { createApp } from '../../src/http/app.js';
-import { compositionAsParts } from '../../src/http/encode.js';
+import { compositionAsParts, partitionAsMultiplicities } from '../../src/http/encode.js';
 import { startServer } from '../load/servers.js';
 
 const ROOT = resolve(import.meta.dirname, '../..');
@@ -131,24 +133,54 @@ async function coldOverWarm(): Promise<void> {
   }
 }
 
+/**
+ * The floor of an HTTP answer of one sample at n, as=multiplicities, in Node: node:http alone,
+ * drawing sample 0 of the query's seed and writing it as the one-sample body (the same bytes as
+ * partsmith's but for the head: the family, seed and method are left out).
+ */
+async function bareSamplingServer(n: number): Promise<{ server: Server; origin: string }> {
+  const sampler = planPartitionSampler({ kind: 'partition', n });
+  const streams = new SampleStreams(familyKey({ kind: 'partition', n }));
+  const server = createServer((request, response) => {
+    const seed = new URLSearchParams(request.url!.slice(request.url!.indexOf('?') + 1)).get('seed') ?? 'bare';
+    const body = partitionAsMultiplicities.jsonBytes!(sampler.sample(streams.source(seed, 0)), '{"samples":[', ']}')!;
+    response.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'content-length': body.length });
+    response.end(body);
+  });
+  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
+  return { server, origin: `http://127.0.0.1:${(server.address() as AddressInfo).port}` };
+}
+
 async function httpOverCore(origin: string): Promise<void> {
   const n = 1e9;
   const sampler = planPartitionSampler({ kind: 'partition', n });
   const streams = new SampleStreams(familyKey({ kind: 'partition', n }));
-  const url = (r: number) => `${origin}/v1/partitions?n=${n}&seed=core-${r}&as=multiplicities`;
-  for (let r = 0; r < 5; r++) {
-    await timeGet(url(r));
-    sampler.sample(streams.source(`core-${r}`, 0));
+  const bare = await bareSamplingServer(n);
+  try {
+    const url = (r: number) => `${origin}/v1/partitions?n=${n}&seed=core-${r}&as=multiplicities`;
+    const bareUrl = (r: number) => `${bare.origin}/?seed=core-${r}`;
+    for (let r = 0; r < 5; r++) {
+      await timeGet(url(r));
+      await timeGet(bareUrl(r));
+      sampler.sample(streams.source(`core-${r}`, 0));
+    }
+    const http: number[] = [];
+    const floor: number[] = [];
+    const core: number[] = [];
+    // The same seeds on each side, so each median is over the same samples.
+    for (let r = 0; r < 21; r++) {
+      http.push((await timeGet(url(100 + r))).ms);
+      floor.push((await timeGet(bareUrl(100 + r))).ms);
+      const t0 = performance.now();
+      sampler.sample(streams.source(`core-${100 + r}`, 0));
+      core.push(performance.now() - t0);
+    }
+    row('n = 1e9 as=multiplicities: HTTP answer / core sample', median(http), median(core), 'ms', 1.5);
+    console.log(`| n = 1e9 as=multiplicities: the floor, bare node:http sampling and writing the same bytes / core sample | ${median(floor).toFixed(2)} ms | ${median(core).toFixed(2)} ms | ${(median(floor) / median(core)).toFixed(2)} | (reference) | |`);
+    console.log(`| n = 1e9 as=multiplicities: HTTP answer / that floor | ${median(http).toFixed(2)} ms | ${median(floor).toFixed(2)} ms | ${(median(http) / median(floor)).toFixed(2)} | (reference) | |`);
+  } finally {
+    await new Promise((done) => bare.server.close(done));
   }
-  const http: number[] = [];
-  const core: number[] = [];
-  for (let r = 0; r < 21; r++) {
-    http.push((await timeGet(url(100 + r))).ms);
-    const t0 = performance.now();
-    sampler.sample(streams.source(`core-${100 + r}`, 0));
-    core.push(performance.now() - t0);
-  }
-  row('n = 1e9 as=multiplicities: HTTP answer / core sample', median(http), median(core), 'ms', 1.5);
 }
 
 /** The floor: the unrestricted sampler's loop in one pass, its parts written into a typed array. */

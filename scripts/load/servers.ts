@@ -1,4 +1,4 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 
 /** A server child process on a loopback port, started and stopped by the load script. */
@@ -61,6 +61,25 @@ export function rssMb(pid: number): number {
   try {
     const match = /VmRSS:\s+([0-9]+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
     return match ? Number(match[1]) / 1024 : NaN;
+  } catch {
+    return NaN;
+  }
+}
+
+/** Clock ticks per second of /proc/<pid>/stat's CPU times (getconf CLK_TCK; 100 on Linux). */
+let clockTicks: number | undefined;
+
+/**
+ * CPU time (user + system) a process has used so far, in microseconds (Linux /proc), or NaN
+ * where that is not available. Resolution: one clock tick (10 ms), so measure many requests.
+ */
+export function cpuUs(pid: number): number {
+  try {
+    clockTicks ??= Number(execFileSync('getconf', ['CLK_TCK'], { encoding: 'utf8' })) || 100;
+    // The fields after the command name (which may hold spaces) start at the state, field 3.
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return ((Number(fields[11]) + Number(fields[12])) * 1e6) / clockTicks;
   } catch {
     return NaN;
   }

@@ -26,6 +26,12 @@ export interface AppOptions {
   readonly drawSeed?: () => string;
   /** Monotonic milliseconds for request deadlines; defaults to performance.now. */
   readonly clock?: Clock;
+  /**
+   * Monotonic milliseconds by which a streamed body decides when to give the event loop a turn
+   * (see yield-budget.ts); defaults to performance.now. Separate from `clock`: tests drive it
+   * to make every chunk end a turn, without moving any deadline.
+   */
+  readonly turnClock?: Clock;
   /** Where unexpected errors (answered with 500) are reported; defaults to console.error. */
   readonly logError?: (error: unknown, request: Request) => void;
 }
@@ -67,7 +73,7 @@ export function createApp(options: AppOptions = {}): Hono {
     openApiEndpoint(() => endpoints) as unknown as Endpoint,
   );
 
-  const clock = options.clock ?? (() => performance.now());
+  const clocks = { clock: options.clock ?? (() => performance.now()), turnClock: options.turnClock };
 
   const app = new Hono();
   const harden = hardening();
@@ -83,7 +89,7 @@ export function createApp(options: AppOptions = {}): Hono {
         const { query, memo } = queries.read(c.req.url);
         let response: Response | Promise<Response>;
         try {
-          response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clock), memo);
+          response = endpoint.handle(c.req.raw, query, requestContext(context, c.req.raw, clocks), memo);
         } catch (error) {
           throw familyError(error, query);
         }

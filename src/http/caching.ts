@@ -1,5 +1,5 @@
 import { APP_VERSION } from '../version.js';
-import { murmur3Hex, murmur3x86_128, Murmur3x86_128Prefix, wordsToHex } from '../core/murmur3.js';
+import { murmur3x86_128, Murmur3x86_128Prefix } from '../core/murmur3.js';
 import { ALGORITHM_VERSION } from '../core/seeding.js';
 
 /**
@@ -15,7 +15,7 @@ import { ALGORITHM_VERSION } from '../core/seeding.js';
  * equivalent spellings of a request serialise alike (tested in etag.test.ts).
  */
 export function strongEtag(path: string, parsedQuery: Readonly<Record<string, unknown>>): string {
-  return `"${murmur3Hex(etagText(parsedQuery), etagNamespace(path))}"`;
+  return quotedHex(murmur3x86_128(etagText(parsedQuery), etagNamespace(path)));
 }
 
 /**
@@ -46,8 +46,30 @@ export class SeedEtags {
   }
 
   etag(seed: string): string {
-    return `"${wordsToHex(this.rest.hash(JSON.stringify(seed)))}"`;
+    return quotedHex(this.rest.hash(JSON.stringify(seed)));
   }
+}
+
+/** Character codes of the hex digits. */
+const HEX_CODES = Array.from('0123456789abcdef', (digit) => digit.charCodeAt(0));
+
+/** The 34 character codes of a quoted tag: '"', 32 hex digits, '"' (reused: JS runs one call at a time). */
+const TAG_CODES: number[] = new Array<number>(34).fill(34);
+
+/**
+ * `"` + murmur3Hex's 32 hex digits (h1 first) + `"`, made as one flat string from its
+ * character codes. Joining the hex pieces with + made a string of many linked pieces, which
+ * node:http's check of every header value (a regular expression) first has to copy into one:
+ * 1.3 against 1.9 µs per tag with that check (.scratch micro-timing; bench: http,
+ * "SeedEtags.etag + node:http's header-value check").
+ */
+function quotedHex(words: readonly [number, number, number, number]): string {
+  let at = 1;
+  for (let w = 0; w < 4; w++) {
+    const word = words[w];
+    for (let shift = 28; shift >= 0; shift -= 4) TAG_CODES[at++] = HEX_CODES[(word >>> shift) & 15];
+  }
+  return String.fromCharCode.apply(null, TAG_CODES);
 }
 
 /**

@@ -83,6 +83,12 @@ export class Deadline {
  */
 export interface RequestLimits extends Limits {
   readonly deadline: Deadline;
+  /**
+   * The clock of a streamed body's yield budget (see yield-budget.ts): it decides when the
+   * event loop gets a turn, never what is written. Separate from the deadline's clock, so a
+   * test can drive one without moving the other.
+   */
+  readonly turnClock?: Clock;
 }
 
 /** The running request's deadline, when the limits carry one (they do inside the app). */
@@ -91,9 +97,21 @@ export function deadlineOf(limits: Limits): Deadline | undefined {
   return deadline instanceof Deadline ? deadline : undefined;
 }
 
+/** The clock of the running request's yield budget, when the app was given one. */
+export function turnClockOf(limits: Limits): Clock | undefined {
+  return (limits as Partial<RequestLimits>).turnClock;
+}
+
+/** The clocks a request is timed by: its deadline's, and (optionally) its yield budget's. */
+export interface RequestClocks {
+  readonly clock: Clock;
+  readonly turnClock?: Clock;
+}
+
 /** The context of one request: the app's context with limits that carry a fresh deadline. */
-export function requestContext<C extends { readonly limits: Limits }>(context: C, request: Request, clock: Clock): C {
-  const deadline = new Deadline(clock, context.limits.deadlineMs, () => request.signal);
+export function requestContext<C extends { readonly limits: Limits }>(context: C, request: Request, clocks: RequestClocks): C {
+  const deadline = new Deadline(clocks.clock, context.limits.deadlineMs, () => request.signal);
+  const timing: Pick<RequestLimits, 'deadline' | 'turnClock'> = clocks.turnClock ? { deadline, turnClock: clocks.turnClock } : { deadline };
   // Object.assign rather than spreads: the same copies, measured 3x faster on this per-request path.
-  return Object.assign({}, context, { limits: Object.assign({}, context.limits, { deadline }) });
+  return Object.assign({}, context, { limits: Object.assign({}, context.limits, timing) });
 }

@@ -3,7 +3,7 @@ import { LimitExceededError } from '../core/errors.js';
 import type { Partition } from '../core/partition.js';
 import type { Ranker } from '../core/ranks/ranker.js';
 import { IMMUTABLE, matchesIfNoneMatch, strongEtag } from './caching.js';
-import { RequestStopped, deadlineOf, type Deadline } from './deadline.js';
+import { RequestStopped, deadlineOf, turnClockOf, type Deadline } from './deadline.js';
 import { compositionAsParts, partitionAsMultiplicities, type SampleEncoder } from './encode.js';
 import type { Limits } from './limits.js';
 import { completeResponse } from './middleware/complete-response.js';
@@ -180,7 +180,7 @@ export function respondWithListing(request: Request, path: string, query: Record
     if (text.length >= FIRST_CHUNK_CHARS) break;
   }
   const first: Chunk = { text, done: false };
-  return completeResponse(bodyStream(pieces, { format: job.format, first }), 200, headers);
+  return completeResponse(bodyStream(pieces, { format: job.format, first, turnClock: turnClockOf(limits) }), 200, headers);
 }
 
 /** The body of a listing, one piece per member (plus the JSON head and tail). */

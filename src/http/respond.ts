@@ -1,6 +1,6 @@
 import { IMMUTABLE, matchesIfNoneMatch, NO_STORE, SeedEtags, strongEtag } from './caching.js';
 import type { Limits } from './limits.js';
-import { deadlineOf } from './deadline.js';
+import { deadlineOf, turnClockOf } from './deadline.js';
 import type { QueryMemo } from './query.js';
 import { completeResponse } from './middleware/complete-response.js';
 import { checkJobLimits, contentTypeOf, startBody, type SamplingJob } from './sampling.js';
@@ -37,7 +37,7 @@ export function respondWithSamples<S>(
     headers['cache-control'] = NO_STORE;
   }
   // HEAD gets the headers only: no samples are drawn for a body nobody reads.
-  const body = request.method === 'HEAD' ? null : startBody(job, deadlineOf(limits));
+  const body = request.method === 'HEAD' ? null : startBody(job, deadlineOf(limits), turnClockOf(limits));
   return completeResponse(body, 200, headers);
 }
 

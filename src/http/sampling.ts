@@ -183,7 +183,7 @@ function takeChunk(pieces: Iterator<string>): Chunk {
  * Once streaming has begun the status is sent, so a later stop ends the stream with an error
  * (see `bodyStream`).
  */
-export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): ReadableStream<Uint8Array> | string | Uint8Array<ArrayBuffer> {
+export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline, turnClock?: () => number): ReadableStream<Uint8Array> | string | Uint8Array<ArrayBuffer> {
   // One sample is drawn whole whatever its size, so its body is one string (or its bytes) too
   // (with a Content-Length, and no stream to pump), however large.
   if (job.count === 1 || job.count * job.numbersPerSample <= WHOLE_BODY_NUMBERS) {
@@ -199,7 +199,7 @@ export function startBody<S>(job: SamplingJob<S>, deadline?: Deadline): Readable
   // A body that fits in one chunk goes out as a string: it gets a Content-Length, and Node's
   // adapter writes it directly instead of pumping a stream (most requests are this small).
   if (first.done) return first.text;
-  return bodyStream(pieces, { format: job.format, start: job.start, first });
+  return bodyStream(pieces, { format: job.format, start: job.start, first, turnClock });
 }
 
 /** What a stop means for the client: a problem for the deadline, the original error otherwise. */
@@ -234,8 +234,8 @@ export interface StreamOptions {
   readonly start?: number;
   /** A chunk already produced (by `startBody`), sent first. */
   readonly first?: Chunk;
-  /** Clock of the yield budget (tests); performance.now by default. */
-  readonly clock?: () => number;
+  /** Clock of the yield budget (see AppOptions.turnClock); performance.now by default. */
+  readonly turnClock?: () => number;
 }
 
 /**
@@ -257,7 +257,7 @@ export function bodyStream(pieces: Iterator<string>, options: StreamOptions = {}
   // last good chunk (and the NDJSON error line) went out.
   let failure: StreamEndedEarly | undefined;
   let cancelled = false;
-  const budget = new YieldBudget(options.clock);
+  const budget = new YieldBudget(options.turnClock);
   return new ReadableStream<Uint8Array>(
     {
       async pull(controller) {

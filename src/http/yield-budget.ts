@@ -7,8 +7,9 @@
  * wall time idle). So the stream measures its own work and gives way once it has run for
  * YIELD_AFTER_MS since it last did.
  *
- * The clock here only decides when other work gets a turn, never what is written, so it is
- * read directly (performance.now, present in Node and Workers) unless one is injected.
+ * The clock here only decides when other work gets a turn, never what is written: it is
+ * performance.now (present in Node and Workers) unless the app is given a turn clock
+ * (AppOptions.turnClock), its own, apart from the deadline's clock.
  */
 export const YIELD_AFTER_MS = 4;
 

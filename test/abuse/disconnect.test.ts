@@ -3,24 +3,34 @@ import { connect, type Socket } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../src/http/app.js';
+import { YIELD_AFTER_MS } from '../../src/http/yield-budget.js';
 
 /**
  * A real Node server (in-process, ephemeral loopback port) streaming NDJSON: when the client goes
  * away, sampling stops. The app's clock is read once per sample (the deadline check), so the
  * number of clock readings is an exact counter of samples drawn — instrumentation without
  * touching the code under test. CPU time of this process is the second witness.
+ *
+ * The yield budget has its own clock (the app's turnClock), here one that moves a whole budget
+ * at every reading: every chunk ends a turn of the event loop, so what is drawn after the client
+ * goes away is counted in chunks, not in milliseconds of this machine's speed.
  */
 let readings = 0;
+let turnReadings = 0;
+/** Samples drawn (clock readings) when the server's side of the last connection closed. */
+let atServerClose = -1;
 let server: ServerType;
 let port: number;
 
 beforeAll(async () => {
   const app = createApp({
     clock: () => (readings++, performance.now()),
+    turnClock: () => YIELD_AFTER_MS * turnReadings++,
     // Limits raised so that one request may ask for 10^6 samples and a minute of time.
     limits: { maxCount: 1_000_000, maxNumbers: 1e9, workBudgetMs: 3_600_000, deadlineMs: 60_000 },
   });
   server = serve({ fetch: app.fetch, port: 0, hostname: '127.0.0.1' });
+  server.on('connection', (socket: Socket) => socket.on('close', () => (atServerClose = readings)));
   await new Promise((resolve) => server.once('listening', resolve));
   port = (server.address() as AddressInfo).port;
 });
@@ -29,6 +39,12 @@ afterAll(async () => {
   (server as { closeAllConnections?: () => void }).closeAllConnections?.();
   await new Promise((resolve) => server.close(resolve));
 });
+
+/**
+ * The most samples one chunk can hold: a chunk is cut once it reaches 64 KiB of text, and no
+ * NDJSON line of n = 12 past index 999 is shorter than `{"index":1000,"parts":[12]}\n` (28 chars).
+ */
+const MAX_SAMPLES_PER_CHUNK = Math.ceil((64 * 1024) / 28) + 1;
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
@@ -66,20 +82,26 @@ async function untilNothingDrawnFor(quietMs: number, boundMs: number): Promise<b
 describe('a client that disconnects from an NDJSON stream of 10^6 samples', () => {
   it('stops sampling: no samples drawn once the close is seen, and no CPU spent afterwards', async () => {
     const before = readings;
+    atServerClose = -1;
     const { socket } = await startMillionSampleStream();
     socket.destroy();
     const atAbort = readings - before;
-    // The chunk in hand when the close event arrives may finish; then nothing more is drawn.
     // Generous bound: 20 s (the test's own timeout is 60 s), whatever the machine's speed.
     expect(await untilNothingDrawnFor(250, 20_000)).toBe(true);
     const settled = readings - before;
+    // Nothing at all is drawn once the server has seen the close (its socket's close event).
+    expect(atServerClose).toBeGreaterThanOrEqual(0);
+    expect(settled).toBe(atServerClose - before);
+    // Before that, at most the one chunk whose turn was already queued when the client went away:
+    // the client's close is read in the loop's next poll phase (loopback delivers it at once),
+    // and with every chunk ending a turn, one chunk at most is made before then.
+    expect(settled - atAbort).toBeLessThanOrEqual(MAX_SAMPLES_PER_CHUNK);
     const cpuStart = process.cpuUsage();
     await sleep(500);
     const cpu = process.cpuUsage(cpuStart);
     const final = readings - before;
 
     expect(final).toBe(settled); // still nothing drawn 500 ms after it went quiet
-    expect(settled - atAbort).toBeLessThan(20_000); // at most a few 64 KiB chunks after the abort
     expect(final).toBeLessThan(100_000); // far from the 10^6 that were asked for
     // An idle process: well under a tenth of the 500 ms window (a spinning loop would use ~all of it).
     expect((cpu.user + cpu.system) / 1000).toBeLessThan(50);

@@ -32,7 +32,7 @@ describe('the yield budget of a streamed body', () => {
     }
     // Turns of the event loop are counted by an immediate that re-arms itself whenever it ran.
     let turns = 0;
-    const reader = bodyStream(pieces(), { clock: clock.read }).getReader();
+    const reader = bodyStream(pieces(), { turnClock: clock.read }).getReader();
     let chunks = 0;
     let immediateSeen = false;
     setImmediate(() => (immediateSeen = true));
