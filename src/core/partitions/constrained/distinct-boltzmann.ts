@@ -46,6 +46,9 @@ export class DistinctBoltzmann implements PartitionSampler {
   /** Acceptance probability by residual m. */
   private readonly accept: Float64Array;
   private readonly denseEnd: number;
+  /** For a list: A's sizes descending and their inclusion probabilities. */
+  private readonly restDescending: Float64Array = new Float64Array(0);
+  private readonly restProbability: Float64Array = new Float64Array(0);
 
   constructor(
     readonly sizes: SizeSet,
@@ -74,6 +77,12 @@ export class DistinctBoltzmann implements PartitionSampler {
     this.setupWork = cells;
     if (block.length === count) this.rest = null;
     else if (sizes.kind === 'list') this.rest = { kind: 'list', values: sizes.values.slice(block.length) };
+    if (this.rest !== null && this.rest.kind === 'list') {
+      // Inclusion probabilities of the listed sizes of A, in the (descending) order they are tried.
+      const v = this.rest.values;
+      this.restDescending = Float64Array.from(v).reverse();
+      this.restProbability = this.restDescending.map((k) => 1 / (1 + Math.exp(-this.t * k)));
+    }
     else this.rest = { kind: 'interval', lo: sizes.lo + block.length, hi: sizes.hi };
 
     const rows: Float64Array[] = [new Float64Array([1])];
@@ -81,9 +90,10 @@ export class DistinctBoltzmann implements PartitionSampler {
       const b = block[j - 1];
       const prev = rows[j - 1];
       const row = new Float64Array(Math.min(n, prev.length - 1 + b) + 1);
-      for (let m = 0; m < row.length; m++) {
-        row[m] = (m < prev.length ? prev[m] : 0) + (m >= b && m - b < prev.length ? prev[m - b] : 0);
-      }
+      // row[m] = prev[m] + prev[m - b]: a copy, then one shifted addition.
+      row.set(prev.length <= row.length ? prev : prev.subarray(0, row.length));
+      const end = Math.min(row.length, prev.length + b);
+      for (let m = b; m < end; m++) row[m] += prev[m - b];
       rows.push(row);
     }
     this.rows = rows;
@@ -138,8 +148,9 @@ export class DistinctBoltzmann implements PartitionSampler {
       let alive = true;
       if (rest !== null) {
         if (rest.kind === 'list') {
-          const v = rest.values;
-          for (let i = v.length - 1; i >= 0 && alive; i--) if (source.nextDouble() < p(v[i])) alive = take(v[i]);
+          const v = this.restDescending;
+          const q = this.restProbability;
+          for (let i = 0; i < v.length && alive; i++) if (source.nextDouble() < q[i]) alive = take(v[i]);
         } else if (t >= 0) {
           for (let k = rest.hi; k >= rest.lo && alive; k--) if (source.nextDouble() < p(k)) alive = take(k);
         } else {
