@@ -77,13 +77,13 @@ export class DistinctBoltzmann implements PartitionSampler {
     this.setupWork = cells;
     if (block.length === count) this.rest = null;
     else if (sizes.kind === 'list') this.rest = { kind: 'list', values: sizes.values.slice(block.length) };
+    else this.rest = { kind: 'interval', lo: sizes.lo + block.length, hi: sizes.hi };
     if (this.rest !== null && this.rest.kind === 'list') {
       // Inclusion probabilities of the listed sizes of A, in the (descending) order they are tried.
       const v = this.rest.values;
       this.restDescending = Float64Array.from(v).reverse();
       this.restProbability = this.restDescending.map((k) => 1 / (1 + Math.exp(-this.t * k)));
     }
-    else this.rest = { kind: 'interval', lo: sizes.lo + block.length, hi: sizes.hi };
 
     const rows: Float64Array[] = [new Float64Array([1])];
     for (let j = 1; j <= block.length; j++) {
