@@ -1,7 +1,6 @@
 import type { Partition } from '../../partition.js';
 import type { RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
-import { countsToPartition } from './size-table.js';
 import { sizeCount, sizeGcd, type SizeSet } from './spec.js';
 import { visitThinned } from './thinning.js';
 import { localProbability, solveTilt, tiltMoments } from './tilt.js';
@@ -137,11 +136,13 @@ export class DistinctBoltzmann implements PartitionSampler {
     const { n, t } = this;
     const rest = this.rest;
     const p = (k: number) => 1 / (1 + Math.exp(-t * k));
+    // The sizes drawn so far (each at most once); a Map only for the accepted draw.
+    const chosen: number[] = [];
     for (;;) {
-      const counts = new Map<number, number>();
+      chosen.length = 0;
       let total = 0;
       const take = (k: number): boolean => {
-        counts.set(k, 1);
+        chosen.push(k);
         total += k;
         return total <= n;
       };
@@ -170,11 +171,12 @@ export class DistinctBoltzmann implements PartitionSampler {
         const here = this.rows[j][m];
         const without = m < prev.length ? prev[m] : 0;
         if (source.nextDouble() * here >= without) {
-          counts.set(b, 1);
+          chosen.push(b);
           m -= b;
         }
       }
-      return countsToPartition(counts);
+      const sizes = chosen.sort((a, b) => b - a);
+      return { sizes, multiplicities: sizes.map(() => 1) };
     }
   }
 }

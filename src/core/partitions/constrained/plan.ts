@@ -10,7 +10,8 @@ import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import { solveTiltNewton } from './length-law.js';
 import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
-import { about, refusal } from './refusal.js';
+import { about, refusal, undecidedSubsetHint } from './refusal.js';
+import { decidedRange, MEET_IN_THE_MIDDLE_SIZES } from './subset-sum-reach.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -177,7 +178,10 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       sizes.kind === 'list'
         ? `with these ${r} sizes the family fits up to n = ${about(TABLE_CELL_LIMIT / (r + 1) - 1)}, and at this n with at most ${fewer} allowed size${fewer === '1' ? '' : 's'}`
         : undefined;
-    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), listHint);
+    // Distinct parts whose reachability was left undecided (subset-sum-reach.ts): say which n are decided.
+    const undecided = distinct && sizes.kind === 'list' && feasible === undefined;
+    const hint = undecided ? undecidedSubsetHint(r, decidedRange(sizes.values), MEET_IN_THE_MIDDLE_SIZES) : listHint;
+    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), hint);
   }
   if (open && (hasLength || distinct || lo > 1)) {
     const top = distinct ? Math.min(kMax, Math.ceil(Math.sqrt(2 * n)) + 1) : Math.min(kMax, Math.floor(n / lo));

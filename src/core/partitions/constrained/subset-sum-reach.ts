@@ -81,7 +81,7 @@ export function subsetSumReachable(values: readonly number[], n: number, wordLim
   }
 
   // 3. Meet in the middle for short lists.
-  if (sizes.length <= 36) return meetInTheMiddle(sizes, target);
+  if (sizes.length <= MEET_IN_THE_MIDDLE_SIZES) return meetInTheMiddle(sizes, target);
   return undefined;
 }
 
@@ -175,4 +175,23 @@ class BitSet {
     const found = best as [number, number] | null;
     return found !== null && found[1] > found[0] ? found : null;
   }
+}
+
+/** Sizes up to which the meet-in-the-middle search decides any n. */
+export const MEET_IN_THE_MIDDLE_SIZES = 36;
+
+/**
+ * For a list whose reachability subsetSumReachable left undecided: the n that it does decide
+ * whatever the list (the bit set route: n, or total - n, up to about wordLimit x 32 / #sizes),
+ * for the refusal's "what would fit".
+ */
+export function decidedRange(values: readonly number[], wordLimit = 3e6): { upTo: number; from: number; total: number } {
+  let total = 0;
+  let g = 0;
+  for (const v of values) {
+    total += v;
+    g = gcd(v, g);
+  }
+  const upTo = Math.max(0, Math.floor(32 * (wordLimit / values.length - 1))) * Math.max(g, 1);
+  return { upTo, from: total - upTo, total };
 }
