@@ -48,19 +48,11 @@ export function about(x: number): string {
  * n could not be decided within the work limit (subset-sum-reach.ts): the n that are decided for
  * this list, and the list length at which every n is.
  */
-export function undecidedSubsetHint(sizes: number, range: { upTo: number; from: number }, shortList: number): string {
+export function undecidedSubsetHint(sizes: number, range: { upTo: number; from: number; total: number }, shortList: number): string {
   const low = about(range.upTo);
-  const high = range.from > range.upTo ? `, or from about ${aboutUp(range.from)} up to the sum of the sizes,` : '';
+  const high = range.from > range.upTo ? ` or within about ${low} below their sum (${range.total})` : '';
   return (
     `deciding whether some of these ${sizes} sizes sum to n takes too long here; ` +
     `with these sizes n up to about ${low}${high} fits, and any n with at most ${shortList} allowed sizes`
   );
-}
-
-/** A count rounded up to two significant digits ("from about ..." hints). */
-function aboutUp(x: number): string {
-  if (!(x >= 1)) return '1';
-  const digits = Math.floor(Math.log10(x)) - 1;
-  const unit = digits > 0 ? 10 ** digits : 1;
-  return String(Math.ceil(x / unit) * unit);
 }
