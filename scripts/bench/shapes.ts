@@ -83,7 +83,7 @@ const scattered = (count: number, max: number): number[] => {
   return [...out].sort((a, b) => a - b);
 };
 
-/** Distinct parts from allowed lists of 100-1000 sizes at n = 1e4-1e8 (`npm run bench -- shapes distinct-allowed` alone). */
+/** Distinct parts from allowed lists of 100-1000 sizes at n = 1e4-1e8 (`npx tsx scripts/bench/shapes.ts distinct-allowed` alone). */
 export const DISTINCT_ALLOWED_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 100_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },
   { kind: 'partition', n: 200_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },

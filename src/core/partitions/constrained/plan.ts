@@ -11,7 +11,7 @@ import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import { solveTiltNewton } from './length-law.js';
 import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
 import { about, refusal, undecidedSubsetHint } from './refusal.js';
-import { decidedRange, MEET_IN_THE_MIDDLE_SIZES } from './subset-sum-reach.js';
+import { decidedRange } from './subset-sum-reach.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -180,7 +180,7 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
         : undefined;
     // Distinct parts whose reachability was left undecided (subset-sum-reach.ts): say which n are decided.
     const undecided = distinct && sizes.kind === 'list' && feasible === undefined;
-    const hint = undecided ? undecidedSubsetHint(r, decidedRange(sizes.values), MEET_IN_THE_MIDDLE_SIZES) : listHint;
+    const hint = undecided ? undecidedSubsetHint(r, decidedRange(sizes.values)) : listHint;
     table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), hint);
   }
   if (open && (hasLength || distinct || lo > 1)) {
