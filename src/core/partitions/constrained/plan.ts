@@ -55,7 +55,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
  *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
- *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms); distinct parts from lists of up to 1000
+ *   sizes wherever subset-sum-reach.ts decides that n is reached (distinct-boltzmann, 0.2-9 ms per
+ *   sample at 1e4-1e8, `npx tsx scripts/bench/shapes.ts distinct-allowed`). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
  *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
