@@ -72,6 +72,29 @@ export const ISSUE_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 1_000_000, distinct: true, minPart: 50, maxPart: 5000 },
 ];
 
+/** A fixed list of `count` distinct sizes in [1, max] (Park–Miller minimal standard, seed 99). */
+const scattered = (count: number, max: number): number[] => {
+  let s = 99;
+  const out = new Set<number>();
+  while (out.size < count) {
+    s = (s * 48271) % 2147483647;
+    out.add(1 + (s % max));
+  }
+  return [...out].sort((a, b) => a - b);
+};
+
+/** Distinct parts from allowed lists of 100-1000 sizes at n = 1e4-1e8 (`npx tsx scripts/bench/shapes.ts distinct-allowed` alone). */
+export const DISTINCT_ALLOWED_ROWS: PartitionFamily[] = [
+  { kind: 'partition', n: 100_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },
+  { kind: 'partition', n: 200_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },
+  { kind: 'partition', n: 1_000_000, distinct: true, allowed: Array.from({ length: 1000 }, (_, i) => 1000 + 7 * i) },
+  { kind: 'partition', n: 300_000, distinct: true, allowed: Array.from({ length: 1000 }, (_, i) => i + 1) },
+  { kind: 'partition', n: 10_000, distinct: true, allowed: Array.from({ length: 100 }, (_, i) => 3 * i + 2) },
+  { kind: 'partition', n: 1_000_000, distinct: true, allowed: scattered(1000, 10_000) },
+  { kind: 'partition', n: 10_000_000, distinct: true, allowed: scattered(1000, 1_000_000) },
+  { kind: 'partition', n: 100_000_000, distinct: true, allowed: scattered(1000, 1_000_000) },
+];
+
 const SIZES = [1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
 const ROUNDS = 5;
 const ROUND_MS = 40;
@@ -223,7 +246,25 @@ function row(cells: string[], widths: number[]): string {
   return cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ');
 }
 
+/** The distinct-allowed rows: a list's length, its range and n in the label. */
+function benchDistinctAllowed(widths: number[]): void {
+  console.log('\n## Distinct parts from allowed lists: ms per exact sample and ratio to one free proposal, same run');
+  console.log(row(['list', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
+  for (const family of DISTINCT_ALLOWED_ROWS) {
+    const list = family.allowed!;
+    const name = `${list.length} sizes in [${list[0]}, ${list[list.length - 1]}]`;
+    const cell = measure(family);
+    const label = family.n.toExponential(0).replace('+', '');
+    if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));
+    else console.log(row([name, label, cell.method, fmt(cell.setupMs), fmt(cell.sampleMs), fmt(cell.proposalMs), cell.ratio.toFixed(1)], widths));
+  }
+}
+
 export async function benchShapes(): Promise<void> {
+  if (process.argv.includes('distinct-allowed')) {
+    benchDistinctAllowed([36, 6, 34, 9, 10, 11, 7]);
+    return;
+  }
   console.log('\n## Constrained family shapes: ms per exact sample (planner choice) and ratio to one free proposal, same run');
   console.log(`(${ROUNDS} alternating rounds of ~${ROUND_MS} ms per cell; setup = planning, tilts and tables, once per family)`);
   const widths = [36, 6, 34, 9, 10, 11, 7];
@@ -249,6 +290,7 @@ export async function benchShapes(): Promise<void> {
     if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));
     else console.log(row([name, label, cell.method, fmt(cell.setupMs), fmt(cell.sampleMs), fmt(cell.proposalMs), cell.ratio.toFixed(1)], widths));
   }
+  benchDistinctAllowed(widths);
 }
 
 if (process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].split('/').pop()!)) {

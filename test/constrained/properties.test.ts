@@ -105,12 +105,15 @@ describe('planner errors and limits', () => {
     // The short side is the part bound: the refusal says how small maxPart would have to be.
     const g: PartitionFamily = { kind: 'partition', n: 1_000_000_000, maxLength: 60_000, maxPart: 40_000 };
     expect(() => constrainedPartitionSampler(g)).toThrow(/fits with maxPart at most about \d+/);
-    // Distinct parts from a long list at large n: only the counting table applies (a subset-sum
-    // problem), so the refusal says up to which n, or with how few sizes, it fits.
-    const sizes = Array.from({ length: 1000 }, (_, i) => 1 + 4 * i);
-    const h: PartitionFamily = { kind: 'partition', n: 1_000_000, distinct: true, allowed: sizes };
-    expect(() => constrainedPartitionSampler(h)).toThrow(/with these 1000 sizes the family fits up to n = 4900, and at this n with at most 3 allowed sizes$/);
-    expect(() => constrainedPartitionSampler({ ...h, n: 4900 })).not.toThrow();
+    // Distinct parts from a long list at large n where whether any subset sums to n is not decided
+    // within the work bound (1000 sizes within 3000 of 1e6: no run of sums forms): the refusal
+    // says which n are decided (subset-sum-reach.ts).
+    const near = Array.from({ length: 1000 }, (_, i) => 1_000_000 - 3 * i);
+    const h: PartitionFamily = { kind: 'partition', n: 500_000_000, distinct: true, allowed: near };
+    expect(() => constrainedPartitionSampler(h)).toThrow(/with these sizes n up to about 95000 or within about 95000 below their sum \(998501500\) fits$/);
+    // The long list 1, 5, 9, ... at n = 1e6 (refused before reachability had the run argument) is sampled.
+    const spaced = Array.from({ length: 1000 }, (_, i) => 1 + 4 * i);
+    expect(() => constrainedPartitionSampler({ kind: 'partition', n: 1_000_000, distinct: true, allowed: spaced })).not.toThrow();
   });
   it('n = 0 has the empty partition only', () => {
     const s = constrainedPartitionSampler({ kind: 'partition', n: 0, distinct: true, allowed: [3] });

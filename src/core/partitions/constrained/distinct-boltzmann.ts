@@ -1,7 +1,6 @@
 import type { Partition } from '../../partition.js';
 import type { RandomSource } from '../../random.js';
 import type { PartitionSampler } from '../../sampler.js';
-import { countsToPartition } from './size-table.js';
 import { sizeCount, sizeGcd, type SizeSet } from './spec.js';
 import { visitThinned } from './thinning.js';
 import { localProbability, solveTilt, tiltMoments } from './tilt.js';
@@ -46,6 +45,9 @@ export class DistinctBoltzmann implements PartitionSampler {
   /** Acceptance probability by residual m. */
   private readonly accept: Float64Array;
   private readonly denseEnd: number;
+  /** For a list: A's sizes descending and their inclusion probabilities. */
+  private readonly restDescending: Float64Array = new Float64Array(0);
+  private readonly restProbability: Float64Array = new Float64Array(0);
 
   constructor(
     readonly sizes: SizeSet,
@@ -75,15 +77,22 @@ export class DistinctBoltzmann implements PartitionSampler {
     if (block.length === count) this.rest = null;
     else if (sizes.kind === 'list') this.rest = { kind: 'list', values: sizes.values.slice(block.length) };
     else this.rest = { kind: 'interval', lo: sizes.lo + block.length, hi: sizes.hi };
+    if (this.rest !== null && this.rest.kind === 'list') {
+      // Inclusion probabilities of the listed sizes of A, in the (descending) order they are tried.
+      const v = this.rest.values;
+      this.restDescending = Float64Array.from(v).reverse();
+      this.restProbability = this.restDescending.map((k) => 1 / (1 + Math.exp(-this.t * k)));
+    }
 
     const rows: Float64Array[] = [new Float64Array([1])];
     for (let j = 1; j <= block.length; j++) {
       const b = block[j - 1];
       const prev = rows[j - 1];
       const row = new Float64Array(Math.min(n, prev.length - 1 + b) + 1);
-      for (let m = 0; m < row.length; m++) {
-        row[m] = (m < prev.length ? prev[m] : 0) + (m >= b && m - b < prev.length ? prev[m - b] : 0);
-      }
+      // row[m] = prev[m] + prev[m - b]: a copy, then one shifted addition.
+      row.set(prev.length <= row.length ? prev : prev.subarray(0, row.length));
+      const end = Math.min(row.length, prev.length + b);
+      for (let m = b; m < end; m++) row[m] += prev[m - b];
       rows.push(row);
     }
     this.rows = rows;
@@ -127,19 +136,22 @@ export class DistinctBoltzmann implements PartitionSampler {
     const { n, t } = this;
     const rest = this.rest;
     const p = (k: number) => 1 / (1 + Math.exp(-t * k));
+    // The sizes drawn so far (each at most once); a Map only for the accepted draw.
+    const chosen: number[] = [];
     for (;;) {
-      const counts = new Map<number, number>();
+      chosen.length = 0;
       let total = 0;
       const take = (k: number): boolean => {
-        counts.set(k, 1);
+        chosen.push(k);
         total += k;
         return total <= n;
       };
       let alive = true;
       if (rest !== null) {
         if (rest.kind === 'list') {
-          const v = rest.values;
-          for (let i = v.length - 1; i >= 0 && alive; i--) if (source.nextDouble() < p(v[i])) alive = take(v[i]);
+          const v = this.restDescending;
+          const q = this.restProbability;
+          for (let i = 0; i < v.length && alive; i++) if (source.nextDouble() < q[i]) alive = take(v[i]);
         } else if (t >= 0) {
           for (let k = rest.hi; k >= rest.lo && alive; k--) if (source.nextDouble() < p(k)) alive = take(k);
         } else {
@@ -159,11 +171,12 @@ export class DistinctBoltzmann implements PartitionSampler {
         const here = this.rows[j][m];
         const without = m < prev.length ? prev[m] : 0;
         if (source.nextDouble() * here >= without) {
-          counts.set(b, 1);
+          chosen.push(b);
           m -= b;
         }
       }
-      return countsToPartition(counts);
+      const sizes = chosen.sort((a, b) => b - a);
+      return { sizes, multiplicities: sizes.map(() => 1) };
     }
   }
 }

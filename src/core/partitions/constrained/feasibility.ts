@@ -1,4 +1,5 @@
 import { listLengthFeasible } from './length-feasibility.js';
+import { subsetSumReachable } from './subset-sum-reach.js';
 import { sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './spec.js';
 
 /**
@@ -17,7 +18,7 @@ export function isFeasible(spec: ConstrainedSpec, workLimit = 1e8): boolean | un
   if (kMin > kMax || kMax === 0) return false;
   if (sizes.kind === 'interval') return intervalFeasible(n, sizes.lo, sizes.hi, distinct, kMin, kMax);
   if (spec.length !== undefined || spec.maxLength !== undefined) return listLengthFeasible(sizes.values, n, kMin, kMax, distinct);
-  return distinct ? subsetSumFeasible(sizes.values, n, workLimit) : listFeasible(sizes.values, n, workLimit);
+  return distinct ? subsetSumFeasible(sizes.values, n) : listFeasible(sizes.values, n, workLimit);
 }
 
 /**
@@ -58,15 +59,7 @@ function listFeasible(values: readonly number[], n: number, workLimit: number): 
   return reach[n] === 1;
 }
 
-/** Distinct parts from a list: subset-sum reachability (descending sweep per size). */
-function subsetSumFeasible(values: readonly number[], n: number, workLimit: number): boolean | undefined {
-  let total = 0;
-  for (const v of values) total += v;
-  if (total < n) return false;
-  if (sizeGcd({ kind: 'list', values } as SizeSet) > 1 && n % sizeGcd({ kind: 'list', values }) !== 0) return false;
-  if (values.length * n > workLimit) return undefined;
-  const reach = new Uint8Array(n + 1);
-  reach[0] = 1;
-  for (const a of values) for (let m = n; m >= a; m--) if (reach[m - a]) reach[m] = 1;
-  return reach[n] === 1;
+/** Distinct parts from a list: subset-sum reachability (subset-sum-reach.ts; undefined beyond its work bound). */
+function subsetSumFeasible(values: readonly number[], n: number): boolean | undefined {
+  return subsetSumReachable(values, n);
 }

@@ -10,7 +10,8 @@ import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import { solveTiltNewton } from './length-law.js';
 import { implicitLengthCandidates, lengthCandidates, mostParts } from './plan-length.js';
-import { about, refusal } from './refusal.js';
+import { about, refusal, undecidedSubsetHint } from './refusal.js';
+import { decidedRange } from './subset-sum-reach.js';
 import {
   contradiction,
   emptyFamilyMessage,
@@ -54,7 +55,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
  *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
- *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms); distinct parts from lists of up to 1000
+ *   sizes wherever subset-sum-reach.ts decides that n is reached (distinct-boltzmann, 0.2-9 ms per
+ *   sample at 1e4-1e8, `npx tsx scripts/bench/shapes.ts distinct-allowed`). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
  *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
@@ -177,7 +180,10 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       sizes.kind === 'list'
         ? `with these ${r} sizes the family fits up to n = ${about(TABLE_CELL_LIMIT / (r + 1) - 1)}, and at this n with at most ${fewer} allowed size${fewer === '1' ? '' : 's'}`
         : undefined;
-    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), listHint);
+    // Distinct parts whose reachability was left undecided (subset-sum-reach.ts): say which n are decided.
+    const undecided = distinct && sizes.kind === 'list' && feasible === undefined;
+    const hint = undecided ? undecidedSubsetHint(r, decidedRange(sizes.values)) : listHint;
+    table('table-sizes/1', (r + 1) * (n + 1), r + shape.expectedLength, () => sizeTableSampler(sizeList(sizes), n, distinct, shape), hint);
   }
   if (open && (hasLength || distinct || lo > 1)) {
     const top = distinct ? Math.min(kMax, Math.ceil(Math.sqrt(2 * n)) + 1) : Math.min(kMax, Math.floor(n / lo));

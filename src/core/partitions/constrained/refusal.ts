@@ -42,3 +42,14 @@ export function about(x: number): string {
   const unit = digits > 0 ? 10 ** digits : 1;
   return String(Math.floor(x / unit) * unit);
 }
+
+/**
+ * The hint for distinct parts from an allowed list when whether any subset of the sizes sums to
+ * n could not be decided within the work limit (subset-sum-reach.ts): the n that are decided for
+ * this list.
+ */
+export function undecidedSubsetHint(sizes: number, range: { upTo: number; from: number; total: number }): string {
+  const low = about(range.upTo);
+  const high = range.from > range.upTo ? ` or within about ${low} below their sum (${range.total})` : '';
+  return `deciding whether some of these ${sizes} sizes sum to n takes too long here; with these sizes n up to about ${low}${high} fits`;
+}
