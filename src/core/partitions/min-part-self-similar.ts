@@ -6,6 +6,7 @@ import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal } from './boltzmann-proposal.js';
 import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
+import { ConcaveSqueeze } from './concave-squeeze.js';
 import { MinPartTable } from './min-part-table.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable } from './table-recursive.js';
@@ -123,6 +124,22 @@ export class MinPartSelfSimilarTables {
       this.boundedTables.set(top, t);
     }
     return t;
+  }
+
+  private readonly squeezes = new WeakMap<object, ConcaveSqueeze>();
+  /**
+   * The squeeze (concave-squeeze.ts) on the log-counts above a table's end, where they are the
+   * saddle-point values (concave: see the counts' files) and dear; null for counts without a
+   * table end (the partition numbers: a closed form, cheap).
+   */
+  squeezeFor(counts: LogConcaveCounts | LogBoundedPartCounts): ConcaveSqueeze | null {
+    if (!('exactUpTo' in counts)) return null;
+    let q = this.squeezes.get(counts);
+    if (q === undefined) {
+      q = new ConcaveSqueeze();
+      this.squeezes.set(counts, q);
+    }
+    return q;
   }
 
   /** log c_b for b >= 1 (b = 1: the partition numbers). */
@@ -253,17 +270,57 @@ export class MinPartSelfSimilarEngine {
     const logX = -minPartSaddle(b, n);
     const best = this.maximiser(counts, n, logX);
     const s = b % 2 === 1 ? b : b + 1;
+    const squeeze = this.squeeze(counts, best);
     for (;;) {
       const t = this.propose(source, n, s, Infinity, logX, level, top, all);
       if (t < 0) continue;
       const j0 = level.xs % 2;
       const m = (n - t) / 2;
-      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
-      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
+      const base = 2 * (m - best) * logX + s * j0 * logX;
+      // Accept iff logAccept >= 0 or u < e^{logAccept}, u drawn only in the second case; the
+      // squeeze decides most proposals above the table without the count at m (same decision).
+      const [lower, upper] = squeeze === null || m <= squeeze.from ? [NaN, NaN] : squeeze.bounds(m, base);
+      let accept: boolean;
+      if (lower >= 0) accept = true;
+      else if (upper < 0) {
+        const u = source.nextDouble();
+        accept = u < Math.exp(lower) ? true : u >= Math.exp(upper) ? false : u < Math.exp(this.exactLogAccept(counts, squeeze, m, best, base));
+      } else {
+        const logAccept = this.exactLogAccept(counts, squeeze, m, best, base);
+        accept = logAccept >= 0 || source.nextDouble() < Math.exp(logAccept);
+      }
+      if (accept) {
         level.s = s;
         return m;
       }
     }
+  }
+
+  /**
+   * The squeeze of a level's counts with the peak `best` remembered, and the size from which it
+   * serves (above the table's end); null where counts are cheap.
+   */
+  private squeeze(counts: LogConcaveCounts | LogBoundedPartCounts, best: number): LevelSqueeze | null {
+    const q = this.options.tables.squeezeFor(counts);
+    if (q === null) return null;
+    const from = (counts as { exactUpTo: number }).exactUpTo;
+    const logBest = counts.log(best);
+    if (best > from) q.add(best, logBest);
+    return {
+      from,
+      bounds: (m, base) => {
+        const [lo, hi] = q.bounds(m);
+        return [lo - logBest + base - SQUEEZE_MARGIN, hi - logBest + base + SQUEEZE_MARGIN];
+      },
+      add: (m) => q.add(m, counts.log(m)),
+    };
+  }
+
+  /** log of the acceptance from the counts (stable log-ratio); remembers the count at m. */
+  private exactLogAccept(counts: LogConcaveCounts | LogBoundedPartCounts, squeeze: LevelSqueeze | null, m: number, best: number, base: number): number {
+    const logAccept = counts.logRatio(m, best) + base;
+    if (squeeze !== null && m > squeeze.from) squeeze.add(m);
+    return logAccept;
   }
 
   /**
@@ -325,14 +382,19 @@ export class MinPartSelfSimilarEngine {
     const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), reach);
     const logX = -boundedPartSaddle(a, b, n);
     const best = this.options.tables.boundedBest(counts, n, logX);
+    const squeeze = this.squeeze(counts, best);
     // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.
     for (;;) {
       const t = this.propose(source, n, s, b, logX, level, top, all);
       if (t < 0) continue;
       const j0 = level.xs % 2;
       const m = (n - t) / 2;
-      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
-      if (source.nextDouble() < Math.exp(logAccept)) {
+      const base = 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
+      const u = source.nextDouble();
+      // The squeeze decides most proposals above the table without the count at m (same decision).
+      const [lower, upper] = squeeze === null || m <= squeeze.from ? [-Infinity, Infinity] : squeeze.bounds(m, base);
+      const accept = u < Math.exp(lower) ? true : u >= Math.exp(upper) ? false : u < Math.exp(this.exactLogAccept(counts, squeeze, m, best, base));
+      if (accept) {
         level.s = s;
         return m;
       }
@@ -344,6 +406,20 @@ export class MinPartSelfSimilarEngine {
     return concaveMaximiser(counts, n, logX);
   }
 }
+
+/** What a level's acceptance test asks of the squeeze: bounds on logAccept at m given its other terms. */
+interface LevelSqueeze {
+  readonly from: number;
+  bounds(m: number, base: number): [number, number];
+  add(m: number): void;
+}
+
+/**
+ * Margin on the squeeze's bounds (in log): the remembered log-counts and the stable log-ratio
+ * the exact test uses agree within ~1e-11 (doubles of size <= ~3e4), so a decision outside the
+ * widened bounds is the exact test's decision.
+ */
+const SQUEEZE_MARGIN = 1e-8;
 
 /**
  * Margin on log M for the bounded levels: the acceptance is at most e^{−1e-9} < 1 wherever the
