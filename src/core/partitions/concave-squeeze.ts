@@ -15,7 +15,7 @@
  * Points are held in ascending order of m (at most LIMIT; then no more are added).
  */
 export class ConcaveSqueeze {
-  static readonly LIMIT = 4096;
+  static readonly LIMIT = 32_768;
   private readonly ms: number[] = [];
   private readonly vs: number[] = [];
 

@@ -7,6 +7,7 @@ import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal } from './boltzmann-proposal.js';
 import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
 import { ConcaveSqueeze } from './concave-squeeze.js';
+import { FallingDifferences } from './falling-differences.js';
 import { MinPartTable } from './min-part-table.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable } from './table-recursive.js';
@@ -102,12 +103,19 @@ export class MinPartSelfSimilarTables {
   }
 
   private readonly bests = new Map<string, number>();
+  /** The forward differences of each bounded count family computed by its maximisers (falling-differences.ts). */
+  private readonly differences = new WeakMap<LogBoundedPartCounts, FallingDifferences>();
   /** boundedMaximiser, remembered per (counts, n) (the top level repeats it for every sample). */
   boundedBest(counts: LogBoundedPartCounts, n: number, logX: number): number {
     const key = `${counts.a},${counts.b},${n}`;
     let best = this.bests.get(key);
     if (best === undefined) {
-      best = boundedMaximiser(counts, n, logX);
+      let differences = this.differences.get(counts);
+      if (differences === undefined) {
+        differences = new FallingDifferences((m) => counts.logRatio(m, m - 1));
+        this.differences.set(counts, differences);
+      }
+      best = boundedMaximiser(counts, n, logX, differences);
       if (this.bests.size >= 4096) this.bests.clear();
       this.bests.set(key, best);
     }
@@ -439,10 +447,20 @@ const MAX_MARGIN = 1e-9;
  * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
  * [a, b] miss some sizes); such m lie below from and are never the maximiser.
  */
-export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
+export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number, differences?: FallingDifferences): number {
   const half = Math.floor(n / 2);
   const weight = (m: number) => counts.log(m) + 2 * m * logX;
-  const rises = (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0; // D(m) > 0, exactly
+  // D(m) > 0, exactly (remembered in `differences` when given).
+  const rises = differences === undefined ? (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0 : (m: number) => differences.at(m) + 2 * logX > 0;
+  const from = Math.min(counts.logConcaveFrom(), half);
+  if (differences !== undefined) {
+    // Differences remembered from earlier sizes bracket the answer: the last m in [from, half]
+    // with D(m) > 0 lies in [good, bad); a narrow bracket is bisected directly.
+    const [g, h] = differences.bracket((d) => d + 2 * logX > 0);
+    const good = g > half ? half : Math.max(from, g);
+    const bad = Math.min(half + 1, h);
+    if (bad - good <= NARROW_BRACKET) return finishMaximiser(counts, from, good, bad, rises, weight);
+  }
   let guessT: number | undefined;
   const proxyRises = (m: number) => {
     if (m - 1 <= counts.exactUpTo) return rises(m);
@@ -450,7 +468,6 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     guessT = tm;
     return slope + 2 * logX > 0;
   };
-  const from = Math.min(counts.logConcaveFrom(), half);
   // Guess: the last m in [from, half] whose proxy rises.
   let good = from;
   let bad = half + 1;
@@ -478,6 +495,24 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     }
     bad = Math.min(half + 1, good + step);
   }
+  return finishMaximiser(counts, from, good, bad, rises, weight);
+}
+
+/** Brackets this narrow (sizes) are bisected with exact differences, without the proxy. */
+const NARROW_BRACKET = 4096;
+
+/**
+ * boundedMaximiser's end: bisection of [good, bad) (good = from or D(good) > 0; bad = half + 1
+ * or D(bad) <= 0) to the last m with D(m) > 0, then the sizes below from.
+ */
+function finishMaximiser(
+  counts: LogBoundedPartCounts,
+  from: number,
+  good: number,
+  bad: number,
+  rises: (m: number) => boolean,
+  weight: (m: number) => number,
+): number {
   while (bad - good > 1) {
     const mid = Math.floor((good + bad) / 2);
     if (rises(mid)) good = mid;
