@@ -51,3 +51,25 @@ export class FallingDifferences {
     return lo;
   }
 }
+
+/** Brackets this narrow (sizes) are bisected with exact differences (at most ~12 new ones). */
+export const NARROW_BRACKET = 4096;
+
+/**
+ * The last m in [from, half] whose difference rises (from itself when none), D falling on
+ * (from, half], when the remembered differences bracket it within NARROW_BRACKET sizes: a
+ * bisection of the bracket with exact (remembered) differences. null when the bracket is wider
+ * (the caller searches as it would without them).
+ */
+export function bracketedLastRise(differences: FallingDifferences, rises: (d: number) => boolean, from: number, half: number): number | null {
+  const [g, h] = differences.bracket(rises);
+  let good = g > half ? half : Math.max(from, g); // from, or D(good) rises
+  let bad = Math.min(half + 1, h); // half + 1, or D(bad) does not rise
+  if (bad - good > NARROW_BRACKET) return null;
+  while (bad - good > 1) {
+    const mid = Math.floor((good + bad) / 2);
+    if (rises(differences.at(mid))) good = mid;
+    else bad = mid;
+  }
+  return good;
+}

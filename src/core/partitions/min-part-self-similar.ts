@@ -7,7 +7,7 @@ import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal } from './boltzmann-proposal.js';
 import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
 import { ConcaveSqueeze } from './concave-squeeze.js';
-import { FallingDifferences } from './falling-differences.js';
+import { FallingDifferences, bracketedLastRise } from './falling-differences.js';
 import { MinPartTable } from './min-part-table.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable } from './table-recursive.js';
@@ -104,18 +104,22 @@ export class MinPartSelfSimilarTables {
 
   private readonly bests = new Map<string, number>();
   /** The forward differences of each bounded count family computed by its maximisers (falling-differences.ts). */
-  private readonly differences = new WeakMap<LogBoundedPartCounts, FallingDifferences>();
+  private readonly differences = new WeakMap<object, FallingDifferences>();
+  /** The remembered forward differences log c(m) − log c(m − 1) of a count family. */
+  differencesFor(counts: LogConcaveCounts | LogBoundedPartCounts): FallingDifferences {
+    let differences = this.differences.get(counts);
+    if (differences === undefined) {
+      differences = new FallingDifferences((m) => counts.logRatio(m, m - 1));
+      this.differences.set(counts, differences);
+    }
+    return differences;
+  }
   /** boundedMaximiser, remembered per (counts, n) (the top level repeats it for every sample). */
   boundedBest(counts: LogBoundedPartCounts, n: number, logX: number): number {
     const key = `${counts.a},${counts.b},${n}`;
     let best = this.bests.get(key);
     if (best === undefined) {
-      let differences = this.differences.get(counts);
-      if (differences === undefined) {
-        differences = new FallingDifferences((m) => counts.logRatio(m, m - 1));
-        this.differences.set(counts, differences);
-      }
-      best = boundedMaximiser(counts, n, logX, differences);
+      best = boundedMaximiser(counts, n, logX, this.differencesFor(counts));
       if (this.bests.size >= 4096) this.bests.clear();
       this.bests.set(key, best);
     }
@@ -409,9 +413,34 @@ export class MinPartSelfSimilarEngine {
     }
   }
 
-  /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment; concave-maximiser.ts). */
+  /**
+   * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment;
+   * concave-maximiser.ts). For the tabled-and-saddle counts (b' >= 2) the differences on the
+   * concave range are remembered across sizes (falling-differences.ts): a bracket from earlier
+   * sizes is bisected directly; otherwise concaveMaximiser runs on counts whose neighbour
+   * ratios are remembered. The same maximiser either way.
+   */
   maximiser(counts: LogConcaveCounts, n: number, logX: number): number {
-    return concaveMaximiser(counts, n, logX);
+    if (!('exactUpTo' in counts)) return concaveMaximiser(counts, n, logX);
+    const differences = this.options.tables.differencesFor(counts);
+    const half = Math.floor(n / 2);
+    const from = counts.logConcaveFrom();
+    if (half > from) {
+      let m = bracketedLastRise(differences, (d) => d + 2 * logX > 0, from, half);
+      if (m !== null) {
+        // concaveMaximiser's end: the sizes below from.
+        if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+          for (let k = 0; k < from; k++) if (counts.logRatio(k, m) + 2 * (k - m) * logX > 0) m = k;
+        }
+        return m;
+      }
+    }
+    const remembered: LogConcaveCounts = {
+      logRatio: (a, b) => (a === b + 1 && b >= from ? differences.at(a) : counts.logRatio(a, b)),
+      log: (m) => counts.log(m),
+      logConcaveFrom: () => from,
+    };
+    return concaveMaximiser(remembered, n, logX);
   }
 }
 
@@ -454,12 +483,9 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
   const rises = differences === undefined ? (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0 : (m: number) => differences.at(m) + 2 * logX > 0;
   const from = Math.min(counts.logConcaveFrom(), half);
   if (differences !== undefined) {
-    // Differences remembered from earlier sizes bracket the answer: the last m in [from, half]
-    // with D(m) > 0 lies in [good, bad); a narrow bracket is bisected directly.
-    const [g, h] = differences.bracket((d) => d + 2 * logX > 0);
-    const good = g > half ? half : Math.max(from, g);
-    const bad = Math.min(half + 1, h);
-    if (bad - good <= NARROW_BRACKET) return finishMaximiser(counts, from, good, bad, rises, weight);
+    // Differences remembered from earlier sizes bracket the answer (falling-differences.ts).
+    const m = bracketedLastRise(differences, (d) => d + 2 * logX > 0, from, half);
+    if (m !== null) return finishMaximiser(counts, from, m, m + 1, rises, weight);
   }
   let guessT: number | undefined;
   const proxyRises = (m: number) => {
@@ -497,9 +523,6 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
   }
   return finishMaximiser(counts, from, good, bad, rises, weight);
 }
-
-/** Brackets this narrow (sizes) are bisected with exact differences, without the proxy. */
-const NARROW_BRACKET = 4096;
 
 /**
  * boundedMaximiser's end: bisection of [good, bad) (good = from or D(good) > 0; bad = half + 1
