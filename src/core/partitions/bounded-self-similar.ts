@@ -59,9 +59,8 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = Math.max(1, distinct);
     // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
-    // (all odd sizes in [a, b] with x^k > e^{-40}) and one count; above the level's table the
-    // maximiser (proxy bisection: ~MAXIMISER_NEWTON Newton steps, then ~3 exact counts) and each
-    // count (a saddle-point integral, SADDLE_STEPS) dominate. Steps in units of one visited size.
+    // (all odd sizes in [a, b] with x^k > e^{-40}), and above the level's table the counts that
+    // the remembered ones do not serve (SQRT_STEPS).
     let work = 2 * this.expectedDistinct + 1000;
     let setup = 0;
     let cells = 0;
@@ -77,8 +76,7 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
-      if (size / 2 <= end) work += PROPOSALS * (odd + 2) + 2 * Math.log2(size);
-      else work += PROPOSALS * (odd + SADDLE_STEPS) + MAXIMISER_NEWTON * NEWTON_STEPS + 3 * SADDLE_STEPS;
+      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + 200);
       if (nextHi >= nextLo) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
@@ -109,11 +107,17 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
 /** Proposals per level (1/acceptance, measured ~1.3-1.6). */
 const PROPOSALS = 1.5;
 /**
- * A saddle-point count: ~25-40 trapezoid nodes of ~3 us (complex logarithms, or the
- * Euler–Maclaurin tail with its dilogarithm), ~50 visited sizes each (measured with work
- * counters while the method was built, and `npm run bench -- costs`).
+ * Steps (of this method's 30 ns row) per estimated odd size: ~120-170 ns measured per visited
+ * size at n = 1e8-1e9, and the estimate `odd` runs ~1.5x above the sizes visited (process CPU
+ * time after a 2.5 s warm-up; b = √n/4, √n, 2√n, and a = 7 with b = √n, n = 1e4-1e9: measured /
+ * estimated 0.5-1.5, 2.3-2.7 for b = √n/4 at n = 1e6-1e7; see work-costs.ts).
  */
-const SADDLE_STEPS = 1500;
-/** Newton steps of the maximiser's proxy bisection per level (~30 proxies), ~25 sizes' time each. */
-const MAXIMISER_NEWTON = 130;
-const NEWTON_STEPS = 25;
+const VISITED_STEPS = 3;
+/**
+ * A level above its count table: its counts (saddle-point integrals, ~50-100 µs each) are
+ * remembered across samples (the squeeze of the acceptance, the maximiser's differences), so
+ * what is left per sample is the share that still misses, which grows with the spread of the
+ * level's sizes: fitted 2.5·√size steps per such level (from ~40 µs of overhead per sample at
+ * n = 1e5 to ~3 ms at 1e9).
+ */
+const SQRT_STEPS = 2.5;

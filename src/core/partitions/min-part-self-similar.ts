@@ -590,20 +590,29 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     this.expectedDistinct = Math.max(1, e1 / -Math.expm1(-t));
     // Σ_{k>=1} x^k/(1 − x^k) ≈ (ln(1/t) + γ)/t + 1/4 (Lambert series at x = e^{−t}), minus sizes < a.
     this.expectedLength = Math.max(1, (Math.log(1 / t) + EULER_GAMMA) / t + 0.25 - partialLog(a, t));
-    // Per level: ~1.4 proposals × the proposal's visited sizes (≈ 1.2/t over odd sizes, measured
-    // for the unrestricted engine) + one count per proposal (≈ COUNT_NODES·b' steps) + the
-    // maximiser's bisection (~2·log₂ n counts).
-    let work = 2 * this.expectedDistinct + 1000;
+    // Fitted to the measured time per sample (scripts/bench/plan-fit.ts and a sweep of a = 2, 7,
+    // 30, 100 at n = 3e3..1e9, process CPU time after a warm-up, counts remembered): time ≈
+    // 300-400 ns per Boltzmann distinct size (the proposals' visited sizes at every level and the
+    // unrestricted engine below them) plus ~8-18 µs per level (proposals, the base table, the
+    // merge; a count above the table where the squeeze or the remembered differences miss). In
+    // steps of this method's row (60 ns): 5 per distinct size, a little more with more levels
+    // (more proposals per level as a grows), 130 per level and 12 per half-bound b' (the count
+    // terms). The maximiser's counts are remembered across samples (falling-differences.ts), so
+    // they are not charged per sample; counts above a level's table (b' of a few hundred: a
+    // saddle-point count costs ~b' terms, and more of them miss) add ~0.3·b'² per such level.
+    // Measured/estimated 0.6-1.5 over that sweep for a <= 100; for a = 481, 0.3-1.9 (the
+    // remembered counts still filling after 2.5 s of samples at n = 1e6-1e7).
+    let levels = 0;
+    let countWork = 0;
     let size = n;
     let b = a;
     while (b > 1 && size > baseThreshold) {
-      const tl = minPartSaddle(b, size);
-      const bp = Math.ceil(b / 2);
-      work += 1.4 * (1.2 / tl + COUNT_NODES * bp) + 2 * Math.log2(size) * COUNT_NODES * bp;
+      b = Math.ceil(b / 2);
+      countWork += 12 * b + (size / 2 > defaultExactUpTo(b) ? 0.3 * b * b : 0);
+      levels++;
       size = Math.round(size / 4);
-      b = bp;
     }
-    if (b === 1 && size > UNRESTRICTED_BASE) work += 2.3 * (Math.sqrt(6 * size) / Math.PI);
+    const work = 5 * this.expectedDistinct * (1 + levels / 20) + 130 * levels + countWork + 100;
     this.expectedWork = work;
     // Count tables for b' = ⌈a/2⌉, ⌈a/4⌉, ..., 2 and the base table.
     let setup = tables.table.size;
@@ -620,9 +629,6 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     return this.engine.sample(source, this.n, this.a, stats);
   }
 }
-
-/** Steps per count above the table: ~40 trapezoid nodes plus Newton, each over b' factors. */
-const COUNT_NODES = 50;
 
 const EULER_GAMMA = 0.5772156649015329;
 
