@@ -76,7 +76,7 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
-      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + 200);
+      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + NARROW_LEVEL_STEPS * Math.min(8, Math.sqrt(size) / hi));
       if (nextHi >= nextLo) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
@@ -106,18 +106,18 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
 
 /** Proposals per level (1/acceptance, measured ~1.3-1.6). */
 const PROPOSALS = 1.5;
-/**
- * Steps (of this method's 30 ns row) per estimated odd size: ~120-170 ns measured per visited
- * size at n = 1e8-1e9, and the estimate `odd` runs ~1.5x above the sizes visited (process CPU
- * time after a 2.5 s warm-up; b = √n/4, √n, 2√n, and a = 7 with b = √n, n = 1e4-1e9: measured /
- * estimated 0.5-1.5, 2.3-2.7 for b = √n/4 at n = 1e6-1e7; see work-costs.ts).
+/*
+ * The per-sample terms below were fitted to process CPU time after a 2.5 s warm-up (counts
+ * remembered), b = √n/4, √n, 2√n and a = 7 with b = √n at n = 1e4-1e9 (a sweep of
+ * BoundedSelfSimilarSampler; the planner's view of it is scripts/bench/plan-fit.ts):
+ * time ≈ 34 ns × PROPOSALS·(odd + 2) + 73 ns × √size per level above its table + ~30-130 µs per
+ * such level, more where b is small against √size (b = √n/4: the deeper levels' bounds are
+ * small and their counts miss more). Measured / estimated 0.6-1.6, 2-3 for b = √n/4 at
+ * n = 1e7-1e8. In steps of this method's 30 ns row:
  */
-const VISITED_STEPS = 3;
-/**
- * A level above its count table: its counts (saddle-point integrals, ~50-100 µs each) are
- * remembered across samples (the squeeze of the acceptance, the maximiser's differences), so
- * what is left per sample is the share that still misses, which grows with the spread of the
- * level's sizes: fitted 2.5·√size steps per such level (from ~40 µs of overhead per sample at
- * n = 1e5 to ~3 ms at 1e9).
- */
-const SQRT_STEPS = 2.5;
+/** Per estimated odd size of a proposal. */
+const VISITED_STEPS = 1.1;
+/** Per √size of a level above its count table (its counts the remembered ones miss). */
+const SQRT_STEPS = 2.4;
+/** Per level above its table, times √size / b (at most 8). */
+const NARROW_LEVEL_STEPS = 1100;
