@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving, costs) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving, costs, plan-fit) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
@@ -8,6 +8,7 @@ import { benchCosts } from './bench/costs.js';
 import { benchHttp } from './bench/http.js';
 import { benchSetPartitions } from './bench/set-partitions.js';
 import { benchLibrary } from './bench/library.js';
+import { benchPlanFit } from './bench/plan-fit.js';
 import { benchRanks } from './bench/ranks.js';
 import { benchServing } from './bench/serving.js';
 import { benchShapes } from './bench/shapes.js';
@@ -24,6 +25,7 @@ const sections: Record<string, () => Promise<void>> = {
   ranks: benchRanks,
   serving: benchServing,
   costs: benchCosts,
+  'plan-fit': () => benchPlanFit(),
 };
 
 const chosen = process.argv.slice(2);

@@ -52,6 +52,14 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'distinct-boltzmann/1': 95,
   'distinct-self-similar/1': 60,
   'distinct-bounded-self-similar/1': 40,
+  // The two self-similar rows below are kept; their cost functions (min-part-self-similar.ts,
+  // bounded-self-similar.ts) were refitted to them: `npm run bench -- plan-fit` (process CPU time
+  // after a warm-up, every eligible method of every shapes.ts family forced and timed beside its
+  // estimate) and a sweep at n = 3e3-1e9 measured 0.6-1.5x the estimate for minpart-self-similar
+  // (a = 2, 7, 30, 100) and 0.5-2.3x for bounded-self-similar (b = √n/4, √n, 2√n); before, the
+  // min-part estimate was 2-50x high at n <= 1e6 (a count per proposal and a maximiser per level
+  // charged that the tables and the remembered counts now serve), so the planner took
+  // bounded-boltzmann for parts >= 7 at n = 1e4 (measured 0.44 ms against 0.033 ms).
   'minpart-self-similar/1': 60,
   'bounded-self-similar/1': 30,
   'box-subset/1': 50,

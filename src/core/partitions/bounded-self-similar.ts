@@ -59,9 +59,8 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = Math.max(1, distinct);
     // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
-    // (all odd sizes in [a, b] with x^k > e^{-40}) and one count; above the level's table the
-    // maximiser (proxy bisection: ~MAXIMISER_NEWTON Newton steps, then ~3 exact counts) and each
-    // count (a saddle-point integral, SADDLE_STEPS) dominate. Steps in units of one visited size.
+    // (all odd sizes in [a, b] with x^k > e^{-40}), and above the level's table the counts that
+    // the remembered ones do not serve (SQRT_STEPS).
     let work = 2 * this.expectedDistinct + 1000;
     let setup = 0;
     let cells = 0;
@@ -77,8 +76,7 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
-      if (size / 2 <= end) work += PROPOSALS * (odd + 2) + 2 * Math.log2(size);
-      else work += PROPOSALS * (odd + SADDLE_STEPS) + MAXIMISER_NEWTON * NEWTON_STEPS + 3 * SADDLE_STEPS;
+      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + NARROW_LEVEL_STEPS * Math.min(8, Math.sqrt(size) / hi));
       if (nextHi >= nextLo) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
@@ -108,12 +106,18 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
 
 /** Proposals per level (1/acceptance, measured ~1.3-1.6). */
 const PROPOSALS = 1.5;
-/**
- * A saddle-point count: ~25-40 trapezoid nodes of ~3 us (complex logarithms, or the
- * Euler–Maclaurin tail with its dilogarithm), ~50 visited sizes each (measured with work
- * counters while the method was built, and `npm run bench -- costs`).
+/*
+ * The per-sample terms below were fitted to process CPU time after a 2.5 s warm-up (counts
+ * remembered), b = √n/4, √n, 2√n and a = 7 with b = √n at n = 1e4-1e9 (a sweep of
+ * BoundedSelfSimilarSampler; the planner's view of it is scripts/bench/plan-fit.ts):
+ * time ≈ 34 ns × PROPOSALS·(odd + 2) + 73 ns × √size per level above its table + ~30-130 µs per
+ * such level, more where b is small against √size (b = √n/4: the deeper levels' bounds are
+ * small and their counts miss more). Measured / estimated 0.6-1.6, 2-3 for b = √n/4 at
+ * n = 1e7-1e8. In steps of this method's 30 ns row:
  */
-const SADDLE_STEPS = 1500;
-/** Newton steps of the maximiser's proxy bisection per level (~30 proxies), ~25 sizes' time each. */
-const MAXIMISER_NEWTON = 130;
-const NEWTON_STEPS = 25;
+/** Per estimated odd size of a proposal. */
+const VISITED_STEPS = 1.1;
+/** Per √size of a level above its count table (its counts the remembered ones miss). */
+const SQRT_STEPS = 2.4;
+/** Per level above its table, times √size / b (at most 8). */
+const NARROW_LEVEL_STEPS = 1100;

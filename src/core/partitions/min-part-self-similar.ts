@@ -6,6 +6,8 @@ import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
 import { BoltzmannProposal } from './boltzmann-proposal.js';
 import { concaveMaximiser, type LogConcaveCounts } from './concave-maximiser.js';
+import { ConcaveSqueeze } from './concave-squeeze.js';
+import { FallingDifferences, bracketedLastRise } from './falling-differences.js';
 import { MinPartTable } from './min-part-table.js';
 import { SelfSimilarEngine } from './self-similar.js';
 import { RestrictedPartitionTable } from './table-recursive.js';
@@ -101,12 +103,23 @@ export class MinPartSelfSimilarTables {
   }
 
   private readonly bests = new Map<string, number>();
+  /** The forward differences of each bounded count family computed by its maximisers (falling-differences.ts). */
+  private readonly differences = new WeakMap<object, FallingDifferences>();
+  /** The remembered forward differences log c(m) − log c(m − 1) of a count family. */
+  differencesFor(counts: LogConcaveCounts | LogBoundedPartCounts): FallingDifferences {
+    let differences = this.differences.get(counts);
+    if (differences === undefined) {
+      differences = new FallingDifferences((m) => counts.logRatio(m, m - 1));
+      this.differences.set(counts, differences);
+    }
+    return differences;
+  }
   /** boundedMaximiser, remembered per (counts, n) (the top level repeats it for every sample). */
   boundedBest(counts: LogBoundedPartCounts, n: number, logX: number): number {
     const key = `${counts.a},${counts.b},${n}`;
     let best = this.bests.get(key);
     if (best === undefined) {
-      best = boundedMaximiser(counts, n, logX);
+      best = boundedMaximiser(counts, n, logX, this.differencesFor(counts));
       if (this.bests.size >= 4096) this.bests.clear();
       this.bests.set(key, best);
     }
@@ -123,6 +136,22 @@ export class MinPartSelfSimilarTables {
       this.boundedTables.set(top, t);
     }
     return t;
+  }
+
+  private readonly squeezes = new WeakMap<object, ConcaveSqueeze>();
+  /**
+   * The squeeze (concave-squeeze.ts) on the log-counts above a table's end, where they are the
+   * saddle-point values (concave: see the counts' files) and dear; null for counts without a
+   * table end (the partition numbers: a closed form, cheap).
+   */
+  squeezeFor(counts: LogConcaveCounts | LogBoundedPartCounts): ConcaveSqueeze | null {
+    if (!('exactUpTo' in counts)) return null;
+    let q = this.squeezes.get(counts);
+    if (q === undefined) {
+      q = new ConcaveSqueeze();
+      this.squeezes.set(counts, q);
+    }
+    return q;
   }
 
   /** log c_b for b >= 1 (b = 1: the partition numbers). */
@@ -253,17 +282,57 @@ export class MinPartSelfSimilarEngine {
     const logX = -minPartSaddle(b, n);
     const best = this.maximiser(counts, n, logX);
     const s = b % 2 === 1 ? b : b + 1;
+    const squeeze = this.squeeze(counts, best);
     for (;;) {
       const t = this.propose(source, n, s, Infinity, logX, level, top, all);
       if (t < 0) continue;
       const j0 = level.xs % 2;
       const m = (n - t) / 2;
-      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
-      if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) {
+      const base = 2 * (m - best) * logX + s * j0 * logX;
+      // Accept iff logAccept >= 0 or u < e^{logAccept}, u drawn only in the second case; the
+      // squeeze decides most proposals above the table without the count at m (same decision).
+      const [lower, upper] = squeeze === null || m <= squeeze.from ? [NaN, NaN] : squeeze.bounds(m, base);
+      let accept: boolean;
+      if (lower >= 0) accept = true;
+      else if (upper < 0) {
+        const u = source.nextDouble();
+        accept = u < Math.exp(lower) ? true : u >= Math.exp(upper) ? false : u < Math.exp(this.exactLogAccept(counts, squeeze, m, best, base));
+      } else {
+        const logAccept = this.exactLogAccept(counts, squeeze, m, best, base);
+        accept = logAccept >= 0 || source.nextDouble() < Math.exp(logAccept);
+      }
+      if (accept) {
         level.s = s;
         return m;
       }
     }
+  }
+
+  /**
+   * The squeeze of a level's counts with the peak `best` remembered, and the size from which it
+   * serves (above the table's end); null where counts are cheap.
+   */
+  private squeeze(counts: LogConcaveCounts | LogBoundedPartCounts, best: number): LevelSqueeze | null {
+    const q = this.options.tables.squeezeFor(counts);
+    if (q === null) return null;
+    const from = (counts as { exactUpTo: number }).exactUpTo;
+    const logBest = counts.log(best);
+    if (best > from) q.add(best, logBest);
+    return {
+      from,
+      bounds: (m, base) => {
+        const [lo, hi] = q.bounds(m);
+        return [lo - logBest + base - SQUEEZE_MARGIN, hi - logBest + base + SQUEEZE_MARGIN];
+      },
+      add: (m) => q.add(m, counts.log(m)),
+    };
+  }
+
+  /** log of the acceptance from the counts (stable log-ratio); remembers the count at m. */
+  private exactLogAccept(counts: LogConcaveCounts | LogBoundedPartCounts, squeeze: LevelSqueeze | null, m: number, best: number, base: number): number {
+    const logAccept = counts.logRatio(m, best) + base;
+    if (squeeze !== null && m > squeeze.from) squeeze.add(m);
+    return logAccept;
   }
 
   /**
@@ -325,25 +394,69 @@ export class MinPartSelfSimilarEngine {
     const counts = this.options.tables.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), reach);
     const logX = -boundedPartSaddle(a, b, n);
     const best = this.options.tables.boundedBest(counts, n, logX);
+    const squeeze = this.squeeze(counts, best);
     // M is taken MAX_MARGIN above the maximum found: a margin for the rounding of the log-counts.
     for (;;) {
       const t = this.propose(source, n, s, b, logX, level, top, all);
       if (t < 0) continue;
       const j0 = level.xs % 2;
       const m = (n - t) / 2;
-      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
-      if (source.nextDouble() < Math.exp(logAccept)) {
+      const base = 2 * (m - best) * logX + s * j0 * logX - MAX_MARGIN;
+      const u = source.nextDouble();
+      // The squeeze decides most proposals above the table without the count at m (same decision).
+      const [lower, upper] = squeeze === null || m <= squeeze.from ? [-Infinity, Infinity] : squeeze.bounds(m, base);
+      const accept = u < Math.exp(lower) ? true : u >= Math.exp(upper) ? false : u < Math.exp(this.exactLogAccept(counts, squeeze, m, best, base));
+      if (accept) {
         level.s = s;
         return m;
       }
     }
   }
 
-  /** argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment; concave-maximiser.ts). */
+  /**
+   * argmax over integers 0 <= m <= n/2 of log c(m) + 2m·logX (see the class comment;
+   * concave-maximiser.ts). For the tabled-and-saddle counts (b' >= 2) the differences on the
+   * concave range are remembered across sizes (falling-differences.ts): a bracket from earlier
+   * sizes is bisected directly; otherwise concaveMaximiser runs on counts whose neighbour
+   * ratios are remembered. The same maximiser either way.
+   */
   maximiser(counts: LogConcaveCounts, n: number, logX: number): number {
-    return concaveMaximiser(counts, n, logX);
+    if (!('exactUpTo' in counts)) return concaveMaximiser(counts, n, logX);
+    const differences = this.options.tables.differencesFor(counts);
+    const half = Math.floor(n / 2);
+    const from = counts.logConcaveFrom();
+    if (half > from) {
+      let m = bracketedLastRise(differences, (d) => d + 2 * logX > 0, from, half);
+      if (m !== null) {
+        // concaveMaximiser's end: the sizes below from.
+        if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+          for (let k = 0; k < from; k++) if (counts.logRatio(k, m) + 2 * (k - m) * logX > 0) m = k;
+        }
+        return m;
+      }
+    }
+    const remembered: LogConcaveCounts = {
+      logRatio: (a, b) => (a === b + 1 && b >= from ? differences.at(a) : counts.logRatio(a, b)),
+      log: (m) => counts.log(m),
+      logConcaveFrom: () => from,
+    };
+    return concaveMaximiser(remembered, n, logX);
   }
 }
+
+/** What a level's acceptance test asks of the squeeze: bounds on logAccept at m given its other terms. */
+interface LevelSqueeze {
+  readonly from: number;
+  bounds(m: number, base: number): [number, number];
+  add(m: number): void;
+}
+
+/**
+ * Margin on the squeeze's bounds (in log): the remembered log-counts and the stable log-ratio
+ * the exact test uses agree within ~1e-11 (doubles of size <= ~3e4), so a decision outside the
+ * widened bounds is the exact test's decision.
+ */
+const SQUEEZE_MARGIN = 1e-8;
 
 /**
  * Margin on log M for the bounded levels: the acceptance is at most e^{−1e-9} < 1 wherever the
@@ -363,10 +476,17 @@ const MAX_MARGIN = 1e-9;
  * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
  * [a, b] miss some sizes); such m lie below from and are never the maximiser.
  */
-export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
+export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number, differences?: FallingDifferences): number {
   const half = Math.floor(n / 2);
   const weight = (m: number) => counts.log(m) + 2 * m * logX;
-  const rises = (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0; // D(m) > 0, exactly
+  // D(m) > 0, exactly (remembered in `differences` when given).
+  const rises = differences === undefined ? (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0 : (m: number) => differences.at(m) + 2 * logX > 0;
+  const from = Math.min(counts.logConcaveFrom(), half);
+  if (differences !== undefined) {
+    // Differences remembered from earlier sizes bracket the answer (falling-differences.ts).
+    const m = bracketedLastRise(differences, (d) => d + 2 * logX > 0, from, half);
+    if (m !== null) return finishMaximiser(counts, from, m, m + 1, rises, weight);
+  }
   let guessT: number | undefined;
   const proxyRises = (m: number) => {
     if (m - 1 <= counts.exactUpTo) return rises(m);
@@ -374,7 +494,6 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     guessT = tm;
     return slope + 2 * logX > 0;
   };
-  const from = Math.min(counts.logConcaveFrom(), half);
   // Guess: the last m in [from, half] whose proxy rises.
   let good = from;
   let bad = half + 1;
@@ -402,6 +521,21 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     }
     bad = Math.min(half + 1, good + step);
   }
+  return finishMaximiser(counts, from, good, bad, rises, weight);
+}
+
+/**
+ * boundedMaximiser's end: bisection of [good, bad) (good = from or D(good) > 0; bad = half + 1
+ * or D(bad) <= 0) to the last m with D(m) > 0, then the sizes below from.
+ */
+function finishMaximiser(
+  counts: LogBoundedPartCounts,
+  from: number,
+  good: number,
+  bad: number,
+  rises: (m: number) => boolean,
+  weight: (m: number) => number,
+): number {
   while (bad - good > 1) {
     const mid = Math.floor((good + bad) / 2);
     if (rises(mid)) good = mid;
@@ -456,20 +590,29 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     this.expectedDistinct = Math.max(1, e1 / -Math.expm1(-t));
     // Σ_{k>=1} x^k/(1 − x^k) ≈ (ln(1/t) + γ)/t + 1/4 (Lambert series at x = e^{−t}), minus sizes < a.
     this.expectedLength = Math.max(1, (Math.log(1 / t) + EULER_GAMMA) / t + 0.25 - partialLog(a, t));
-    // Per level: ~1.4 proposals × the proposal's visited sizes (≈ 1.2/t over odd sizes, measured
-    // for the unrestricted engine) + one count per proposal (≈ COUNT_NODES·b' steps) + the
-    // maximiser's bisection (~2·log₂ n counts).
-    let work = 2 * this.expectedDistinct + 1000;
+    // Fitted to the measured time per sample (scripts/bench/plan-fit.ts and a sweep of a = 2, 7,
+    // 30, 100 at n = 3e3..1e9, process CPU time after a warm-up, counts remembered): time ≈
+    // 300-400 ns per Boltzmann distinct size (the proposals' visited sizes at every level and the
+    // unrestricted engine below them) plus ~8-18 µs per level (proposals, the base table, the
+    // merge; a count above the table where the squeeze or the remembered differences miss). In
+    // steps of this method's row (60 ns): 5 per distinct size, a little more with more levels
+    // (more proposals per level as a grows), 130 per level and 12 per half-bound b' (the count
+    // terms). The maximiser's counts are remembered across samples (falling-differences.ts), so
+    // they are not charged per sample; counts above a level's table (b' of a few hundred: a
+    // saddle-point count costs ~b' terms, and more of them miss) add ~0.3·b'² per such level.
+    // Measured/estimated 0.6-1.5 over that sweep for a <= 100; for a = 481, 0.3-1.9 (the
+    // remembered counts still filling after 2.5 s of samples at n = 1e6-1e7).
+    let levels = 0;
+    let countWork = 0;
     let size = n;
     let b = a;
     while (b > 1 && size > baseThreshold) {
-      const tl = minPartSaddle(b, size);
-      const bp = Math.ceil(b / 2);
-      work += 1.4 * (1.2 / tl + COUNT_NODES * bp) + 2 * Math.log2(size) * COUNT_NODES * bp;
+      b = Math.ceil(b / 2);
+      countWork += 12 * b + (size / 2 > defaultExactUpTo(b) ? 0.3 * b * b : 0);
+      levels++;
       size = Math.round(size / 4);
-      b = bp;
     }
-    if (b === 1 && size > UNRESTRICTED_BASE) work += 2.3 * (Math.sqrt(6 * size) / Math.PI);
+    const work = 5 * this.expectedDistinct * (1 + levels / 20) + 130 * levels + countWork + 100;
     this.expectedWork = work;
     // Count tables for b' = ⌈a/2⌉, ⌈a/4⌉, ..., 2 and the base table.
     let setup = tables.table.size;
@@ -486,9 +629,6 @@ export class MinPartSelfSimilarSampler implements PartitionSampler {
     return this.engine.sample(source, this.n, this.a, stats);
   }
 }
-
-/** Steps per count above the table: ~40 trapezoid nodes plus Newton, each over b' factors. */
-const COUNT_NODES = 50;
 
 const EULER_GAMMA = 0.5772156649015329;
 
