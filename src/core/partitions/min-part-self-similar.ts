@@ -361,11 +361,44 @@ const MAX_MARGIN = 1e-9;
  * the proxy's error; it only sets the number of exact steps, ~2·log₂ of the guess's distance).
  * Below from, the sizes m' < from are scanned unless the peak's weight is at least
  * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
- * [a, b] miss some sizes); such m lie below from and are never the maximiser.
+ * [a, b] miss some sizes); such m lie below from and are never the maximiser. While the table is
+ * not filled (large smallest parts: the sizes a level reaches lie far above it), the search runs
+ * above the table only and the weights below are bounded in closed form (logWeightBound), so the
+ * table is filled only if a proposal lands there.
  */
 export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number): number {
   const half = Math.floor(n / 2);
-  const weight = (m: number) => counts.log(m) + 2 * m * logX;
+  // Table not filled yet: search the main-arc sizes above it, and keep the result when the
+  // bound on every weight below it (logWeightBound) is under it. Where the weight is unimodal
+  // this is the maximiser the search with the table finds (the same values), so the choice
+  // does not depend on whether an earlier sample filled the table.
+  const above = counts.exactUpTo + 1;
+  if (!counts.tableFilled && above < half) {
+    const m = concaveArgmax(counts, above, half, logX);
+    if (counts.log(m) + 2 * m * logX > counts.logWeightBound(counts.exactUpTo, 2 * logX)) return m;
+  }
+  const from = Math.min(counts.logConcaveFrom(), half);
+  let m = concaveArgmax(counts, from, half, logX);
+  const weight = (k: number) => counts.log(k) + 2 * k * logX;
+  if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
+    let best = weight(m);
+    for (let k = 0; k < from; k++) {
+      const w = weight(k);
+      if (w > best) {
+        best = w;
+        m = k;
+      }
+    }
+  }
+  return m;
+}
+
+/**
+ * The last m in [from, half] whose forward difference D(m) = w(m) − w(m − 1) is positive (from
+ * when none), w(m) = log c(m) + 2m·logX concave on [from, half]: a guess by bisection on the
+ * slope proxy, then galloping and bisection on exact differences. Counts below `from` are not read.
+ */
+function concaveArgmax(counts: LogBoundedPartCounts, from: number, half: number, logX: number): number {
   const rises = (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0; // D(m) > 0, exactly
   let guessT: number | undefined;
   const proxyRises = (m: number) => {
@@ -374,7 +407,6 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     guessT = tm;
     return slope + 2 * logX > 0;
   };
-  const from = Math.min(counts.logConcaveFrom(), half);
   // Guess: the last m in [from, half] whose proxy rises.
   let good = from;
   let bad = half + 1;
@@ -407,18 +439,7 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     if (rises(mid)) good = mid;
     else bad = mid;
   }
-  let m = good;
-  if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
-    let best = weight(m);
-    for (let k = 0; k < from; k++) {
-      const w = weight(k);
-      if (w > best) {
-        best = w;
-        m = k;
-      }
-    }
-  }
-  return m;
+  return good;
 }
 
 /** The method as a planner sampler for one (n, a), a >= 2. */
