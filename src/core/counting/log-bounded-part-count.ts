@@ -186,7 +186,7 @@ export class LogBoundedPartCounts {
 }
 
 /** c(m) for m <= end, factor by factor: c(m) += c(m − k) for k = a, ..., b (positive additions only). */
-function countsByFactors(a: number, b: number, end: number): Float64Array {
+export function countsByFactors(a: number, b: number, end: number): Float64Array {
   const c = new Float64Array(end + 1);
   c[0] = 1;
   const top = Math.min(b, end);
@@ -211,7 +211,7 @@ function factorWork(a: number, b: number, end: number): number {
  * (end/a)·end steps. Checked against the factor table (relative differences ~1e-14,
  * test/partitions/log-bounded-part-count.test.ts).
  */
-function countsByParts(a: number, b: number, end: number): Float64Array {
+export function countsByParts(a: number, b: number, end: number): Float64Array {
   const c = new Float64Array(end + 1);
   c[0] = 1;
   let previous = new Float64Array(end + 1);
