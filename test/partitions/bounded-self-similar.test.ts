@@ -23,6 +23,9 @@ describe('bounded-self-similar is exactly uniform (chi-square over the enumerate
     [50, 7, 20, 0],
     [40, 2, 5, 5],
     [28, 1, 28, 0],
+    // Large smallest parts: the levels' count tables are filled by number of parts.
+    [50, 8, 25, 0],
+    [48, 6, 24, 0],
   ];
   for (const [n, a, b, base] of cases) {
     it(`n = ${n}, parts in [${a}, ${b}], base threshold ${base}`, () => {
