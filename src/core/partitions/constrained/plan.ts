@@ -233,10 +233,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       const sampler = new MinPartSelfSimilarSampler(n, lo);
       prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     }
-    if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
+    const largeMinPart = open && lo > MinPartSelfSimilarSampler.MAX_A;
+    if (!distinct && sizes.kind === 'interval' && (sizes.hi < n || largeMinPart) && sizes.lo <= sizes.hi) {
       // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
       // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
-      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
+      // Parts >= a alone with a above minpart-self-similar's range: the same with b = n (no part
+      // exceeds n), its upper levels' counts main-arc integrals over tables left unfilled.
+      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), Math.min(sizes.hi, n));
       prepared(sampler, sampler.fitsLimits());
     }
   }
