@@ -372,13 +372,17 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
   // bound on every weight below it (logWeightBound) is under it. Where the weight is unimodal
   // this is the maximiser the search with the table finds (the same values), so the choice
   // does not depend on whether an earlier sample filled the table.
+  // When the bound does not decide, a maximiser found strictly above `above` (D(m) > 0 there) is
+  // also the last rise on the table's concave range, so only the scan below it remains.
   const above = counts.exactUpTo + 1;
+  let interior: number | null = null;
   if (!counts.tableFilled && above < half) {
     const m = concaveArgmax(counts, above, half, logX);
     if (counts.log(m) + 2 * m * logX > counts.logWeightBound(counts.exactUpTo, 2 * logX)) return m;
+    if (m > above) interior = m;
   }
   const from = Math.min(counts.logConcaveFrom(), half);
-  let m = concaveArgmax(counts, from, half, logX);
+  let m = interior ?? concaveArgmax(counts, from, half, logX);
   const weight = (k: number) => counts.log(k) + 2 * k * logX;
   if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
     let best = weight(m);
