@@ -53,7 +53,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
  *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
- *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
+ *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481), larger a
+ *   by bounded-self-similar with b = n (its upper levels' tables stay unfilled; 6-20 ms CPU per
+ *   sample for a = 524-41,380 at 6e7-1e9, scripts/scan-families.ts); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
  *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5).
