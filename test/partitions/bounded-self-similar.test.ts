@@ -23,6 +23,9 @@ describe('bounded-self-similar is exactly uniform (chi-square over the enumerate
     [50, 7, 20, 0],
     [40, 2, 5, 5],
     [28, 1, 28, 0],
+    // Large smallest parts: the levels' count tables are filled by number of parts.
+    [50, 8, 25, 0],
+    [48, 6, 24, 0],
   ];
   for (const [n, a, b, base] of cases) {
     it(`n = ${n}, parts in [${a}, ${b}], base threshold ${base}`, () => {
@@ -94,6 +97,29 @@ describe('bounded-self-similar internals', () => {
     }
   });
 
+  it('finds the same maximiser with its table unfilled (closed-form bound below it) as filled', () => {
+    // Levels of parts in [49392, 496281] of 668774003 (sizes n/4^l, bounds halved): the bound
+    // decides at the upper ones; from 163275 on the sizes come within a few standard deviations
+    // of the table's end, the bound does not decide and the table is filled.
+    const unfilled: boolean[] = [];
+    for (const [n, a, b] of [
+      [2_612_399, 3087, 31_017],
+      [653_100, 1544, 15_508],
+      [163_275, 772, 7754],
+      [40_819, 386, 3877],
+    ]) {
+      const fresh = new MinPartSelfSimilarTables(60);
+      const counts = fresh.boundedCountsFor(Math.ceil(a / 2), Math.floor(b / 2), Math.floor(n / 2));
+      const logX = -boundedPartSaddle(a, b, n);
+      const found = boundedMaximiser(counts, n, logX);
+      unfilled.push(!counts.tableFilled);
+      counts.value(0);
+      expect(counts.tableFilled).toBe(true);
+      expect(boundedMaximiser(counts, n, logX), `n ${n}`).toBe(found);
+    }
+    expect(unfilled).toEqual([true, true, false, false]);
+  });
+
   it('returns valid partitions with parts in [a, b] at large n', () => {
     for (const [n, a, b] of [
       [1e6, 1, 1000],
@@ -104,6 +130,9 @@ describe('bounded-self-similar internals', () => {
       // b far above √n: the tail beyond b vanishes in doubles (e^{−bt} underflows).
       [1e9, 1, 5e8],
       [1e6, 3, 999_999],
+      // Parts far above √n (a ~ 1.9 √n, ~8300 parts): the top levels' counts are main-arc
+      // integrals whose tables stay unfilled.
+      [668_774_003, 49_392, 496_281],
     ]) {
       const sampler = new BoundedSelfSimilarSampler(n, a, b);
       for (let i = 0; i < 2; i++) {

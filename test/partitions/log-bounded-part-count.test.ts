@@ -4,6 +4,8 @@ import {
   LogBoundedPartCounts,
   arcDamping,
   boundedPartSaddle,
+  countsByFactors,
+  countsByParts,
   mainArcStart,
 } from '../../src/core/counting/log-bounded-part-count.js';
 import { exactBoundedCounts } from '../support/bounded-laws.js';
@@ -107,4 +109,74 @@ describe('log c_{[a,b]}(m): partitions into parts in [a, b]', () => {
       }
     }
   });
+});
+
+describe('the count table: by factors, or by number of parts where few parts fit', () => {
+  // [a, b, end]: few parts (end / a well below b − a, the planner's large-minPart levels), and
+  // nearly full boxes (b − a small), where the mirror T(j, m) = T(j, j(a + b) − m) does the work.
+  const cases: Array<[number, number, number]> = [
+    [386, 3877, 12_000],
+    [97, 969, 8800],
+    [49, 484, 5624],
+    [7, 30, 3000],
+    [5, 8, 400],
+    [20, 25, 2000],
+    [1, 5, 500],
+    [100, 101, 5000],
+  ];
+  for (const [a, b, end] of cases) {
+    it(`[${a}, ${b}] up to ${end}: both agree with exact BigInt counts`, () => {
+      const exact = exactBoundedCounts(a, b, end);
+      const byParts = countsByParts(a, b, end);
+      const byFactors = countsByFactors(a, b, end);
+      let worst = 0;
+      for (let m = 0; m <= end; m++) {
+        const e = exact[m];
+        if (e === 0n) {
+          expect(byParts[m], `c(${m})`).toBe(0);
+          expect(byFactors[m], `c(${m})`).toBe(0);
+          continue;
+        }
+        const log = exactLog(e);
+        worst = Math.max(worst, Math.abs(Math.log(byParts[m]) - log), Math.abs(Math.log(byFactors[m]) - log));
+      }
+      // Relative errors of ~(number of steps) roundings: measured up to 4e-13 for [7, 30].
+      expect(worst).toBeLessThan(1e-12);
+    });
+  }
+
+  it('is filled on first use only', () => {
+    const counts = new LogBoundedPartCounts(386, 3877, 12_000);
+    expect(counts.tableFilled).toBe(false);
+    expect(counts.logWeightBound(12_000, -1e-3)).toBeGreaterThan(0);
+    expect(counts.tableFilled).toBe(false);
+    expect(counts.value(5000)).toBeGreaterThan(0);
+    expect(counts.tableFilled).toBe(true);
+  });
+});
+
+describe('logWeightBound: a closed-form bound on the weights below a table', () => {
+  // max_{m <= m0} log c(m) + m·slope against the exact table, for slopes around the saddle
+  // points of sizes near and far above m0 (the maximiser's use: m0 the table end).
+  const cases: Array<[number, number, number]> = [
+    [386, 3877, 12_000],
+    [49, 484, 5624],
+    [7, 100, 4000],
+    [1, 60, 3000],
+  ];
+  for (const [a, b, m0] of cases) {
+    it(`[${a}, ${b}], m0 = ${m0}: at or above the exact maximum, and within a few units of it`, () => {
+      const exact = exactBoundedCounts(a, b, m0);
+      const counts = new LogBoundedPartCounts(a, b, 0);
+      for (const factor of [1, 1.5, 3, 10]) {
+        const slope = -boundedPartSaddle(a, b, factor * m0);
+        let best = -Infinity;
+        for (let m = 0; m <= m0; m++) if (exact[m] > 0n) best = Math.max(best, exactLog(exact[m]) + m * slope);
+        const bound = counts.logWeightBound(m0, slope);
+        expect(bound, `slope ${slope}`).toBeGreaterThanOrEqual(best);
+        // Chernoff at m0 is loose by about log(sd · √(2π)) of the size law there.
+        expect(bound - best, `slope ${slope}`).toBeLessThan(12);
+      }
+    });
+  }
 });

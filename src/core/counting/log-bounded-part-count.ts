@@ -8,7 +8,7 @@ import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
  * finite; OEIS A008284 row sums / A026820 for a = 1: partitions of m into parts <= b), for
  * 0 <= m <= 1e9, with log-ratios log(c(m1)/c(m2)).
  *
- * - m <= exactUpTo: a table filled factor by factor, c(m) += c(m − k) for k = a, ..., b (the
+ * - m <= exactUpTo: a table (filled on the first request that needs it) built factor by factor, c(m) += c(m − k) for k = a, ..., b (the
  *   generating function Π_{k=a}^{b} 1/(1 − q^k)); additions of positive numbers only, so each
  *   double carries a relative error of at most ~m roundings.
  * - m > exactUpTo: the saddle-point integral of the circle method's main arc,
@@ -51,8 +51,8 @@ export class LogBoundedPartCounts {
   /** Largest m accepted (the service's limit on n). */
   static readonly MAX_M = 1_000_000_000;
 
-  private readonly exact: Float64Array;
-  private readonly logExact: Float64Array;
+  /** The table (c and log c up to exactUpTo), filled on the first request that needs it. */
+  private filled: { readonly exact: Float64Array; readonly logExact: Float64Array } | null = null;
   private readonly memo = new SaddleMemo((m) => computeSaddle(this.shape, m));
   private concaveFrom = -1;
   private prefixMax: Float64Array | null = null;
@@ -68,20 +68,46 @@ export class LogBoundedPartCounts {
     if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be an integer >= 1, got ${a}`);
     if (!Number.isInteger(b) || b < 0) throw new RangeError(`b must be a non-negative integer, got ${b}`);
     if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
-    const c = new Float64Array(exactUpTo + 1);
-    c[0] = 1;
-    const top = Math.min(b, exactUpTo);
-    for (let k = a; k <= top; k++) for (let m = k; m <= exactUpTo; m++) c[m] += c[m - k];
-    this.exact = c;
-    this.logExact = c.map(Math.log);
     this.shape = direct ? { a, b, direct: true, headDirect: true } : shapeOf(a, b);
   }
 
-  /** Additions done by the constructor (setup work). */
+  /**
+   * The table, filled on first use (setupWork additions): a sampler whose sizes all lie where
+   * the main arc is accurate never fills it (boundedMaximiser bounds the weights below it by
+   * logWeightBound instead of scanning them).
+   */
+  private table(): { readonly exact: Float64Array; readonly logExact: Float64Array } {
+    if (this.filled === null) {
+      const { a, b, exactUpTo } = this;
+      const c = partsWork(a, b, exactUpTo) < factorWork(a, b, exactUpTo) ? countsByParts(a, b, exactUpTo) : countsByFactors(a, b, exactUpTo);
+      this.filled = { exact: c, logExact: c.map(Math.log) };
+    }
+    return this.filled;
+  }
+
+  /** Whether the table has been filled (a sampler's first requests below exactUpTo fill it). */
+  get tableFilled(): boolean {
+    return this.filled !== null;
+  }
+
+  /**
+   * An upper bound on max_{0 <= m <= m0} [log c(m) + m·slope] (slope < 0) without the table:
+   * for every τ > 0, c(m) e^{−τm} <= Σ_j c(j) e^{−τj} = exp L(τ) (all terms positive), so
+   * log c(m) + m·slope <= L(τ) + m(τ + slope) <= L(τ) + m0(τ + slope) when τ >= −slope; τ is the
+   * saddle point of m0 (the Chernoff bound at m0) when that is >= −slope, else −slope. Rounded
+   * up by 1e-9 relative plus 1e-6 (L by the same sums as the counts, relative error ~1e-15).
+   */
+  logWeightBound(m0: number, slope: number): number {
+    if (!(slope < 0)) throw new RangeError(`the slope must be negative, got ${slope}`);
+    if (m0 < 1 || this.b < this.a) return 0;
+    const tau = Math.max(-slope, boundedSaddle(this.shape, m0));
+    const bound = realL(this.shape, tau) + m0 * (tau + slope);
+    return bound + 1e-9 * Math.abs(bound) + 1e-6;
+  }
+
+  /** Additions filling the table (setup work, paid on its first use). */
   static setupWork(a: number, b: number, exactUpTo: number): number {
-    let work = 0;
-    for (let k = a; k <= Math.min(b, exactUpTo); k++) work += exactUpTo - k + 1;
-    return work;
+    return Math.min(factorWork(a, b, exactUpTo), partsWork(a, b, exactUpTo));
   }
 
   /** Whether m lies where the main arc is accurate (or in the table). */
@@ -96,7 +122,7 @@ export class LogBoundedPartCounts {
    */
   logConcaveFrom(): number {
     if (this.concaveFrom < 0) {
-      const c = this.exact;
+      const c = this.table().exact;
       let from = 0;
       // A zero inside counts as a failure too (a log-concave sequence has no internal zeros).
       for (let m = 1; m < this.exactUpTo; m++) if (c[m] === 0 || c[m] * c[m] < c[m - 1] * c[m + 1]) from = m;
@@ -109,8 +135,9 @@ export class LogBoundedPartCounts {
   logMaxUpTo(m: number): number {
     if (this.prefixMax === null) {
       const p = new Float64Array(this.exactUpTo + 1);
+      const { logExact } = this.table();
       let best = -Infinity;
-      for (let i = 0; i <= this.exactUpTo; i++) p[i] = best = Math.max(best, this.logExact[i]);
+      for (let i = 0; i <= this.exactUpTo; i++) p[i] = best = Math.max(best, logExact[i]);
       this.prefixMax = p;
     }
     return this.prefixMax[m];
@@ -119,13 +146,13 @@ export class LogBoundedPartCounts {
   /** c(m) as a double, m <= exactUpTo. */
   value(m: number): number {
     if (!(m <= this.exactUpTo)) throw new RangeError(`c(m) as a double is tabulated up to ${this.exactUpTo}, got ${m}`);
-    return this.exact[m];
+    return this.table().exact[m];
   }
 
   /** log c(m) (−Infinity where c(m) = 0). */
   log(m: number): number {
     checkArgument(m);
-    if (m <= this.exactUpTo) return this.logExact[m];
+    if (m <= this.exactUpTo) return this.table().logExact[m];
     if (this.b < this.a) return -Infinity;
     const s = this.memo.get(m);
     return s.phi + s.logI;
@@ -134,7 +161,10 @@ export class LogBoundedPartCounts {
   /** log(c(m1)/c(m2)) (NaN when both are 0). */
   logRatio(m1: number, m2: number): number {
     if (m1 === m2) return 0;
-    if (m1 <= this.exactUpTo && m2 <= this.exactUpTo) return Math.log(this.exact[m1] / this.exact[m2]);
+    if (m1 <= this.exactUpTo && m2 <= this.exactUpTo) {
+      const { exact } = this.table();
+      return Math.log(exact[m1] / exact[m2]);
+    }
     if (m1 <= this.exactUpTo || m2 <= this.exactUpTo || this.b < this.a) return this.log(m1) - this.log(m2);
     const s1 = this.memo.get(m1);
     const s2 = this.memo.get(m2);
@@ -153,6 +183,64 @@ export class LogBoundedPartCounts {
     const w0 = realDerivatives(this.shape, m - 1, tm + d)[1];
     return [tm - 0.5 * Math.log1p((w1 - w0) / w0), tm];
   }
+}
+
+/** c(m) for m <= end, factor by factor: c(m) += c(m − k) for k = a, ..., b (positive additions only). */
+export function countsByFactors(a: number, b: number, end: number): Float64Array {
+  const c = new Float64Array(end + 1);
+  c[0] = 1;
+  const top = Math.min(b, end);
+  for (let k = a; k <= top; k++) for (let m = k; m <= end; m++) c[m] += c[m - k];
+  return c;
+}
+
+function factorWork(a: number, b: number, end: number): number {
+  const top = Math.min(b, end);
+  return top < a ? 0 : ((top - a + 1) * (2 * end - a - top + 2)) / 2;
+}
+
+/**
+ * Where few parts fit (end / a well below b − a), the same counts by number of parts: with
+ * T(j, m) the partitions of m into exactly j parts in [a, b], c(m) = Σ_j T(j, m) and
+ *   T(j, m) = T(j − 1, m − a) + [T(j, m − j) − T(j − 1, m − j − b)]
+ * (a part equal to a, removed; else every part in [a + 1, b], less 1 each: j parts in [a, b − 1]
+ * of m − j, which are those in [a, b] less the ones with a part b, removed), T(0, 0) = 1; and
+ * T(j, m) = T(j, j(a + b) − m) (each part p ↔ a + b − p). The recurrence is used up to the middle
+ * j(a + b)/2 only, where the bracket, a count itself, is not a near-cancellation (few of those
+ * partitions have a part b); the upper half is the mirror. Two rows of end + 1 doubles, about
+ * (end/a)·end steps. Checked against the factor table (relative differences ~1e-14,
+ * test/partitions/log-bounded-part-count.test.ts).
+ */
+export function countsByParts(a: number, b: number, end: number): Float64Array {
+  const c = new Float64Array(end + 1);
+  c[0] = 1;
+  let previous = new Float64Array(end + 1);
+  previous[0] = 1;
+  let row = new Float64Array(end + 1);
+  for (let j = 1; j * a <= end; j++) {
+    row.fill(0);
+    const top = Math.min(j * b, end);
+    const span = j * (a + b);
+    const middle = Math.floor(span / 2);
+    for (let m = j * a; m <= top; m++) {
+      let v: number;
+      if (m > middle) v = row[span - m];
+      else {
+        const rest = m - j;
+        v = previous[m - a] + (row[rest] - (rest - b >= 0 ? previous[rest - b] : 0));
+      }
+      row[m] = v;
+      c[m] += v;
+    }
+    [previous, row] = [row, previous];
+  }
+  return c;
+}
+
+function partsWork(a: number, b: number, end: number): number {
+  let work = 0;
+  for (let j = 1; j * a <= end; j++) work += Math.min(j * b, end) - j * a + 1;
+  return 2 * work;
 }
 
 /** How L is evaluated for [a, b]. */

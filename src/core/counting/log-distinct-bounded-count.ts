@@ -76,8 +76,9 @@ export class LogDistinctBoundedCounts {
     return this.logTable!;
   }
 
-  /** Additions done by the constructor (setup work). */
+  /** Additions filling the table (setup work, paid on its first use). */
   static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a)): number {
+    if (b === Infinity) return byPartsWork(a, exactUpTo);
     let sum = 0;
     for (let k = a; k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
     return sum;
@@ -208,13 +209,42 @@ export class LogDistinctBoundedCounts {
   }
 }
 
-/** Q(0..upTo) for distinct parts in [a, b], by c(m) += c(m − k) (m descending), doubles. */
-function knapsack(a: number, b: number, upTo: number): Float64Array {
+/** Q(0..upTo) for distinct parts in [a, b], by c(m) += c(m − k) (m descending), doubles; b = ∞ by number of parts. */
+export function knapsack(a: number, b: number, upTo: number): Float64Array {
+  if (b === Infinity) return distinctByParts(a, upTo);
   const c = new Float64Array(upTo + 1);
   c[0] = 1;
   const last = Math.min(b, upTo);
   for (let k = a; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
   return c;
+}
+
+/**
+ * Q(0..upTo) for distinct parts >= a, by number of parts: j distinct parts λ_1 > ... > λ_j >= a
+ * of m are, less a + (j − i) from the i-th, the partitions of m − ja − j(j − 1)/2 into at most j
+ * parts (Andrews 1976, §1.3), counted by p_j(M) = p_{j−1}(M) + p_j(M − j) (parts <= j, by
+ * conjugation): positive additions only, about 2·j_max·upTo of them (j_max ~ upTo/a) instead of
+ * ~upTo²/2 factor by factor.
+ */
+export function distinctByParts(a: number, upTo: number): Float64Array {
+  const c = new Float64Array(upTo + 1);
+  c[0] = 1;
+  const p = new Float64Array(upTo + 1);
+  p[0] = 1;
+  for (let j = 1; ; j++) {
+    const base = j * a + (j * (j - 1)) / 2;
+    if (base > upTo) break;
+    // Later j read p only up to upTo − (their larger base).
+    for (let M = j; M <= upTo - base; M++) p[M] += p[M - j];
+    for (let m = base; m <= upTo; m++) c[m] += p[m - base];
+  }
+  return c;
+}
+
+function byPartsWork(a: number, upTo: number): number {
+  let work = 0;
+  for (let j = 1; j * a + (j * (j - 1)) / 2 <= upTo; j++) work += 2 * (upTo - j * a - (j * (j - 1)) / 2 + 1);
+  return work;
 }
 
 const PI2_12 = (Math.PI * Math.PI) / 12;

@@ -59,8 +59,8 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = Math.max(1, distinct);
     // Per level (typical size n/4^l): ~PROPOSALS proposals, each visiting the odd sizes that occur
-    // (all odd sizes in [a, b] with x^k > e^{-40}), and above the level's table the counts that
-    // the remembered ones do not serve (SQRT_STEPS).
+    // (oddSizesVisited: each odd size while x^k > 0.3, then those that occur), and above the
+    // level's table the counts that the remembered ones do not serve (SQRT_STEPS).
     let work = 2 * this.expectedDistinct + 1000;
     let setup = 0;
     let cells = 0;
@@ -68,16 +68,19 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
     let lo = a;
     let hi = top;
     let cap = n;
-    // The levels the engine sets up tables for: sizes up to n/2^l at level l (reach).
+    // The levels the engine sets up tables for: sizes up to n/2^l at level l (reach). A table is
+    // filled only when the level's sizes reach it (LogBoundedPartCounts fills it on first use):
+    // counted when the typical size (a quarter of the level's) is within TABLE_REACH_SD standard
+    // deviations of the half the odd parts leave (oddPartsSizeSd) above its end.
     while (size > baseThreshold && lo <= hi) {
       const tl = boundedPartSaddle(lo, hi, size);
-      const odd = Math.max(0, Math.min(hi, lo + 40 / tl) - lo) / 2;
+      const odd = oddSizesVisited(lo, hi, tl);
       const nextLo = Math.ceil(lo / 2);
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
       work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + NARROW_LEVEL_STEPS * Math.min(8, Math.sqrt(size) / hi));
-      if (nextHi >= nextLo) {
+      if (nextHi >= nextLo && size / 4 - (TABLE_REACH_SD * oddPartsSizeSd(lo, hi, tl)) / 2 <= end) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
       }
@@ -102,6 +105,51 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
   sample(source: RandomSource, stats?: MinPartSelfSimilarStats): Partition {
     return this.engine.sample(source, this.n, this.a, stats, Math.min(this.b, this.n));
   }
+}
+
+/**
+ * Tables are counted in the setup while a level's typical half-size is within this many standard
+ * deviations of their end (beyond, a level reaches them less than once in ~1e9 samples, and the
+ * table, filled then, costs one such sample at most setupWork additions).
+ */
+const TABLE_REACH_SD = 6;
+
+/** The Boltzmann proposal's threshold between its direct phase and thinning (boltzmann-proposal.ts). */
+const DIRECT_PHASE_Q = 0.3;
+
+/**
+ * Sizes one proposal visits over the odd sizes in [lo, hi] at x = e^{−t}: each odd size while
+ * x^k > DIRECT_PHASE_Q, then about one candidate per occurring size, Σ x^k over the rest
+ * (boltzmann-proposal.ts).
+ */
+function oddSizesVisited(lo: number, hi: number, t: number): number {
+  const switchAt = Math.log(1 / DIRECT_PHASE_Q) / t;
+  const direct = Math.max(0, Math.min(hi, switchAt) - lo) / 2;
+  const from = Math.max(lo, switchAt);
+  if (from >= hi) return direct;
+  // Σ_{odd k in [from, hi]} x^k ≈ x^from (1 − x^(hi − from + 2)) / (1 − x²).
+  return direct + (Math.exp(-t * from) * -Math.expm1(-t * (hi - from + 2))) / -Math.expm1(-2 * t);
+}
+
+/**
+ * Standard deviation of the size of the odd parts in [lo, hi] under the Boltzmann law at
+ * x = e^{−t}: Σ_{odd k} k² x^k / (1 − x^k)², summed over the odd sizes with x^k > e^{−40}
+ * (at most 4000 of them; beyond, the midpoint sum of 4000 evenly spaced ones, scaled).
+ */
+function oddPartsSizeSd(lo: number, hi: number, t: number): number {
+  const first = lo % 2 === 1 ? lo : lo + 1;
+  const last = Math.min(hi, first + 40 / t);
+  const count = Math.max(0, Math.floor((last - first) / 2) + 1);
+  const terms = Math.min(count, 4000);
+  const stride = count / terms;
+  let variance = 0;
+  for (let i = 0; i < terms; i++) {
+    const k = first + 2 * Math.floor((i + 0.5) * stride);
+    const q = Math.exp(-t * k);
+    const d = -Math.expm1(-t * k);
+    variance += (k * k * q) / (d * d);
+  }
+  return Math.sqrt(variance * stride);
 }
 
 /** Proposals per level (1/acceptance, measured ~1.3-1.6). */

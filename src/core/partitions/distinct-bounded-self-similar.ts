@@ -61,8 +61,14 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
     this.engine = new DistinctSelfSimilarEngine({ baseThreshold, table: tables.table, logQ: tables.logQ, bounded: tables.bounded });
     // Boltzmann means at the saddle point: Σ_{a<=k<=c} 1/(e^{kt} + 1) parts.
     const t = tables.bounded.saddle(a, Math.max(1, n), c);
+    // The first 5000 sizes summed, the rest by the midpoint rule's integral,
+    // (1/t)·[log(1 + e^{−x0 t}) − log(1 + e^{−x1 t})] over [x0, x1] = [k + ½, min(c, 40/t) + ½]
+    // (~1e6 sizes at n = 1e9: the plain sum took ~20 ms of planning).
     let parts = 0;
-    for (let k = a; k <= c && k * t < 40; k++) parts += 1 / (Math.exp(k * t) + 1);
+    const last = Math.min(c, Math.ceil(40 / t));
+    const direct = Math.min(last, a + 5000);
+    for (let k = a; k <= direct; k++) parts += 1 / (Math.exp(k * t) + 1);
+    if (last > direct) parts += (Math.log1p(Math.exp(-(direct + 0.5) * t)) - Math.log1p(Math.exp(-(last + 0.5) * t))) / t;
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = this.expectedLength;
     // Per level: 1/P proposals (P ≈ PROPOSALS⁻¹ measured, as for plain distinct parts), each

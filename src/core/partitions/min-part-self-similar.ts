@@ -474,18 +474,61 @@ const MAX_MARGIN = 1e-9;
  * the proxy's error; it only sets the number of exact steps, ~2·log₂ of the guess's distance).
  * Below from, the sizes m' < from are scanned unless the peak's weight is at least
  * max_{m' <= from} log c(m'), which bounds every weight there (x < 1). c may vanish (parts in
- * [a, b] miss some sizes); such m lie below from and are never the maximiser.
+ * [a, b] miss some sizes); such m lie below from and are never the maximiser. While the table is
+ * not filled (large smallest parts: the sizes a level reaches lie far above it), the search runs
+ * above the table only and the weights below are bounded in closed form (logWeightBound), so the
+ * table is filled only if a proposal lands there.
  */
 export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: number, differences?: FallingDifferences): number {
   const half = Math.floor(n / 2);
-  const weight = (m: number) => counts.log(m) + 2 * m * logX;
+  const weight = (k: number) => counts.log(k) + 2 * k * logX;
   // D(m) > 0, exactly (remembered in `differences` when given).
   const rises = differences === undefined ? (m: number) => counts.logRatio(m, m - 1) + 2 * logX > 0 : (m: number) => differences.at(m) + 2 * logX > 0;
+  // Table not filled yet: search the main-arc sizes above it, and keep the result when the
+  // bound on every weight below it (logWeightBound) is under it. Where the weight is unimodal
+  // this is the maximiser the search with the table finds (the same values), so the choice
+  // does not depend on whether an earlier sample filled the table.
+  // When the bound does not decide, a maximiser found strictly above `above` (D(m) > 0 there) is
+  // also the last rise on the table's concave range, so only the scan below it remains.
+  const above = counts.exactUpTo + 1;
+  let interior: number | null = null;
+  if (!counts.tableFilled && above < half) {
+    const m = concaveArgmax(counts, above, half, logX, rises, differences);
+    if (weight(m) > counts.logWeightBound(counts.exactUpTo, 2 * logX)) return m;
+    if (m > above) interior = m;
+  }
   const from = Math.min(counts.logConcaveFrom(), half);
+  let m = interior ?? concaveArgmax(counts, from, half, logX, rises, differences);
+  if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
+    let best = weight(m);
+    for (let k = 0; k < from; k++) {
+      const w = weight(k);
+      if (w > best) {
+        best = w;
+        m = k;
+      }
+    }
+  }
+  return m;
+}
+
+/**
+ * The last m in [from, half] whose forward difference D(m) = w(m) − w(m − 1) is positive (from
+ * when none), w(m) = log c(m) + 2m·logX concave on [from, half]: bracketed by the remembered
+ * differences when they are narrow (falling-differences.ts), else a guess by bisection on the
+ * slope proxy, then galloping and bisection on exact differences. Counts below `from` are not read.
+ */
+function concaveArgmax(
+  counts: LogBoundedPartCounts,
+  from: number,
+  half: number,
+  logX: number,
+  rises: (m: number) => boolean,
+  differences?: FallingDifferences,
+): number {
   if (differences !== undefined) {
-    // Differences remembered from earlier sizes bracket the answer (falling-differences.ts).
     const m = bracketedLastRise(differences, (d) => d + 2 * logX > 0, from, half);
-    if (m !== null) return finishMaximiser(counts, from, m, m + 1, rises, weight);
+    if (m !== null) return m;
   }
   let guessT: number | undefined;
   const proxyRises = (m: number) => {
@@ -521,38 +564,12 @@ export function boundedMaximiser(counts: LogBoundedPartCounts, n: number, logX: 
     }
     bad = Math.min(half + 1, good + step);
   }
-  return finishMaximiser(counts, from, good, bad, rises, weight);
-}
-
-/**
- * boundedMaximiser's end: bisection of [good, bad) (good = from or D(good) > 0; bad = half + 1
- * or D(bad) <= 0) to the last m with D(m) > 0, then the sizes below from.
- */
-function finishMaximiser(
-  counts: LogBoundedPartCounts,
-  from: number,
-  good: number,
-  bad: number,
-  rises: (m: number) => boolean,
-  weight: (m: number) => number,
-): number {
   while (bad - good > 1) {
     const mid = Math.floor((good + bad) / 2);
     if (rises(mid)) good = mid;
     else bad = mid;
   }
-  let m = good;
-  if (from > 0 && weight(m) < counts.logMaxUpTo(Math.min(from, counts.exactUpTo))) {
-    let best = weight(m);
-    for (let k = 0; k < from; k++) {
-      const w = weight(k);
-      if (w > best) {
-        best = w;
-        m = k;
-      }
-    }
-  }
-  return m;
+  return good;
 }
 
 /** The method as a planner sampler for one (n, a), a >= 2. */

@@ -54,7 +54,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
  *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
- *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481); allowed
+ *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481), larger a
+ *   by bounded-self-similar with b = n (its upper levels' tables stay unfilled; 6-20 ms CPU per
+ *   sample for a = 524-41,380 at 6e7-1e9, scripts/scan-families.ts); allowed
  *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms); distinct parts from lists of up to 1000
  *   sizes wherever subset-sum-reach.ts decides that n is reached (distinct-boltzmann, 0.2-9 ms per
  *   sample at 1e4-1e8, `npx tsx scripts/bench/shapes.ts distinct-allowed`). Families with `length` or
@@ -239,10 +241,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       const sampler = new MinPartSelfSimilarSampler(n, lo);
       prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     }
-    if (!distinct && sizes.kind === 'interval' && sizes.hi < n && sizes.lo <= sizes.hi) {
+    const largeMinPart = open && lo > MinPartSelfSimilarSampler.MAX_A;
+    if (!distinct && sizes.kind === 'interval' && (sizes.hi < n || largeMinPart) && sizes.lo <= sizes.hi) {
       // Parts in [a, b] with b < n (maxPart, with or without minPart): the self-similar method with
       // an upper bound (bounded-self-similar.ts), where its count tables fit (b not far below √n).
-      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), sizes.hi);
+      // Parts >= a alone with a above minpart-self-similar's range: the same with b = n (no part
+      // exceeds n), its upper levels' counts main-arc integrals over tables left unfilled.
+      const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), Math.min(sizes.hi, n));
       prepared(sampler, sampler.fitsLimits());
     }
   }
