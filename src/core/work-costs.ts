@@ -56,6 +56,7 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'bounded-self-similar/1': 30,
   'box-subset/1': 50,
   'box-mixture/1': 20,
+  'box-rotation/1': 60,
   'allowed-length-boltzmann/1': 70,
   'allowed-subset/1': 30,
   // Compositions (src/core/compositions).

@@ -1,6 +1,7 @@
 import type { Partition } from '../../partition.js';
 import type { RandomSource } from '../../random.js';
 import type { Box } from './box-subset.js';
+import { BLOCK, BlockSubset } from './block-subset.js';
 import { conjugate } from './transforms.js';
 
 /** Extra positions M - N tried for the cyclic group (see BoxRotation): the one with the best acceptance is kept. */
@@ -29,34 +30,38 @@ const MAX_PADDING = 12;
  *
  * Method id "box-rotation/1".
  */
-export class BoxRotation {
+/** The shape of a box's rotation sampler and its estimates (no tables built). */
+export interface RotationEstimate {
+  /** Rows and columns after conjugation (k <= b), positions N = k + b, cyclic group Z_M, d = gcd(k, M). */
   readonly k: number;
   readonly b: number;
   readonly conjugated: boolean;
-  /** Positions of the box's subsets and of the cyclic group. */
   readonly N: number;
   readonly M: number;
   readonly d: number;
-  /** Estimated proposals per sample (normal approximation of the sum; >= 1). */
+  /** Proposals per sample (normal approximation of the uniform sum; >= 1). */
   readonly expectedProposals: number;
-  /** Basic steps per proposal (one per element drawn, one per 32 positions cleared). */
+  /** Random draws per proposal (block counts and their adjustment, internal sums, one placed block). */
   readonly proposalCost: number;
+  /** Draws placing every block of the accepted proposal (once per sample). */
+  readonly placeCost: number;
+}
+
+export class BoxRotation {
+  readonly estimate: RotationEstimate;
   private readonly W: number;
   private readonly inverse: number;
-  private readonly bits: Uint32Array;
-  private readonly size: number;
+  private readonly set: BlockSubset;
 
-  constructor(readonly box: Box) {
+  /** The sampler's figures for a box, without building it. */
+  static estimate(box: Box): RotationEstimate {
     const { rows, cols, size } = box;
     if (!(cols < Infinity) || !(size >= 0 && size <= rows * cols)) throw new RangeError(`no partition of ${size} fits in a ${rows} x ${cols} box`);
-    this.conjugated = cols < rows;
-    this.k = this.conjugated ? cols : rows;
-    this.b = this.conjugated ? rows : cols;
-    this.size = size;
-    const { k, b } = this;
+    const conjugated = cols < rows;
+    const k = conjugated ? cols : rows;
+    const b = conjugated ? rows : cols;
     const N = k + b;
-    this.N = N;
-    this.W = size + (k * (k - 1)) / 2;
+    const W = size + (k * (k - 1)) / 2;
     // Acceptance for each padding: (M / d) * C(N, k) / C(M, k) * P(sum = W).
     let best = { M: N, d: gcd(k, N), rate: 0 };
     let ratio = 1; // C(N, k) / C(M, k)
@@ -66,17 +71,35 @@ export class BoxRotation {
       const rate = (M / d) * ratio;
       if (rate > best.rate) best = { M, d, rate };
     }
-    this.M = best.M;
-    this.d = best.d;
     const mean = (k * (N - 1)) / 2;
     const variance = (k * (N - k) * (N + 1)) / 12;
-    const z = variance > 0 ? (this.W - mean) / Math.sqrt(variance) : 0;
+    const z = variance > 0 ? (W - mean) / Math.sqrt(variance) : 0;
     const density = variance > 0 ? Math.exp((-z * z) / 2) / Math.sqrt(2 * Math.PI * variance) : 1;
-    this.expectedProposals = Math.max(1, 1 / Math.min(1, best.rate * density));
-    this.proposalCost = k + this.M / 32 + 10;
-    const Md = this.M / this.d;
-    this.inverse = k === 0 ? 0 : modInverse((k / this.d) % Md, Md);
-    this.bits = new Uint32Array(Math.ceil(this.M / 32) + 1);
+    const expectedProposals = Math.max(1, 1 / Math.min(1, best.rate * density));
+    return {
+      k,
+      b,
+      conjugated,
+      N,
+      M: best.M,
+      d: best.d,
+      expectedProposals,
+      proposalCost: BlockSubset.expectedDraws(best.M, k) + BLOCK,
+      placeCost: best.M + k,
+    };
+  }
+
+  constructor(readonly box: Box) {
+    this.estimate = BoxRotation.estimate(box);
+    const { k, M, d } = this.estimate;
+    this.W = box.size + (k * (k - 1)) / 2;
+    const Md = M / d;
+    this.inverse = k === 0 ? 0 : modInverse((k / d) % Md, Md);
+    this.set = new BlockSubset(M, k);
+  }
+
+  get expectedProposals(): number {
+    return this.estimate.expectedProposals;
   }
 
   /** The box partition's parts (its nonzero rows), largest first, in multiplicity form. */
@@ -88,18 +111,11 @@ export class BoxRotation {
 
   /** One proposal: the box partition, or null when rejected. */
   propose(source: RandomSource): Partition | null {
-    const { k, M, N, W, d } = this;
+    const { k, M, N, d } = this.estimate;
+    const W = this.W;
     if (k === 0) return { sizes: [], multiplicities: [] };
-    const bits = this.bits;
-    bits.fill(0);
-    // Floyd: for j = M - k .. M - 1 add a uniform t in [0, j], or j itself when t is taken.
-    let sum = 0;
-    for (let j = M - k; j < M; j++) {
-      let t = below(source, j + 1);
-      if ((bits[t >>> 5] >>> (t & 31)) & 1) t = j;
-      bits[t >>> 5] |= 1 << (t & 31);
-      sum += t;
-    }
+    const set = this.set;
+    const sum = set.draw(source);
     // Shifts r with k r = W - sum (mod M).
     const c = mod(W - sum, M);
     if (c % d !== 0) return null;
@@ -109,22 +125,22 @@ export class BoxRotation {
     // Shifted by r, the elements >= M - r wrap: sum' = sum + k r - M wrapped.
     const wrapped = (sum + k * r - W) / M;
     if (!(wrapped >= 0 && wrapped <= Math.min(k, r))) return null;
-    if (countRange(bits, M - r, M) !== wrapped) return null;
+    if (set.countRange(source, M - r, M) !== wrapped) return null;
     // Nothing may land in [N, M): the preimage [N - r, M - r) mod M must be empty.
     if (M > N) {
       const from = mod(N - r, M);
       const to = from + (M - N);
-      const hit = to <= M ? countRange(bits, from, to) : countRange(bits, from, M) + countRange(bits, 0, to - M);
+      const hit = to <= M ? set.countRange(source, from, to) : set.countRange(source, from, M) + set.countRange(source, 0, to - M);
       if (hit !== 0) return null;
     }
     // The shifted set in ascending order: the wrapped elements first.
     const values = new Float64Array(k);
     let i = 0;
-    forEachBit(bits, M - r, M, (e) => {
+    set.forEach(source, M - r, M, (e) => {
       values[i] = e + r - M - i;
       i++;
     });
-    forEachBit(bits, 0, M - r, (e) => {
+    set.forEach(source, 0, M - r, (e) => {
       values[i] = e + r - i;
       i++;
     });
@@ -146,26 +162,8 @@ export class BoxRotation {
       }
     }
     const partition = { sizes, multiplicities };
-    return this.conjugated ? conjugate(partition) : partition;
+    return this.estimate.conjugated ? conjugate(partition) : partition;
   }
-}
-
-/**
- * A uniform integer in [0, bound), 1 <= bound <= 2^21, by Lemire's multiply-and-reject (Lemire,
- * "Fast random integer generation in an interval", ACM TOMACS 29 (2019)): exact, and the
- * remainder is only taken in the rare case that may need a redraw.
- */
-function below(source: RandomSource, bound: number): number {
-  let product = source.nextUint32() * bound;
-  let low = product % 4294967296;
-  if (low < bound) {
-    const threshold = 4294967296 % bound;
-    while (low < threshold) {
-      product = source.nextUint32() * bound;
-      low = product % 4294967296;
-    }
-  }
-  return Math.floor(product / 4294967296);
 }
 
 function gcd(a: number, b: number): number {
@@ -196,41 +194,4 @@ function modInverse(a: number, m: number): number {
     [oldS, s] = [s, oldS - q * s];
   }
   return mod(oldS, m);
-}
-
-function popcount(x: number): number {
-  x -= (x >>> 1) & 0x55555555;
-  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
-  x = (x + (x >>> 4)) & 0x0f0f0f0f;
-  return Math.imul(x, 0x01010101) >>> 24;
-}
-
-/** Set bits in positions [from, to). */
-function countRange(bits: Uint32Array, from: number, to: number): number {
-  if (from >= to) return 0;
-  const first = from >>> 5;
-  const last = (to - 1) >>> 5;
-  const lowMask = ~0 << (from & 31);
-  const highMask = ~0 >>> (31 - ((to - 1) & 31));
-  if (first === last) return popcount(bits[first] & lowMask & highMask);
-  let total = popcount(bits[first] & lowMask) + popcount(bits[last] & highMask);
-  for (let w = first + 1; w < last; w++) total += popcount(bits[w]);
-  return total;
-}
-
-/** Calls visit(position) for the set bits in [from, to), ascending. */
-function forEachBit(bits: Uint32Array, from: number, to: number, visit: (position: number) => void): void {
-  if (from >= to) return;
-  const first = from >>> 5;
-  const last = (to - 1) >>> 5;
-  for (let w = first; w <= last; w++) {
-    let word = bits[w];
-    if (w === first) word &= ~0 << (from & 31);
-    if (w === last) word &= ~0 >>> (31 - ((to - 1) & 31));
-    while (word !== 0) {
-      const low = word & -word;
-      visit(w * 32 + 31 - Math.clz32(low));
-      word ^= low;
-    }
-  }
 }

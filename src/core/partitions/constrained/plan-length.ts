@@ -6,6 +6,7 @@ import { unrestrictedPartitionSampler } from '../unrestricted.js';
 import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
 import { AllowedSubset } from './allowed-subset.js';
 import { BoxMixture, MixtureSetupExceeded, type MixtureEntry, type MixtureOptions } from './box-mixture.js';
+import { BoxRotation } from './box-rotation.js';
 import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
 import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
@@ -77,6 +78,8 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       if (box !== null) {
         const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
         out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0)));
+        const rotation = rotationCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1));
+        if (rotation !== null) out.push(rotation);
         out.push(...boxFilterCandidates(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
       }
       if (hi >= n) out.push(...openExactCandidates(input, k));
@@ -85,6 +88,8 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       if (!distinct && lo === 1) {
         const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
         out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols));
+        const rotation = rotationCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box));
+        if (rotation !== null) out.push(rotation);
         out.push(...boxFilterCandidates(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
@@ -282,6 +287,43 @@ function boxCandidate(
     sample: (source: RandomSource) => map(subset.sample(source)),
   };
   return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k, hint);
+}
+
+/** Boxes with more positions (rows + columns) are left to box-subset (box-rotation's proposals clear and hold them). */
+const ROTATION_MAX_POSITIONS = 1 << 21;
+
+/**
+ * A finite box near half full by box-rotation.ts (uniform subsets shifted onto the size); null
+ * for boxes with one row or column, open boxes, boxes of more than ROTATION_MAX_POSITIONS
+ * positions, and where its estimate is hopeless (the uniform sum far from the box's).
+ */
+function rotationCandidate(
+  input: LengthPlanInput,
+  box: Box,
+  map: (rows: Partition) => Partition,
+  expectedLength: number,
+  expectedDistinct: number,
+): PlanCandidate | null {
+  if (box.cols === Infinity || Math.min(box.rows, box.cols) < 2 || box.rows + box.cols > ROTATION_MAX_POSITIONS) return null;
+  const estimate = BoxRotation.estimate(box);
+  const work = estimate.expectedProposals * estimate.proposalCost + estimate.placeCost + expectedDistinct;
+  if (!(work <= 100 * SAMPLE_WORK_CEILING)) return null;
+  return {
+    method: 'box-rotation/1',
+    setupWork: 0,
+    sampleWork: work,
+    fits: input.fits(0, work),
+    build: () => {
+      const rotation = new BoxRotation(box);
+      return {
+        method: 'box-rotation/1',
+        expectedLength,
+        expectedDistinct,
+        expectedWork: work,
+        sample: (source: RandomSource) => map(rotation.sample(source)),
+      };
+    },
+  };
 }
 
 /**
