@@ -54,7 +54,7 @@ export class BoxRotation {
   private readonly set: BlockSubset;
 
   /** The sampler's figures for a box, without building it. */
-  static estimate(box: Box): RotationEstimate {
+  static estimate(box: Box, padding?: number): RotationEstimate {
     const { rows, cols, size } = box;
     if (!(cols < Infinity) || !(size >= 0 && size <= rows * cols)) throw new RangeError(`no partition of ${size} fits in a ${rows} x ${cols} box`);
     const conjugated = cols < rows;
@@ -65,11 +65,11 @@ export class BoxRotation {
     // Acceptance for each padding: (M / d) * C(N, k) / C(M, k) * P(sum = W).
     let best = { M: N, d: gcd(k, N), rate: 0 };
     let ratio = 1; // C(N, k) / C(M, k)
-    for (let M = N; M <= N + MAX_PADDING; M++) {
+    for (let M = N; M <= N + (padding ?? MAX_PADDING); M++) {
       if (M > N) ratio *= (M - k) / M;
       const d = gcd(k, M);
       const rate = (M / d) * ratio;
-      if (rate > best.rate) best = { M, d, rate };
+      if (rate > best.rate || padding === M - N) best = { M, d, rate };
     }
     const mean = (k * (N - 1)) / 2;
     const variance = (k * (N - k) * (N + 1)) / 12;
@@ -89,8 +89,9 @@ export class BoxRotation {
     };
   }
 
-  constructor(readonly box: Box) {
-    this.estimate = BoxRotation.estimate(box);
+  /** `padding`: M - N forced (tests; default the best of 0..MAX_PADDING). */
+  constructor(readonly box: Box, padding?: number) {
+    this.estimate = BoxRotation.estimate(box, padding);
     const { k, M, d } = this.estimate;
     this.W = box.size + (k * (k - 1)) / 2;
     const Md = M / d;
