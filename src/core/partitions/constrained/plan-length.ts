@@ -10,7 +10,7 @@ import { BoxRotation } from './box-rotation.js';
 import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
 import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
-import type { PlanCandidate } from './plan.js';
+import { planCostNs, type PlanCandidate } from './plan.js';
 import { about } from './refusal.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
 import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
@@ -77,9 +77,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const box = exactBox(n, lo, hi, distinct, k);
       if (box !== null) {
         const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
-        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0)));
         const rotation = rotationCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1));
         if (rotation !== null) out.push(rotation);
+        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0), rotation));
         out.push(...boxFilterCandidates(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
       }
       if (hi >= n) out.push(...openExactCandidates(input, k));
@@ -87,9 +87,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const K = spec.maxLength;
       if (!distinct && lo === 1) {
         const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
-        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols));
         const rotation = rotationCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box));
         if (rotation !== null) out.push(rotation);
+        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols, rotation));
         out.push(...boxFilterCandidates(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
@@ -264,6 +264,8 @@ function boxCandidate(
   expectedDistinct: number,
   /** The maxPart whose box has this many columns. */
   maxPartOf: (cols: number) => number,
+  /** box-rotation's candidate for the same box, if any. */
+  rotation: PlanCandidate | null = null,
 ): PlanCandidate {
   // The work grows like k^1.5 in the short side k of the box: the side to shrink, and by how much.
   const hint = (work: number) => {
@@ -276,9 +278,25 @@ function boxCandidate(
     const work = 0.5 * k * Math.sqrt(k);
     return { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: work, fits: false, build: () => { throw new RangeError('box design over the work limit'); }, hint: hint(work) };
   }
+  // Solving the design takes ~12 k steps of transcendental functions (tens of ms at k ~ 3e4): not
+  // done while planning when box-rotation fits and costs less than box-subset's least work; the
+  // candidate then carries that least work (it is built only when forced).
+  if (k > 64 && rotation !== null && rotation.fits) {
+    const least = 0.5 * k * Math.sqrt(k);
+    const candidate = { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: least };
+    if (planCostNs(candidate) > planCostNs(rotation)) {
+      return { ...candidate, fits: input.fits(candidate.setupWork, least), build: () => boxSubsetSampler(box, map, expectedLength, expectedDistinct) };
+    }
+  }
+  const sampler = boxSubsetSampler(box, map, expectedLength, expectedDistinct);
+  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * k, hint);
+}
+
+/** box-subset's sampler of a box carried onto the family by `map` (the design solved here). */
+function boxSubsetSampler(box: Box, map: (rows: Partition) => Partition, expectedLength: number, expectedDistinct: number): PartitionSampler {
   const design = new BoxDesign(box);
   const subset = new BoxSubset(design);
-  const sampler: PartitionSampler = {
+  return {
     method: 'box-subset/1',
     expectedLength,
     expectedDistinct,
@@ -286,7 +304,6 @@ function boxCandidate(
     expectedWork: design.expectedProposals * design.proposalCost + expectedDistinct,
     sample: (source: RandomSource) => map(subset.sample(source)),
   };
-  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k, hint);
 }
 
 /** Boxes with more positions (rows + columns) are left to box-subset (box-rotation's proposals clear and hold them). */
@@ -373,6 +390,10 @@ function boxFilterCandidates(
   }
   const oneSided = (binding: number, slack: number, conjugateFirst: boolean) => {
     if (slack === Infinity || binding >= size) return;
+    // Bounding the parts only adds parts (conjugate: fewer parts, larger largest part), so the mean
+    // number of parts is at least the unrestricted one, ~ a ln a (Erdős–Lehner, above): skip the
+    // tilt (O(binding) sums per Newton step) when even that exceeds the slack.
+    if (a * Math.log(a) > slack) return;
     const sizes = { kind: 'interval', lo: 1, hi: binding } as const;
     const tilt = solveTiltNewton(sizes, size, false);
     const law = lengthLaw(sizes, tilt, false);
