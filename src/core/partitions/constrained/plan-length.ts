@@ -23,6 +23,9 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *
  * - "box-subset/1" (box-subset.ts): a part bound with exactly k parts (distinct or not) or with
  *   at most K parts >= 1 is a partition in a box (Andrews 1976, ch. 3) after the maps below;
+ * - "box-rotation/1" (box-rotation.ts): a finite box near half full, from uniform subsets shifted
+ *   onto the box's size (chosen by cost against box-subset; its design is not solved when
+ *   box-rotation is cheaper than box-subset's least work);
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
