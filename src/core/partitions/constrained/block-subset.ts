@@ -34,8 +34,7 @@ export class BlockSubset {
   readonly expectedDraws: number;
   private readonly lastLength: number;
   private readonly countAlias: Alias[];
-  private readonly fullSums: readonly Alias[];
-  private readonly lastSums: readonly Alias[];
+
   private readonly positions: Int32Array;
   private readonly placed: Int32Array;
   private generation = 0;
@@ -55,8 +54,6 @@ export class BlockSubset {
       for (let a = 0; a <= length; a++) weights.push(Math.exp(logChoose(length, a) + a * Math.log(p) + (length - a) * Math.log1p(-p)));
       return new Alias(weights);
     });
-    this.fullSums = table.sumTables(BLOCK);
-    this.lastSums = table.sumTables(this.lastLength);
     this.positions = new Int32Array(this.blocks * BLOCK);
     this.placed = new Int32Array(this.blocks);
     this.expectedDraws = BlockSubset.expectedDraws(M, k);
@@ -94,10 +91,10 @@ export class BlockSubset {
       }
     }
     let sum = 0;
-    const fullSums = this.fullSums;
+    const table = this.table;
     for (let g = 0; g < blocks; g++) {
       const a = counts[g];
-      const sigma = (g === blocks - 1 ? this.lastSums : fullSums)[a].draw(source);
+      const sigma = a === 0 ? 0 : table.sumTable(g === blocks - 1 ? this.lastLength : BLOCK, a).draw(source);
       sums[g] = sigma;
       sum += g * BLOCK * a + (a * (a - 1)) / 2 + sigma;
     }
@@ -164,7 +161,7 @@ export class PrefixSubsetCounts {
 
   private readonly offsets: Int32Array;
   private readonly counts: Float64Array;
-  private readonly alias: Alias[][] = [];
+  private readonly alias: Array<Alias | undefined> = [];
 
   private constructor() {
     const offsets = new Int32Array((BLOCK + 1) * (BLOCK + 1));
@@ -180,13 +177,17 @@ export class PrefixSubsetCounts {
     for (let i = 1; i <= BLOCK; i++) {
       for (let j = 0; j <= i; j++) {
         const at = offsets[i * (BLOCK + 1) + j];
-        const width = j * (i - j);
-        for (let s = 0; s <= width; s++) {
-          let c = 0;
-          if (j <= i - 1 && s <= j * (i - 1 - j)) c += counts[offsets[(i - 1) * (BLOCK + 1) + j] + s];
-          const t = s - (i - j);
-          if (j >= 1 && t >= 0 && t <= (j - 1) * (i - j)) c += counts[offsets[(i - 1) * (BLOCK + 1) + j - 1] + t];
-          counts[at + s] = c;
+        // i - 1 not taken: C(i-1, j, s), s <= j(i-1-j).
+        if (j <= i - 1) {
+          const from = offsets[(i - 1) * (BLOCK + 1) + j];
+          counts.set(counts.subarray(from, from + j * (i - 1 - j) + 1), at);
+        }
+        // i - 1 taken: C(i-1, j-1, t) at s = t + (i - j), t <= (j-1)(i-j).
+        if (j >= 1) {
+          const from = offsets[(i - 1) * (BLOCK + 1) + j - 1];
+          const shift = at + i - j;
+          const width = (j - 1) * (i - j);
+          for (let t = 0; t <= width; t++) counts[shift + t] += counts[from + t];
         }
       }
     }
@@ -200,18 +201,16 @@ export class PrefixSubsetCounts {
     return this.counts[this.offsets[i * (BLOCK + 1) + j] + s];
   }
 
-  /** Alias tables of the internal sum of a uniform j-subset of [0, i), j = 0..i (built once per i). */
-  sumTables(i: number): readonly Alias[] {
-    let tables = this.alias[i];
-    if (tables === undefined) {
-      tables = [];
-      for (let j = 0; j <= i; j++) {
-        const at = this.offsets[i * (BLOCK + 1) + j];
-        tables.push(new Alias(Array.from(this.counts.subarray(at, at + j * (i - j) + 1))));
-      }
-      this.alias[i] = tables;
+  /** Alias table of the internal sum of a uniform j-subset of [0, i) (built on first use). */
+  sumTable(i: number, j: number): Alias {
+    const key = i * (BLOCK + 1) + j;
+    let table = this.alias[key];
+    if (table === undefined) {
+      const at = this.offsets[key];
+      table = new Alias(this.counts.subarray(at, at + j * (i - j) + 1));
+      this.alias[key] = table;
     }
-    return tables;
+    return table;
   }
 
   /** Writes a uniform j-subset of [0, i) with internal sum s, plus base, ascending, to out[base..]. */
@@ -234,40 +233,51 @@ export class PrefixSubsetCounts {
   }
 }
 
-/** Walker's alias method (Vose's construction): one uniform per draw. */
+/** Walker's alias method (Vose's construction, typed arrays): one uniform per draw. */
 export class Alias {
   private readonly probability: Float64Array;
   private readonly other: Int32Array;
 
-  constructor(weights: readonly number[]) {
+  constructor(weights: ArrayLike<number>) {
     const n = weights.length;
     let total = 0;
-    for (const w of weights) total += w;
-    const scaled = weights.map((w) => (w * n) / total);
-    this.probability = new Float64Array(n);
-    this.other = new Int32Array(n);
-    const small: number[] = [];
-    const large: number[] = [];
-    scaled.forEach((w, i) => (w < 1 ? small : large).push(i));
-    while (small.length > 0 && large.length > 0) {
-      const s = small.pop()!;
-      const l = large[large.length - 1];
-      this.probability[s] = scaled[s];
-      this.other[s] = l;
+    for (let i = 0; i < n; i++) total += weights[i];
+    const scaled = new Float64Array(n);
+    for (let i = 0; i < n; i++) scaled[i] = (weights[i] * n) / total;
+    const probability = new Float64Array(n);
+    const other = new Int32Array(n);
+    // Two stacks in one array: small from the front, large from the back.
+    const stack = new Int32Array(n);
+    let small = 0;
+    let large = n;
+    for (let i = 0; i < n; i++) {
+      if (scaled[i] < 1) stack[small++] = i;
+      else stack[--large] = i;
+    }
+    while (small > 0 && large < n) {
+      const s = stack[--small];
+      const l = stack[large];
+      probability[s] = scaled[s];
+      other[s] = l;
       scaled[l] -= 1 - scaled[s];
       if (scaled[l] < 1) {
-        large.pop();
-        small.push(l);
+        large++;
+        stack[small++] = l;
       }
     }
-    for (const i of large) {
-      this.probability[i] = 1;
-      this.other[i] = i;
+    // What remains is 1 up to rounding.
+    while (small > 0) {
+      const i = stack[--small];
+      probability[i] = 1;
+      other[i] = i;
     }
-    for (const i of small) {
-      this.probability[i] = 1;
-      this.other[i] = i;
+    while (large < n) {
+      const i = stack[large++];
+      probability[i] = 1;
+      other[i] = i;
     }
+    this.probability = probability;
+    this.other = other;
   }
 
   draw(source: RandomSource): number {
