@@ -139,3 +139,24 @@ describe('block-subset tables', () => {
     }
   });
 });
+
+describe('box-rotation serves the half-full boxes of sides near sqrt(n) at n = 1e9', () => {
+  it('plans exactly or at most 31623 parts <= 63246 (refused before box-rotation)', () => {
+    for (const constraint of [{ length: 31_623 }, { maxLength: 31_623 }]) {
+      const family = { kind: 'partition', n: 1e9, maxPart: 63_246, ...constraint } as PartitionFamily;
+      const sampler = constrainedPartitionSampler(family);
+      expect(sampler.method).toBe('box-rotation/1');
+      const p = sampler.sample(sampleSource('rot-1e9', 0, 'plan'));
+      let parts = 0;
+      let total = 0;
+      p.sizes.forEach((s, i) => {
+        parts += p.multiplicities[i];
+        total += s * p.multiplicities[i];
+      });
+      expect(total).toBe(1e9);
+      expect(p.sizes[0]).toBeLessThanOrEqual(63_246);
+      if ('length' in constraint) expect(parts).toBe(31_623);
+      else expect(parts).toBeLessThanOrEqual(31_623);
+    }
+  });
+});
