@@ -6,7 +6,7 @@
  * processes hits both alike; the ratio is the median over rounds. Setup (planning, tilts,
  * tables) is reported apart. Then the requests of issue 13's table.
  *
- * `npm run bench -- shapes` (about two minutes). Shapes scale with n: bounds near sqrt(n) so
+ * `npm run bench -- shapes` (about two minutes; SHAPES_MATCH=maxLength runs the rows whose name contains it). Shapes scale with n: bounds near sqrt(n) so
  * that they bind; see SHAPES.
  */
 import type { PartitionFamily } from '../../src/core/family.js';
@@ -70,6 +70,7 @@ export const ISSUE_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 1_000_000, minPart: 10, maxLength: 500 },
   { kind: 'partition', n: 100_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1) },
   { kind: 'partition', n: 1_000_000, distinct: true, minPart: 50, maxPart: 5000 },
+  { kind: 'partition', n: 26_977_122, minPart: 4226, maxPart: 105_077, maxLength: 2835 },
 ];
 
 /** A fixed list of `count` distinct sizes in [1, max] (Park–Miller minimal standard, seed 99). */
@@ -276,7 +277,10 @@ export async function benchShapes(): Promise<void> {
   console.log(`(${WARM_MS} ms untimed warm-up, then ${ROUNDS} alternating rounds of ~${ROUND_MS} ms per cell; setup = planning, tilts and tables, once per family)`);
   const widths = [36, 6, 34, 9, 10, 11, 7];
   console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
+  // SHAPES_MATCH=text runs only the shapes (and issue rows) whose name contains it.
+  const match = process.env.SHAPES_MATCH ?? '';
   for (const [name, shape] of SHAPES) {
+    if (!name.includes(match)) continue;
     for (const n of SIZES) {
       const family = { kind: 'partition', n, ...shape(n) } as PartitionFamily;
       const cell = measure(family);
@@ -292,6 +296,7 @@ export async function benchShapes(): Promise<void> {
     const name = JSON.stringify(rest)
       .replace(/"allowed":\[[^\]]{40,}\]/, '"allowed":[…]')
       .replace(/[{}"]/g, '');
+    if (!name.includes(match)) continue;
     const cell = measure(family);
     const label = n.toExponential(0).replace('+', '');
     if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));

@@ -90,20 +90,21 @@ describe('planner errors and limits', () => {
     expect(() => constrainedPartitionSampler({ kind: 'partition', n: 10, length: 2, maxLength: 3 })).toThrow(RangeError);
   });
   it(`names the limit and what would fit when no method fits (<= ${SAMPLE_WORK_LIMIT} steps per sample), never a method or a table`, () => {
-    // Box with both sides binding, about 44,700 rows and columns, half full: ~3e7 steps per sample.
-    const f: PartitionFamily = { kind: 'partition', n: 1_000_000_000, length: 44_721, maxPart: 44_722 };
+    // Box with both sides binding, 31,623 rows and 94,868 columns, a third full (half-full boxes
+    // this large are served by box-rotation): ~2.6e7 steps per sample.
+    const f: PartitionFamily = { kind: 'partition', n: 1_000_000_000, length: 31_623, maxPart: 94_869 };
     expect(() => constrainedPartitionSampler(f)).toThrow(LimitExceededError);
     try {
       constrainedPartitionSampler(f);
     } catch (error) {
       const { message, limit } = error as LimitExceededError;
       expect(limit).toMatch(/work per sample/);
-      expect(message).toMatch(/exactly 44721 parts/);
+      expect(message).toMatch(/exactly 31623 parts/);
       expect(message).toMatch(/fits with at most about \d+ parts/);
-      expect(message).not.toMatch(/cell|table|boltzmann|subset|mixture|\/1/i);
+      expect(message).not.toMatch(/cell|table|boltzmann|subset|mixture|rotation|\/1/i);
     }
     // The short side is the part bound: the refusal says how small maxPart would have to be.
-    const g: PartitionFamily = { kind: 'partition', n: 1_000_000_000, maxLength: 60_000, maxPart: 40_000 };
+    const g: PartitionFamily = { kind: 'partition', n: 1_000_000_000, maxLength: 94_869, maxPart: 31_623 };
     expect(() => constrainedPartitionSampler(g)).toThrow(/fits with maxPart at most about \d+/);
     // Distinct parts from a long list at large n where whether any subset sums to n is not decided
     // within the work bound (1000 sizes within 3000 of 1e6: no run of sums forms): the refusal

@@ -6,10 +6,11 @@ import { unrestrictedPartitionSampler } from '../unrestricted.js';
 import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
 import { AllowedSubset } from './allowed-subset.js';
 import { BoxMixture, MixtureSetupExceeded, type MixtureEntry, type MixtureOptions } from './box-mixture.js';
+import { BoxRotation } from './box-rotation.js';
 import { BoxDesign, BoxSubset, type Box } from './box-subset.js';
 import { lengthLaw, normalCdf, solveTiltNewton } from './length-law.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
-import type { PlanCandidate } from './plan.js';
+import { planCostNs, type PlanCandidate } from './plan.js';
 import { about } from './refusal.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
 import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
@@ -22,6 +23,9 @@ import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
  *
  * - "box-subset/1" (box-subset.ts): a part bound with exactly k parts (distinct or not) or with
  *   at most K parts >= 1 is a partition in a box (Andrews 1976, ch. 3) after the maps below;
+ * - "box-rotation/1" (box-rotation.ts): a finite box near half full, from uniform subsets shifted
+ *   onto the box's size (chosen by cost against box-subset; its design is not solved when
+ *   box-rotation is cheaper than box-subset's least work);
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
@@ -76,7 +80,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const box = exactBox(n, lo, hi, distinct, k);
       if (box !== null) {
         const map = distinct ? staircaseMap(lo, k) : shiftMap(lo, k);
-        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0)));
+        const rotation = rotationCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1));
+        if (rotation !== null) out.push(rotation);
+        out.push(boxCandidate(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1), (cols) => lo + cols + (distinct ? k - 1 : 0), rotation));
         out.push(...boxFilterCandidates(input, box, map, k, distinct ? k : Math.min(k, distinctBound(box) + 1)));
       }
       if (hi >= n) out.push(...openExactCandidates(input, k));
@@ -84,7 +90,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       const K = spec.maxLength;
       if (!distinct && lo === 1) {
         const box: Box = { rows: Math.min(K, n), cols: hi >= n ? Infinity : hi, size: n };
-        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols));
+        const rotation = rotationCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box));
+        if (rotation !== null) out.push(rotation);
+        out.push(boxCandidate(input, box, (rows) => rows, Math.min(K, n), distinctBound(box), (cols) => cols, rotation));
         out.push(...boxFilterCandidates(input, box, (rows) => rows, Math.min(K, n), distinctBound(box)));
         if (hi >= n) {
           // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
@@ -259,6 +267,8 @@ function boxCandidate(
   expectedDistinct: number,
   /** The maxPart whose box has this many columns. */
   maxPartOf: (cols: number) => number,
+  /** box-rotation's candidate for the same box, if any. */
+  rotation: PlanCandidate | null = null,
 ): PlanCandidate {
   // The work grows like k^1.5 in the short side k of the box: the side to shrink, and by how much.
   const hint = (work: number) => {
@@ -271,9 +281,25 @@ function boxCandidate(
     const work = 0.5 * k * Math.sqrt(k);
     return { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: work, fits: false, build: () => { throw new RangeError('box design over the work limit'); }, hint: hint(work) };
   }
+  // Solving the design takes ~12 k steps of transcendental functions (tens of ms at k ~ 3e4): not
+  // done while planning when box-rotation fits and costs less than box-subset's least work; the
+  // candidate then carries that least work (it is built only when forced).
+  if (k > 64 && rotation !== null && rotation.fits) {
+    const least = 0.5 * k * Math.sqrt(k);
+    const candidate = { method: 'box-subset/1', setupWork: SETUP_STEPS_PER_ROW * k, sampleWork: least };
+    if (planCostNs(candidate) > planCostNs(rotation)) {
+      return { ...candidate, fits: input.fits(candidate.setupWork, least), build: () => boxSubsetSampler(box, map, expectedLength, expectedDistinct) };
+    }
+  }
+  const sampler = boxSubsetSampler(box, map, expectedLength, expectedDistinct);
+  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * k, hint);
+}
+
+/** box-subset's sampler of a box carried onto the family by `map` (the design solved here). */
+function boxSubsetSampler(box: Box, map: (rows: Partition) => Partition, expectedLength: number, expectedDistinct: number): PartitionSampler {
   const design = new BoxDesign(box);
   const subset = new BoxSubset(design);
-  const sampler: PartitionSampler = {
+  return {
     method: 'box-subset/1',
     expectedLength,
     expectedDistinct,
@@ -281,7 +307,43 @@ function boxCandidate(
     expectedWork: design.expectedProposals * design.proposalCost + expectedDistinct,
     sample: (source: RandomSource) => map(subset.sample(source)),
   };
-  return samplerCandidate(input, sampler, SETUP_STEPS_PER_ROW * design.k, hint);
+}
+
+/** Boxes with more positions (rows + columns) are left to box-subset (box-rotation's proposals clear and hold them). */
+const ROTATION_MAX_POSITIONS = 1 << 21;
+
+/**
+ * A finite box near half full by box-rotation.ts (uniform subsets shifted onto the size); null
+ * for boxes with one row or column, open boxes, boxes of more than ROTATION_MAX_POSITIONS
+ * positions, and where its estimate is hopeless (the uniform sum far from the box's).
+ */
+function rotationCandidate(
+  input: LengthPlanInput,
+  box: Box,
+  map: (rows: Partition) => Partition,
+  expectedLength: number,
+  expectedDistinct: number,
+): PlanCandidate | null {
+  if (box.cols === Infinity || Math.min(box.rows, box.cols) < 2 || box.rows + box.cols > ROTATION_MAX_POSITIONS) return null;
+  const estimate = BoxRotation.estimate(box);
+  const work = estimate.expectedProposals * estimate.proposalCost + estimate.placeCost + expectedDistinct;
+  if (!(work <= 100 * SAMPLE_WORK_CEILING)) return null;
+  return {
+    method: 'box-rotation/1',
+    setupWork: 0,
+    sampleWork: work,
+    fits: input.fits(0, work),
+    build: () => {
+      const rotation = new BoxRotation(box);
+      return {
+        method: 'box-rotation/1',
+        expectedLength,
+        expectedDistinct,
+        expectedWork: work,
+        sample: (source: RandomSource) => map(rotation.sample(source)),
+      };
+    },
+  };
 }
 
 /**
@@ -331,6 +393,10 @@ function boxFilterCandidates(
   }
   const oneSided = (binding: number, slack: number, conjugateFirst: boolean) => {
     if (slack === Infinity || binding >= size) return;
+    // Bounding the parts only adds parts (conjugate: fewer parts, larger largest part), so the mean
+    // number of parts is at least the unrestricted one, ~ a ln a (Erdős–Lehner, above): skip the
+    // tilt (O(binding) sums per Newton step) when even that exceeds the slack.
+    if (a * Math.log(a) > slack) return;
     const sizes = { kind: 'interval', lo: 1, hi: binding } as const;
     const tilt = solveTiltNewton(sizes, size, false);
     const law = lengthLaw(sizes, tilt, false);
