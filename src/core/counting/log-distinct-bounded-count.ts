@@ -1,3 +1,4 @@
+import { LogCoshSum } from './log-cosh-sum.js';
 import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
 import { saddleNewton } from './saddle-newton.js';
 import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
@@ -22,8 +23,18 @@ import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
  *   trapezoidal rule (step 0.5/σ, σ² = φ''(t), range ±10/σ: error e^{−79} and e^{−50}; Trefethen
  *   & Weideman 2014, SIAM Review 56, §5). The j-series of T_b converges like e^{−j(b+1)t}; it is
  *   used only where (b + 1)t >= TAIL_MIN_BT (there T_b is below ~e^{−3}/t, so its rounding stays
- *   far below 1e-14 relative to Q). Where b is nearer the middle of the polynomial the class
- *   refuses (accurate(m) is false) and the planner keeps the other methods.
+ *   far below 1e-14 relative to Q).
+ * - The middle of the polynomial (finite b, (b + 1)t <= CENTRAL_MAX_BT, so t near 0, where the
+ *   1/τ pole and T_b cancel and T_b's series converges slowly): the same integral written without
+ *   the pole, log Π_{a<=k<=b}(1 + e^{−kτ}) = N log 2 − τS/2 + C(τ), C(τ) = Σ log cosh(kτ/2) as a
+ *   power series in τ (log-cosh-sum.ts; every node of the trapezoid stays at |bτ| <= 0.87π), so
+ *   φ(τ) = N log 2 + (m − S/2)τ + C(τ) exactly and the saddle solves C'(t) = S/2 − m (t = 0 at
+ *   m = S/2). Only the main arc is kept: at a root of unity of order j >= 2 the product has
+ *   modulus at most ~2^{N·2/j}·e^{O(1)} <= 2^{2N/3} (order 3), against 2^N/(σ√(2π)) for the main
+ *   arc, so for N >= CENTRAL_MIN_RANGE the dropped arcs are below 1e-19 relative (checked
+ *   against exact BigInt counts in test/partitions/log-distinct-bounded-count.test.ts). Log-ratios
+ *   in this regime are formed from differences in place (C(t1) − C(t2) term by term).
+ *   Where neither serves (a narrow range near its middle), an exact table grown on demand.
  *   The other arcs (q near roots of unity of order >= 2) are dropped: near q = −1 the factors
  *   1/(1 + q^k), k < a odd, amplify them, so the table must reach further for larger a. Where the
  *   dropped part is below double rounding was decided by comparing with exact BigInt counts
@@ -40,6 +51,10 @@ export class LogDistinctBoundedCounts {
   /** Largest exact table built on demand for finite b (additions), and its widest part range (no overflow: Q < 2^1000). */
   static readonly SLOW_TABLE_ADDITIONS = 2e8;
   static readonly SLOW_TABLE_MAX_RANGE = 1000;
+  /** The power series serves (folded) m whose saddle point has (b + 1)t at most this. */
+  static readonly CENTRAL_MAX_BT = 1.25;
+  /** Least N = b − a + 1 for the power series (the dropped arcs, see the class comment). */
+  static readonly CENTRAL_MIN_RANGE = 200;
 
   /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
   readonly total: number;
@@ -49,7 +64,13 @@ export class LogDistinctBoundedCounts {
   /** Largest m the table holds (or will hold once built). */
   private tableEnd: number;
   private readonly memo = new SaddleMemo((m) => computeSaddle(this.a, this.b, m));
+  private readonly centralMemo = new SaddleMemo((m) => this.computeCentral(m));
   private concaveFrom = -1;
+  /** Σ log cosh(kτ/2) as a series (finite b; built on first use). */
+  private cosh: LogCoshSum | null = null;
+  /** The least folded m whose saddle point has (b + 1)t <= CENTRAL_MAX_BT (finite b; −1: not yet computed). */
+  private seriesFrom = -1;
+  private wideRange: boolean | undefined;
 
   constructor(
     readonly a: number,
@@ -74,6 +95,45 @@ export class LogDistinctBoundedCounts {
   private get logExact(): Float64Array {
     void this.exact;
     return this.logTable!;
+  }
+
+  private get series(): LogCoshSum {
+    if (this.cosh === null) this.cosh = new LogCoshSum(this.a, this.b);
+    return this.cosh;
+  }
+
+  /** The least folded m served by the power series' saddle (Infinity for b = ∞). */
+  private get middleFrom(): number {
+    if (this.b === Infinity) return Infinity;
+    if (this.seriesFrom < 0) {
+      // Mean size at t: S/2 − C'(t), decreasing in t.
+      const [d1] = this.series.derivatives(LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1));
+      this.seriesFrom = Math.max(0, Math.ceil(this.total / 2 - d1));
+    }
+    return this.seriesFrom;
+  }
+
+  /**
+   * Whether the power-series integral serves this range (finite b): N >= CENTRAL_MIN_RANGE, and at
+   * the regime's largest saddle point ((b + 1)t = CENTRAL_MAX_BT, where the nodes reach furthest
+   * out: the width 1/σ grows with t) the trapezoid's last node is within the series' reach.
+   */
+  private get wide(): boolean {
+    if (this.wideRange === undefined) {
+      let ok = this.b !== Infinity && this.b - this.a + 1 >= LogDistinctBoundedCounts.CENTRAL_MIN_RANGE;
+      if (ok) {
+        const t = LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1);
+        const { h, last } = trapezoidGrid(Math.sqrt(this.series.derivatives(t)[1]));
+        ok = (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI <= LogCoshSum.MAX_W;
+      }
+      this.wideRange = ok;
+    }
+    return this.wideRange;
+  }
+
+  /** Whether the power-series integral serves this folded m. */
+  private central(m: number): boolean {
+    return this.wide && m >= this.middleFrom;
   }
 
   /** Additions done by the constructor (setup work). */
@@ -102,7 +162,8 @@ export class LogDistinctBoundedCounts {
    */
   servable(mMax: number): boolean {
     const top = Math.min(mMax, Math.floor(this.total / 2));
-    if (top <= this.tableEnd || this.fast(top)) return true;
+    // Below the middle regime the saddle point has (b + 1)t > CENTRAL_MAX_BT, where the tail series serves.
+    if (top <= this.tableEnd || this.central(top) || this.fast(top)) return true;
     return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
   }
@@ -110,7 +171,7 @@ export class LogDistinctBoundedCounts {
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
   servesByIntegral(m: number): boolean {
     const f = this.fold(Math.min(m, this.total));
-    return f > this.tableEnd && this.fast(f);
+    return f > this.tableEnd && (this.central(f) || this.fast(f));
   }
 
   /** Additions an exact table up to m costs. */
@@ -148,6 +209,10 @@ export class LogDistinctBoundedCounts {
     if (m > this.total) return -Infinity;
     const f = this.fold(m);
     if (f < this.exact.length) return this.logExact[f];
+    if (this.central(f)) {
+      const s = this.centralMemo.get(f);
+      return this.centralPhi(f, s.t) + s.logI;
+    }
     if (this.fast(f)) {
       const s = this.memo.get(f);
       return s.phi + s.logI;
@@ -166,6 +231,13 @@ export class LogDistinctBoundedCounts {
     if (f1 === f2) return 0;
     const n = this.exact.length;
     if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
+    if (f1 >= n && f2 >= n && this.central(f1) && this.central(f2)) {
+      // φ_{f1}(t1) − φ_{f2}(t2) = (f1 − f2)t1 + (f2 − S/2)(t1 − t2) + C(t1) − C(t2).
+      const s1 = this.centralMemo.get(f1);
+      const s2 = this.centralMemo.get(f2);
+      const phi = (f1 - f2) * s1.t + (f2 - this.total / 2) * (s1.t - s2.t) + this.series.difference(s1.t, s2.t);
+      return phi + s1.logI - s2.logI;
+    }
     if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
     const s1 = this.memo.get(f1);
     const s2 = this.memo.get(f2);
@@ -175,6 +247,60 @@ export class LogDistinctBoundedCounts {
   /** The real saddle point for m (also a Boltzmann parameter of mean size ≈ m). */
   saddlePoint(m: number): number {
     return distinctBoundedSaddle(this.a, this.b, m);
+  }
+
+  /**
+   * The t (of either sign) at which Boltzmann distinct parts in [a, b] have mean size m,
+   * Σ k/(e^{kt} + 1) = m, for 0 < m < S (finite b; m > S/2 by symmetry, t(S − m) = −t(m)).
+   */
+  tilt(m: number): number {
+    const f = this.fold(m);
+    const sign = m > this.total / 2 ? -1 : 1;
+    if (f >= this.middleFrom) return sign * this.middleSaddle(f);
+    return sign * distinctBoundedSaddle(this.a, this.b, Math.max(1, f));
+  }
+
+  /** φ(t) = N log 2 + (m − S/2)t + C(t) of the middle regime. */
+  private centralPhi(m: number, t: number): number {
+    return (this.b - this.a + 1) * Math.LN2 + (m - this.total / 2) * t + this.series.value(t);
+  }
+
+  /**
+   * The saddle point of the middle regime, C'(t) = S/2 − m (folded m >= middleFrom): Newton from
+   * t = (S/2 − m)/C''(0). C' is odd, increasing and concave on t >= 0, so from below the steps
+   * stay below the root and rise to it.
+   */
+  private middleSaddle(m: number): number {
+    const target = this.total / 2 - m;
+    if (target <= 0) return 0;
+    const [, c0] = this.series.derivatives(0);
+    let t = target / c0;
+    for (let i = 0; i < 60; i++) {
+      const [d1, d2] = this.series.derivatives(t);
+      const step = (target - d1) / d2;
+      t += step;
+      if (!(Math.abs(step) > 1e-16 * t)) break;
+    }
+    return t;
+  }
+
+  /** The middle regime's integral at folded m (see the class comment). */
+  private computeCentral(m: number): SaddleIntegral {
+    const t = this.middleSaddle(m);
+    const [, d2] = this.series.derivatives(t);
+    const sigma = Math.sqrt(d2);
+    const { K, h, last: first } = trapezoidGrid(sigma);
+    let sum = 1;
+    for (let j = 1; j <= K / 2; j++) {
+      const y = j * h;
+      const [re, ci] = this.series.shift(t, y);
+      if (Number.isNaN(re)) throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}]: the power series does not reach node ${j}`);
+      // (m − S/2)·y mod 2π, both phases exact: S·y/2 = 2π(S·j mod 2K)/(2K).
+      const im = nodePhase(m, j, K) - nodePhase(this.total, j, 2 * K) + ci;
+      sum += 2 * Math.exp(re) * Math.cos(im);
+      if (j >= first && re < -CUTOFF) break;
+    }
+    return { t, phi: 0, logI: Math.log((h * sum) / (2 * Math.PI)) };
   }
 
   /** Grows the exact table to cover m (finite b, where the integral is not used). */
