@@ -17,30 +17,39 @@
  * rounding ~1e-16·δ and not ~1e-16·C (C ~ N at the saddle).
  */
 export class LogCoshSum {
-  /** Terms kept: enough for |w| <= MAX_W to 1e-20 relative (|w|^{2n}·N/n). */
-  static readonly MAX_TERMS = 260;
-  /** Largest |w| = b|τ|/π at which the series is summed (terms fall like |w|^{2n}). */
+  /** Largest |w| = b|τ|/π at which the series may be summed (terms fall like |w|^{2n}). */
   static readonly MAX_W = 0.87;
   readonly total: number;
   readonly size: number;
-  /** c_n, n = 1..MAX_TERMS (index n − 1). */
+  /** Terms kept: |c_n|·|w|^{2n} <= N·reach^{2n}/n below 1e-22 relative to N beyond them. */
+  readonly terms: number;
+  /** c_n, n = 1..terms (index n − 1). */
   private readonly coefficients: Float64Array;
 
+  /** `reach`: the largest |w| = b|τ|/π the caller will ask for (<= MAX_W). */
   constructor(
     readonly a: number,
     readonly b: number,
+    readonly reach = LogCoshSum.MAX_W,
   ) {
     if (!Number.isInteger(a) || a < 1 || !Number.isInteger(b) || b < a) throw new RangeError(`need integers 1 <= a <= b, got [${a}, ${b}]`);
+    if (!(reach > 0 && reach <= LogCoshSum.MAX_W)) throw new RangeError(`reach must be in (0, ${LogCoshSum.MAX_W}], got ${reach}`);
     this.size = b - a + 1;
     this.total = ((a + b) * this.size) / 2;
-    const p = powerSums(a, b, LogCoshSum.MAX_TERMS);
-    this.coefficients = new Float64Array(LogCoshSum.MAX_TERMS);
-    for (let n = 1; n <= LogCoshSum.MAX_TERMS; n++) this.coefficients[n - 1] = ((n % 2 === 1 ? 1 : -1) * oddZeta(2 * n) * p[n - 1]) / n;
+    this.terms = LogCoshSum.termsFor(reach);
+    const p = powerSums(a, b, this.terms);
+    this.coefficients = new Float64Array(this.terms);
+    for (let n = 1; n <= this.terms; n++) this.coefficients[n - 1] = ((n % 2 === 1 ? 1 : -1) * oddZeta(2 * n) * p[n - 1]) / n;
+  }
+
+  /** Terms for a reach: reach^{2n} < 1e-22 (c_n <= p_n/n <= N/n and the sums are >= their first term ~ N·w²). */
+  static termsFor(reach: number): number {
+    return Math.max(4, Math.ceil(Math.log(1e-22) / (2 * Math.log(reach))) + 2);
   }
 
   /** Additions the constructor does (power sums; for setup estimates). */
-  static setupWork(a: number, b: number): number {
-    return (b - a + 1) * 60;
+  static setupWork(a: number, b: number, reach = LogCoshSum.MAX_W): number {
+    return (b - a + 1) * Math.min(LogCoshSum.termsFor(reach), 60);
   }
 
   /** w = bτ/π scale. */
@@ -48,12 +57,12 @@ export class LogCoshSum {
     return this.b / Math.PI;
   }
 
-  /** C(t) for real t (|bt| < π·MAX_W). */
+  /** C(t) for real t (|bt| <= π·reach). */
   value(t: number): number {
     const u = (this.scale * t) ** 2;
     let sum = 0;
     let pw = 1;
-    for (let n = 0; n < LogCoshSum.MAX_TERMS; n++) {
+    for (let n = 0; n < this.terms; n++) {
       pw *= u;
       const term = this.coefficients[n] * pw;
       sum += term;
@@ -70,7 +79,7 @@ export class LogCoshSum {
     let d1 = 0;
     let d2 = 0;
     let pw = 1; // w^{2n − 2}
-    for (let n = 1; n <= LogCoshSum.MAX_TERMS; n++) {
+    for (let n = 1; n <= this.terms; n++) {
       const c = this.coefficients[n - 1];
       const t2 = 2 * n * (2 * n - 1) * c * pw;
       d2 += t2;
@@ -93,7 +102,7 @@ export class LogCoshSum {
     const umax = Math.max(u1, u2);
     let bound = Math.abs(d1);
     let sum = 0;
-    for (let n = 1; n <= LogCoshSum.MAX_TERMS; n++) {
+    for (let n = 1; n <= this.terms; n++) {
       const c = this.coefficients[n - 1];
       sum += c * d;
       if (d === 0 || Math.abs(c) * n * bound < 1e-20 * Math.abs(sum)) break;
@@ -105,12 +114,12 @@ export class LogCoshSum {
   }
 
   /**
-   * C(t + iy) − C(t) (real, imaginary) for real t, y; NaN when |w| > MAX_W (out of the series'
+   * C(t + iy) − C(t) (real, imaginary) for real t, y; NaN when |w| > reach (out of the series'
    * reach: the caller must not ask there).
    */
   shift(t: number, y: number): [number, number] {
     const s = this.scale;
-    if (s * s * (t * t + y * y) > LogCoshSum.MAX_W * LogCoshSum.MAX_W) return [NaN, NaN];
+    if (s * s * (t * t + y * y) > this.reach * this.reach) return [NaN, NaN];
     const u0 = (s * t) ** 2;
     // u = (s(t + iy))² = s²(t² − y²) + i·2s²ty; D_1 = u − u0 = s²(−y² + 2ity).
     const ur = s * s * (t * t - y * y);
@@ -121,11 +130,11 @@ export class LogCoshSum {
     let di = d1i;
     let u0n = u0;
     // |D_n| <= n·max(|u|, u0)^{n−1}·|D_1| (along the segment from u0 to u): stop once negligible.
-    const umax = Math.max(Math.hypot(ur, ui), u0);
-    let bound = Math.hypot(d1r, d1i);
+    const umax = Math.max(Math.sqrt(ur * ur + ui * ui), u0);
+    let bound = Math.sqrt(d1r * d1r + d1i * d1i);
     let sr = 0;
     let si = 0;
-    for (let n = 1; n <= LogCoshSum.MAX_TERMS; n++) {
+    for (let n = 1; n <= this.terms; n++) {
       const c = this.coefficients[n - 1];
       sr += c * dr;
       si += c * di;

@@ -71,11 +71,19 @@ export class LogDistinctBoundedCounts {
   /** The least folded m whose saddle point has (b + 1)t <= CENTRAL_MAX_BT (finite b; −1: not yet computed). */
   private seriesFrom = -1;
   private wideRange: boolean | undefined;
+  /** The largest |w| the series is asked for (set with wideRange). */
+  private reach = LogCoshSum.MAX_W;
 
+  /**
+   * `below`: counts for the same a and a smaller b (same exactUpTo), whose table this one's is
+   * built from by multiplying in the factors (1 + q^k), b_below < k <= b (the same doubles as a
+   * table built from scratch, for a fraction of the additions); shared as is when b_below >= exactUpTo.
+   */
   constructor(
     readonly a: number,
     readonly b: number = Infinity,
     readonly exactUpTo: number = defaultDistinctExactUpTo(a),
+    private readonly below?: LogDistinctBoundedCounts,
   ) {
     if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be an integer >= 1, got ${a}`);
     if (b !== Infinity && (!Number.isInteger(b) || b < a)) throw new RangeError(`b must be an integer >= a or Infinity, got ${b}`);
@@ -86,7 +94,9 @@ export class LogDistinctBoundedCounts {
 
   private get exact(): Float64Array {
     if (this.table === null) {
-      this.table = knapsack(this.a, this.b, this.tableEnd);
+      const below = this.below;
+      const chained = below !== undefined && below.a === this.a && below.b <= this.b && below.tableEnd === this.tableEnd;
+      this.table = chained ? extendKnapsack(below.exact, below.b, this.b) : knapsack(this.a, this.b, this.tableEnd);
       this.logTable = this.table.map(Math.log);
     }
     return this.table;
@@ -97,8 +107,12 @@ export class LogDistinctBoundedCounts {
     return this.logTable!;
   }
 
+  /** The series, summed out to the reach the regime needs (see `wide`). */
   private get series(): LogCoshSum {
-    if (this.cosh === null) this.cosh = new LogCoshSum(this.a, this.b);
+    if (this.cosh === null) {
+      void this.wide;
+      this.cosh = new LogCoshSum(this.a, this.b, this.reach);
+    }
     return this.cosh;
   }
 
@@ -120,11 +134,18 @@ export class LogDistinctBoundedCounts {
    */
   private get wide(): boolean {
     if (this.wideRange === undefined) {
+      // Real t up to CENTRAL_MAX_BT/(b + 1) (saddle points, middleFrom) need |w| <= 0.4.
+      const t = LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1);
+      this.reach = Math.max(0.4, (this.b * t) / Math.PI) * 1.01;
       let ok = this.b !== Infinity && this.b - this.a + 1 >= LogDistinctBoundedCounts.CENTRAL_MIN_RANGE;
       if (ok) {
-        const t = LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1);
-        const { h, last } = trapezoidGrid(Math.sqrt(this.series.derivatives(t)[1]));
-        ok = (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI <= LogCoshSum.MAX_W;
+        // σ² = C''(t) = Σ (k/2)²·sech²(kt/2), directly; the last node the trapezoid visits.
+        let v = 0;
+        for (let k = this.a; k <= this.b; k++) v += (k * k) / (4 * Math.cosh((k * t) / 2) ** 2);
+        const { h, last } = trapezoidGrid(Math.sqrt(v));
+        const w = (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI;
+        ok = w <= LogCoshSum.MAX_W;
+        if (ok) this.reach = Math.min(LogCoshSum.MAX_W, Math.max(this.reach, w * 1.01));
       }
       this.wideRange = ok;
     }
@@ -136,10 +157,10 @@ export class LogDistinctBoundedCounts {
     return this.wide && m >= this.middleFrom;
   }
 
-  /** Additions done by the constructor (setup work). */
-  static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a)): number {
+  /** Additions the table costs (setup work), built from one for [a, from] (from = a − 1: from scratch). */
+  static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a), from = a - 1): number {
     let sum = 0;
-    for (let k = a; k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
+    for (let k = Math.max(a, from + 1); k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
     return sum;
   }
 
@@ -166,6 +187,30 @@ export class LogDistinctBoundedCounts {
     if (top <= this.tableEnd || this.central(top) || this.fast(top)) return true;
     return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
+  }
+
+  /**
+   * How log Q(m) is served: 'table' (tabulated), 'middle' (the power-series integral), 'tail'
+   * (the integral with the tail series T_b, or b = ∞) or 'grown' (an exact table grown on demand).
+   */
+  regime(m: number): 'table' | 'middle' | 'tail' | 'grown' {
+    const f = this.fold(Math.min(m, this.total));
+    if (f <= this.tableEnd) return 'table';
+    if (this.central(f)) return 'middle';
+    return this.fast(f) ? 'tail' : 'grown';
+  }
+
+  /** Additions the power series' coefficients cost (0 for b = ∞). */
+  seriesWork(): number {
+    if (this.b === Infinity) return 0;
+    void this.wide;
+    return LogCoshSum.setupWork(this.a, this.b, this.reach);
+  }
+
+  /** Terms per node of the power series (for work estimates). */
+  seriesTerms(): number {
+    void this.wide;
+    return LogCoshSum.termsFor(this.reach);
   }
 
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
@@ -208,7 +253,7 @@ export class LogDistinctBoundedCounts {
     this.check(m);
     if (m > this.total) return -Infinity;
     const f = this.fold(m);
-    if (f < this.exact.length) return this.logExact[f];
+    if (f <= this.tableEnd) return f < this.exact.length ? this.logExact[f] : -Infinity;
     if (this.central(f)) {
       const s = this.centralMemo.get(f);
       return this.centralPhi(f, s.t) + s.logI;
@@ -229,7 +274,7 @@ export class LogDistinctBoundedCounts {
     const f1 = this.fold(m1);
     const f2 = this.fold(m2);
     if (f1 === f2) return 0;
-    const n = this.exact.length;
+    const n = this.tableEnd + 1;
     if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
     if (f1 >= n && f2 >= n && this.central(f1) && this.central(f2)) {
       // φ_{f1}(t1) − φ_{f2}(t2) = (f1 − f2)t1 + (f2 − S/2)(t1 − t2) + C(t1) − C(t2).
@@ -340,6 +385,16 @@ function knapsack(a: number, b: number, upTo: number): Float64Array {
   c[0] = 1;
   const last = Math.min(b, upTo);
   for (let k = a; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
+  return c;
+}
+
+/** Q(0..upTo) for parts in [a, b] from the table for [a, b0], b0 <= b (shared when nothing is to multiply in). */
+function extendKnapsack(base: Float64Array, b0: number, b: number): Float64Array {
+  const upTo = base.length - 1;
+  if (b0 >= upTo || b0 === b) return base;
+  const c = base.slice();
+  const last = Math.min(b, upTo);
+  for (let k = b0 + 1; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
   return c;
 }
 
