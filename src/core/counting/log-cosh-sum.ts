@@ -18,7 +18,7 @@
  */
 export class LogCoshSum {
   /** Largest |w| = b|τ|/π at which the series may be summed (terms fall like |w|^{2n}). */
-  static readonly MAX_W = 0.87;
+  static readonly MAX_W = 0.93;
   readonly total: number;
   readonly size: number;
   /** Terms kept: |c_n|·|w|^{2n} <= N·reach^{2n}/n below 1e-22 relative to N beyond them. */
@@ -49,7 +49,7 @@ export class LogCoshSum {
 
   /** Additions the constructor does (power sums; for setup estimates). */
   static setupWork(a: number, b: number, reach = LogCoshSum.MAX_W): number {
-    return (b - a + 1) * Math.min(LogCoshSum.termsFor(reach), 60);
+    return (b - a + 1) * Math.min(LogCoshSum.termsFor(reach), 100);
   }
 
   /** w = bτ/π scale. */

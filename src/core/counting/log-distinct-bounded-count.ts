@@ -27,7 +27,7 @@ import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
  * - The middle of the polynomial (finite b, (b + 1)t <= CENTRAL_MAX_BT, so t near 0, where the
  *   1/τ pole and T_b cancel and T_b's series converges slowly): the same integral written without
  *   the pole, log Π_{a<=k<=b}(1 + e^{−kτ}) = N log 2 − τS/2 + C(τ), C(τ) = Σ log cosh(kτ/2) as a
- *   power series in τ (log-cosh-sum.ts; every node of the trapezoid stays at |bτ| <= 0.87π), so
+ *   power series in τ (log-cosh-sum.ts; every node of the trapezoid stays at |bτ| <= 0.93π), so
  *   φ(τ) = N log 2 + (m − S/2)τ + C(τ) exactly and the saddle solves C'(t) = S/2 − m (t = 0 at
  *   m = S/2). Only the main arc is kept: at a root of unity of order j >= 2 the product has
  *   modulus at most ~2^{N·2/j}·e^{O(1)} <= 2^{2N/3} (order 3), against 2^N/(σ√(2π)) for the main
@@ -51,8 +51,13 @@ export class LogDistinctBoundedCounts {
   /** Largest exact table built on demand for finite b (additions), and its widest part range (no overflow: Q < 2^1000). */
   static readonly SLOW_TABLE_ADDITIONS = 2e8;
   static readonly SLOW_TABLE_MAX_RANGE = 1000;
-  /** The power series serves (folded) m whose saddle point has (b + 1)t at most this. */
+  /**
+   * The power series serves (folded) m whose saddle point has (b + 1)t at most this (the tail
+   * series serves from (b + 1)t = TAIL_MIN_BT on), and for wide ranges up to the largest (b + 1)t
+   * <= CENTRAL_WIDEST_BT at which every node is within the series' reach.
+   */
   static readonly CENTRAL_MAX_BT = 1.25;
+  static readonly CENTRAL_WIDEST_BT = 2.8;
   /** Least N = b − a + 1 for the power series (the dropped arcs, see the class comment). */
   static readonly CENTRAL_MIN_RANGE = 200;
 
@@ -73,6 +78,8 @@ export class LogDistinctBoundedCounts {
   private wideRange: boolean | undefined;
   /** The largest |w| the series is asked for (set with wideRange). */
   private reach = LogCoshSum.MAX_W;
+  /** The middle regime's largest (b + 1)t (set with wideRange). */
+  private maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
 
   /**
    * `below`: counts for the same a and a smaller b (same exactUpTo), whose table this one's is
@@ -121,7 +128,8 @@ export class LogDistinctBoundedCounts {
     if (this.b === Infinity) return Infinity;
     if (this.seriesFrom < 0) {
       // Mean size at t: S/2 − C'(t), decreasing in t.
-      const [d1] = this.series.derivatives(LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1));
+      void this.wide;
+      const [d1] = this.series.derivatives(this.maxBt / (this.b + 1));
       this.seriesFrom = Math.max(0, Math.ceil(this.total / 2 - d1));
     }
     return this.seriesFrom;
@@ -135,21 +143,47 @@ export class LogDistinctBoundedCounts {
   private get wide(): boolean {
     if (this.wideRange === undefined) {
       // Real t up to CENTRAL_MAX_BT/(b + 1) (saddle points, middleFrom) need |w| <= 0.4.
-      const t = LogDistinctBoundedCounts.CENTRAL_MAX_BT / (this.b + 1);
-      this.reach = Math.max(0.4, (this.b * t) / Math.PI) * 1.01;
+      this.reach = Math.max(0.4, (this.b * LogDistinctBoundedCounts.CENTRAL_MAX_BT) / ((this.b + 1) * Math.PI)) * 1.01;
+      this.maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
       let ok = this.b !== Infinity && this.b - this.a + 1 >= LogDistinctBoundedCounts.CENTRAL_MIN_RANGE;
+      if (ok) ok = this.nodeReach(this.maxBt) * REACH_MARGIN <= LogCoshSum.MAX_W;
       if (ok) {
-        // σ² = C''(t) = Σ (k/2)²·sech²(kt/2), directly; the last node the trapezoid visits.
-        let v = 0;
-        for (let k = this.a; k <= this.b; k++) v += (k * k) / (4 * Math.cosh((k * t) / 2) ** 2);
-        const { h, last } = trapezoidGrid(Math.sqrt(v));
-        const w = (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI;
-        ok = w <= LogCoshSum.MAX_W;
-        if (ok) this.reach = Math.min(LogCoshSum.MAX_W, Math.max(this.reach, w * 1.01));
+        // Wide ranges serve further from the middle, as far as the series reaches (bisection):
+        // fewer counts fall to the slower tail series.
+        let lo = this.maxBt;
+        let hi = LogDistinctBoundedCounts.CENTRAL_WIDEST_BT;
+        if (this.nodeReach(hi) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = hi;
+        else {
+          for (let i = 0; i < 8; i++) {
+            const mid = (lo + hi) / 2;
+            if (this.nodeReach(mid) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = mid;
+            else hi = mid;
+          }
+        }
+        this.maxBt = lo;
+        this.reach = Math.min(LogCoshSum.MAX_W, Math.max(this.reach, this.nodeReach(lo) * REACH_MARGIN));
       }
       this.wideRange = ok;
     }
     return this.wideRange;
+  }
+
+  /**
+   * |w| = b|τ|/π at the trapezoid's last node (one past TRAPEZOID_RANGE/σ) for the saddle point
+   * t = bt/(b + 1): σ² = C''(t) = Σ (k/2)²·sech²(kt/2) by a midpoint sum over ~2000 strides
+   * (relative error ~1e-6, inside REACH_MARGIN). The nodes reach furthest at the largest t.
+   */
+  private nodeReach(bt: number): number {
+    const t = bt / (this.b + 1);
+    const stride = Math.max(1, Math.floor((this.b - this.a + 1) / 2000));
+    let v = 0;
+    for (let k = this.a; k <= this.b; k += stride) {
+      const width = Math.min(stride, this.b - k + 1);
+      const mid = k + (width - 1) / 2;
+      v += (width * mid * mid) / (4 * Math.cosh((mid * t) / 2) ** 2);
+    }
+    const { h, last } = trapezoidGrid(Math.sqrt(v));
+    return (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI;
   }
 
   /** Whether the power-series integral serves this folded m. */
@@ -399,6 +433,8 @@ function extendKnapsack(base: Float64Array, b0: number, b: number): Float64Array
 }
 
 const PI2_12 = (Math.PI * Math.PI) / 12;
+/** Safety factor on the series' reach estimate (the stride sum for σ, the node count's rounding). */
+const REACH_MARGIN = 1.02;
 /** The integrand is summed until it is below e^{−CUTOFF} of its peak. */
 const CUTOFF = 45;
 

@@ -111,7 +111,7 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
         if (regime === 'middle') {
           count = MIDDLE_NODES * counts.seriesTerms() * SERIES_TERM_STEPS;
           setup += counts.seriesWork();
-        } else if (regime === 'tail' || regime === 'grown') {
+        } else if (regime === 'tail') {
           const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * tables.bounded.saddle(bp, typical, cp)));
           count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
         }
