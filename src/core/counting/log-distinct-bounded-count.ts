@@ -241,10 +241,13 @@ export class LogDistinctBoundedCounts {
     return LogCoshSum.setupWork(this.a, this.b, this.reach);
   }
 
-  /** Terms per node of the power series (for work estimates). */
-  seriesTerms(): number {
-    void this.wide;
-    return LogCoshSum.termsFor(this.reach);
+  /** Series terms per node of a middle-regime count at m (for work estimates; the sums stop early). */
+  middleTermsAt(m: number): number {
+    const f = this.fold(Math.min(m, this.total));
+    const t = this.middleSaddle(f);
+    const sigma = Math.sqrt(this.series.derivatives(t)[1]);
+    const w = (this.b * Math.hypot(t, TRAPEZOID_RANGE_NODES / sigma)) / Math.PI;
+    return LogCoshSum.termsFor(Math.min(this.reach, w));
   }
 
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
@@ -433,6 +436,8 @@ function extendKnapsack(base: Float64Array, b0: number, b: number): Float64Array
 }
 
 const PI2_12 = (Math.PI * Math.PI) / 12;
+/** How far out (×1/σ) a middle-regime count's nodes go, for its work estimate. */
+const TRAPEZOID_RANGE_NODES = 10;
 /** Safety factor on the series' reach estimate (the stride sum for σ, the node count's rounding). */
 const REACH_MARGIN = 1.02;
 /** The integrand is summed until it is below e^{−CUTOFF} of its peak. */

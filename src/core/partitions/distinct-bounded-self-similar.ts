@@ -106,13 +106,16 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
         setup += EXACT_COUNT_WORK;
       } else if (cp >= bp) {
         const counts = tables.bounded.countsFor(bp, cp) as LogDistinctBoundedCounts;
-        const typical = Math.max(1, Math.round(size / 4));
+        // The sub-problem's typical size: (size − mean odd part sum at the level's tilt)/2.
+        let oddMean = 0;
+        for (let k = b % 2 === 1 ? b : b + 1; k <= cap && k * tLevel < 40; k += 2) oddMean += k / (Math.exp(k * tLevel) + 1);
+        const typical = Math.max(1, Math.round((size - oddMean) / 2));
         const regime = counts.regime(typical);
         if (regime === 'middle') {
-          count = MIDDLE_NODES * counts.seriesTerms() * SERIES_TERM_STEPS;
+          count = MIDDLE_NODES * counts.middleTermsAt(typical) * SERIES_TERM_STEPS;
           setup += counts.seriesWork();
         } else if (regime === 'tail') {
-          const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * tables.bounded.saddle(bp, typical, cp)));
+          const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * Math.abs(tables.bounded.saddle(bp, typical, cp))));
           count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
         }
         // The exact table to exactUpTo, from the previous (smaller) range with the same bp.
