@@ -40,6 +40,10 @@ export const SHAPES: Array<[string, Shape]> = [
   ['allowed=1,2,5,10,20,50', () => ({ allowed: COINS })],
   ['distinct,minPart=7', () => ({ distinct: true, minPart: 7 })],
   ['distinct,maxPart=2sqrt(n)', (n) => ({ distinct: true, maxPart: 2 * root(n) })],
+  // maxPart near the middle of its range (S = Σ sizes ≈ 2n at 2√n; n > S/2 at 1.5√n).
+  ['distinct,maxPart=1.5sqrt(n)', (n) => ({ distinct: true, maxPart: Math.ceil(1.5 * root(n)) })],
+  ['distinct,maxPart=3sqrt(n)', (n) => ({ distinct: true, maxPart: 3 * root(n) })],
+  ['distinct,minPart=7,maxPart=2sqrt(n)', (n) => ({ distinct: true, minPart: 7, maxPart: 2 * root(n) })],
   ['distinct,length=sqrt(n)/4', (n) => ({ distinct: true, length: Math.ceil(root(n) / 4) })],
   ['distinct,maxLength=sqrt(n)/4', (n) => ({ distinct: true, maxLength: Math.ceil(root(n) / 4) })],
   ['distinct,allowed=1000 sizes', (n) => ({ distinct: true, allowed: spread(n) })],
@@ -223,13 +227,20 @@ function row(cells: string[], widths: number[]): string {
   return cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ');
 }
 
+/**
+ * SHAPES_FILTER=<substring> keeps only the shapes whose name contains it (and skips the issue
+ * rows unless it is empty); SHAPES_SIZES=1e6,1e9 keeps only those n. For local subsets.
+ */
 export async function benchShapes(): Promise<void> {
+  const filter = process.env.SHAPES_FILTER ?? '';
+  const sizes = process.env.SHAPES_SIZES ? process.env.SHAPES_SIZES.split(',').map(Number) : SIZES;
   console.log('\n## Constrained family shapes: ms per exact sample (planner choice) and ratio to one free proposal, same run');
   console.log(`(${ROUNDS} alternating rounds of ~${ROUND_MS} ms per cell; setup = planning, tilts and tables, once per family)`);
   const widths = [36, 6, 34, 9, 10, 11, 7];
   console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
   for (const [name, shape] of SHAPES) {
-    for (const n of SIZES) {
+    if (!name.includes(filter)) continue;
+    for (const n of sizes) {
       const family = { kind: 'partition', n, ...shape(n) } as PartitionFamily;
       const cell = measure(family);
       const label = n.toExponential(0).replace('+', '');
@@ -237,6 +248,7 @@ export async function benchShapes(): Promise<void> {
       else console.log(row([name, label, cell.method, fmt(cell.setupMs), fmt(cell.sampleMs), fmt(cell.proposalMs), cell.ratio.toFixed(1)], widths));
     }
   }
+  if (filter !== '') return;
   console.log('\n## Issue 13 requests: ms per exact sample and ratio to one free proposal, same run');
   console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
   for (const family of ISSUE_ROWS) {
