@@ -342,6 +342,20 @@ export class LogDistinctBoundedCounts {
     return sign * distinctBoundedSaddle(this.a, this.b, Math.max(1, f));
   }
 
+  /**
+   * The Boltzmann mean size Σ_{a<=k<=b} k/(e^{kt} + 1) at real t (finite b): S/2 − C'(t) near
+   * t = 0 (the series), the saddle equation's terms π²/(12t²) − 1/24 − ... + T_b'(t) further out
+   * (accurate there to e^{−π²/t}), S − mean(−t) for t < 0. A guess for the maximisers (exact
+   * searches), so its own accuracy only sets how far they search.
+   */
+  meanSize(t: number): number {
+    if (t < 0) return this.total - this.meanSize(-t);
+    if (t === 0) return this.total / 2;
+    void this.wide;
+    if ((this.b + 1) * t <= this.maxBt) return this.total / 2 - this.series.derivatives(t)[0];
+    return -derivatives(this.a, this.b, 0, t)[0];
+  }
+
   /** φ(t) = N log 2 + (m − S/2)t + C(t) of the middle regime. */
   private centralPhi(m: number, t: number): number {
     return (this.b - this.a + 1) * Math.LN2 + (m - this.total / 2) * t + this.series.value(t);

@@ -1,3 +1,4 @@
+import type { LogDistinctBoundedCounts } from '../counting/log-distinct-bounded-count.js';
 import { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
@@ -195,7 +196,9 @@ export class DistinctSelfSimilarEngine {
     const cp = Math.floor(cap / 2);
     const counts = bounded.countsFor(bp, cp);
     const logX = -bounded.saddle(b, n, cap);
-    const best = bounded.maximiser(counts, n, logX, maximiserGuess(bp, cp, -logX));
+    // The maximiser's guess: the mean size of Q's Boltzmann law at 2t (where d log Q/dm = 2t).
+    const guess = cp === Infinity || cp < bp ? maximiserGuess(bp, cp, -logX) : (counts as LogDistinctBoundedCounts).meanSize(-2 * logX);
+    const best = bounded.maximiser(counts, n, logX, guess);
     const s = b % 2 === 1 ? b : b + 1;
     const [m, j0] = this.accept(source, n, s, cap, logX, counts, best, proposal, top, all);
     this.extra = j0 === 1 ? s : 0;
