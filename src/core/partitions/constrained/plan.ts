@@ -46,8 +46,8 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
  *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7), or distinct-bounded-self-similar where
  *   its counts serve every level (also maxPart near the middle of its range, 1.5-3 sqrt(n), by the
- *   middle-regime counts: 5 ms at 1e8 and 23 ms at 1e9 for 2 sqrt(n), bench shapes on a loaded
- *   machine; e.g. maxPart = 1e4 at n = 1e6: 4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
+ *   middle-regime counts: 2.4 ms at 1e8 and 9 ms at 1e9 for 2 sqrt(n), 8-24 ms for 1.5 and
+ *   3 sqrt(n), bench shapes; e.g. maxPart = 1e4 at n = 1e6: 4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
