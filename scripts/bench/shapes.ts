@@ -40,6 +40,10 @@ export const SHAPES: Array<[string, Shape]> = [
   ['allowed=1,2,5,10,20,50', () => ({ allowed: COINS })],
   ['distinct,minPart=7', () => ({ distinct: true, minPart: 7 })],
   ['distinct,maxPart=2sqrt(n)', (n) => ({ distinct: true, maxPart: 2 * root(n) })],
+  // maxPart near the middle of its range (S = Σ sizes ≈ 2n at 2√n; n > S/2 at 1.5√n).
+  ['distinct,maxPart=1.5sqrt(n)', (n) => ({ distinct: true, maxPart: Math.ceil(1.5 * root(n)) })],
+  ['distinct,maxPart=3sqrt(n)', (n) => ({ distinct: true, maxPart: 3 * root(n) })],
+  ['distinct,minPart=7,maxPart=2sqrt(n)', (n) => ({ distinct: true, minPart: 7, maxPart: 2 * root(n) })],
   ['distinct,length=sqrt(n)/4', (n) => ({ distinct: true, length: Math.ceil(root(n) / 4) })],
   ['distinct,maxLength=sqrt(n)/4', (n) => ({ distinct: true, maxLength: Math.ceil(root(n) / 4) })],
   ['distinct,allowed=1000 sizes', (n) => ({ distinct: true, allowed: spread(n) })],
@@ -268,7 +272,12 @@ function benchDistinctAllowed(widths: number[]): void {
   }
 }
 
+/**
+ * SHAPES_MATCH=<substring> (or SHAPES_FILTER) keeps only the shapes and issue rows whose name
+ * contains it; SHAPES_SIZES=1e6,1e9 keeps only those n. For local subsets.
+ */
 export async function benchShapes(): Promise<void> {
+  const sizes = process.env.SHAPES_SIZES ? process.env.SHAPES_SIZES.split(',').map(Number) : SIZES;
   if (process.argv.includes('distinct-allowed')) {
     benchDistinctAllowed([36, 6, 34, 9, 10, 11, 7]);
     return;
@@ -278,10 +287,10 @@ export async function benchShapes(): Promise<void> {
   const widths = [36, 6, 34, 9, 10, 11, 7];
   console.log(row(['family', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
   // SHAPES_MATCH=text runs only the shapes (and issue rows) whose name contains it.
-  const match = process.env.SHAPES_MATCH ?? '';
+  const match = process.env.SHAPES_MATCH ?? process.env.SHAPES_FILTER ?? '';
   for (const [name, shape] of SHAPES) {
     if (!name.includes(match)) continue;
-    for (const n of SIZES) {
+    for (const n of sizes) {
       const family = { kind: 'partition', n, ...shape(n) } as PartitionFamily;
       const cell = measure(family);
       const label = n.toExponential(0).replace('+', '');

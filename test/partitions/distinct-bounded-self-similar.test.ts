@@ -115,8 +115,10 @@ describe('distinct-bounded-self-similar: the exact law of the number of parts', 
 
 describe('distinct-bounded-self-similar with a largest part c (maxPart)', () => {
   // Chi-square over the enumerated family, levels exercised by low base thresholds; the cases
-  // cover c alone (a = 1), both bounds, a range past its middle at the top level (n >= S/2:
-  // the proposal's x falls back to e^{−1/c}) and a level whose odd range is empty.
+  // cover c alone (a = 1), both bounds, a range past its middle at the top level (n > S/2: the
+  // proposal's x > 1), exactly at it (n = S/2: x = 1), c near 1.5√n, 2√n and 3√n (with and
+  // without minPart = 7; the levels below land on either side of their middles) and a level
+  // whose odd range is empty.
   const cases: Array<[number, number, number, number]> = [
     // n, a, c, base threshold
     [40, 1, 12, 0],
@@ -125,6 +127,12 @@ describe('distinct-bounded-self-similar with a largest part c (maxPart)', () => 
     [40, 1, 10, 0],
     [42, 4, 14, 9],
     [30, 1, 30, 3],
+    [36, 1, 9, 0], // 1.5√n, S = 45 < 2n
+    [36, 1, 12, 0], // 2√n
+    [36, 1, 18, 3], // 3√n
+    [52, 2, 14, 0], // n = S/2
+    [60, 7, 16, 0], // minPart 7, c ≈ 2√n, n ≈ S/2
+    [58, 7, 16, 3], // minPart 7, just past the middle (S = 115)
   ];
   for (const [n, a, c, base] of cases) {
     it(`n = ${n}, parts in [${a}, ${c}], base threshold ${base}`, () => {
@@ -137,6 +145,74 @@ describe('distinct-bounded-self-similar with a largest part c (maxPart)', () => 
       expect(result.pValue).toBeGreaterThan(ALPHA);
     });
   }
+
+  it('through the planner (method forced): maxPart = 2√n, and minPart = 7 with a maxPart past the middle', () => {
+    for (const family of [
+      { kind: 'partition', n: 42, distinct: true, maxPart: 13 },
+      { kind: 'partition', n: 59, distinct: true, minPart: 7, maxPart: 16 },
+    ] satisfies PartitionFamily[]) {
+      // (At these n the planner's sampler hands the whole of n to its base table.)
+      const sampler = constrainedPartitionSampler(family, { method: 'distinct-bounded-self-similar' });
+      expect(sampler.method).toBe('distinct-bounded-self-similar/1');
+      const result = chiSquareUniform(family, sampler, `dbss-plan-cap-${family.n}`);
+      expect(result.members).toBeGreaterThan(20);
+      expect(result.strangers).toBe(0);
+      expect(result.pValue).toBeGreaterThan(ALPHA);
+    }
+  });
+
+  it('the exact law of the sum of the odd parts at n = 160,000 with maxPart = 800 = 2√n (middle-regime counts)', () => {
+    // The top level's accept step decides exactly this statistic: T = |odd parts| has
+    // P(T = s) ∝ O(s)·E((n − s)/2), O counting sets of distinct odd sizes <= c with sum s and E
+    // sets of distinct sizes <= c/2 with sum m (the even parts halved): two double knapsacks.
+    // The level's counts Q_{[1,400]}(m), m ≈ n/4 ≈ S'/2, come from the power series. 2500
+    // samples in 20 bins of about equal probability; false-alarm probability 1e-4.
+    const [n, c] = [160_000, 800];
+    const sampler = new DistinctBoundedSelfSimilarSampler(n, 1, undefined, undefined, c);
+    expect(sampler.servable).toBe(true);
+    const counts = new LogDistinctBoundedCounts(1, c / 2);
+    expect(counts.regime(n / 4)).toBe('middle');
+    const odd = new Float64Array(n + 1);
+    odd[0] = 1;
+    for (let k = 1; k <= c; k += 2) for (let m = n; m >= k; m--) odd[m] += odd[m - k];
+    const even = new Float64Array(n / 2 + 1);
+    even[0] = 1;
+    for (let k = 1; k <= c / 2; k++) for (let m = n / 2; m >= k; m--) even[m] += even[m - k];
+    const weights = new Float64Array(n + 1);
+    let total = 0;
+    for (let s = n % 2; s <= n; s += 2) {
+      weights[s] = odd[s] * even[(n - s) / 2];
+      total += weights[s];
+    }
+    // 20 bins of about equal probability.
+    const BINS = 20;
+    const edges: number[] = [];
+    const probabilities: number[] = [];
+    let acc = 0;
+    let taken = 0;
+    for (let s = 0; s <= n; s++) {
+      acc += weights[s] / total;
+      if (acc >= (probabilities.length + 1) / BINS - 1e-12 || s === n) {
+        edges.push(s);
+        probabilities.push(acc - taken);
+        taken = acc;
+      }
+    }
+    const samples = 2500;
+    const observed = new Array<number>(probabilities.length).fill(0);
+    const source = sampleSource('dbss-cap-odd-sum', 0, 'test');
+    for (let i = 0; i < samples; i++) {
+      const p = sampler.sample(source);
+      if (i < 5) assertValidPartition(p, n);
+      let T = 0;
+      for (const size of p.sizes) if (size % 2 === 1) T += size;
+      let bin = 0;
+      while (edges[bin] < T) bin++;
+      observed[bin]++;
+    }
+    expect(probabilities.length).toBeGreaterThanOrEqual(BINS - 1);
+    expect(chiSquareTest(observed, probabilities).pValue).toBeGreaterThan(ALPHA);
+  });
 
   it('the exact law of the largest part at n = 20,000 with parts in [10, 600] (counts from the integral)', () => {
     // √n ≈ 141, so the bound binds (the largest part of a distinct partition is ~ √n·log n).

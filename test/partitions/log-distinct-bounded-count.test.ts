@@ -141,3 +141,108 @@ describe('log Q(m): partitions into distinct parts in [a, b]', () => {
     }
   });
 });
+
+describe('log Q(m) in the middle of a finite range (the log-cosh power series)', () => {
+  /** Exact Q_{[a,b]}(0..upTo) by the BigInt knapsack Π_{a<=k<=b}(1 + q^k). */
+  function exactRange(a: number, b: number, upTo: number): bigint[] {
+    const c = new Array<bigint>(upTo + 1).fill(0n);
+    c[0] = 1n;
+    for (let k = a; k <= Math.min(b, upTo); k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
+    return c;
+  }
+  const logBig = (x: bigint) => {
+    const bits = x.toString(2).length;
+    const shift = Math.max(0, bits - 60);
+    return Math.log(Number(x >> BigInt(shift))) + shift * Math.LN2;
+  };
+
+  it('the exact middle coefficients of Π_{k<=b}(1 + q^k) are OEIS A063865 (solutions of ±1 ±2 ... ±b = 0)', () => {
+    // A063865 (from memory): 1, 0, 0, 2, 2, 0, 0, 8, 14, 0, 0, 70, 124, 0, 0, 722, 1314 for b = 0..16.
+    const a063865 = [1, 0, 0, 2, 2, 0, 0, 8, 14, 0, 0, 70, 124, 0, 0, 722, 1314];
+    for (let b = 1; b <= 16; b++) {
+      const S = (b * (b + 1)) / 2;
+      const middle = S % 2 === 0 ? Number(exactRange(1, b, S / 2)[S / 2]) : 0;
+      expect(middle, `b=${b}`).toBe(a063865[b]);
+    }
+  });
+
+  // Measured worst |error| of the log-ratios against the BigInt counts: 2.2e-15 ([7, 320]),
+  // 2.4e-15 ([60, 330]), 2.3e-15 ([1, 400]); of log Q itself below 1e-15 relative.
+  for (const [a, b] of [[7, 320], [60, 330], [1, 400]] as const) {
+    it(`parts in [${a}, ${b}]: the series' log Q and log-ratios agree with exact counts up to the middle`, () => {
+      const counts = new LogDistinctBoundedCounts(a, b);
+      const half = Math.floor(counts.total / 2);
+      const exact = exactRange(a, b, half);
+      const from = half - 9000;
+      expect(counts.regime(from)).toBe('middle');
+      expect(counts.regime(half)).toBe('middle');
+      let worst = 0;
+      for (let m = from; m <= half; m += 211) {
+        for (const d of [1, 7, 100]) worst = Math.max(worst, Math.abs(counts.logRatio(m, m - d) - exactLogRatio(exact[m], exact[m - d])));
+        expect(Math.abs(counts.log(m) - logBig(exact[m])) / logBig(exact[m]), `log Q(${m})`).toBeLessThan(2e-15);
+        // Past the middle by symmetry: Q(S − m) = Q(m).
+        expect(counts.logRatio(counts.total - m, m)).toBe(0);
+      }
+      expect(worst).toBeLessThan(5e-15);
+    });
+  }
+
+  it('the regimes meet: log-ratios across the middle regime\'s start equal the sum of their steps', () => {
+    const counts = new LogDistinctBoundedCounts(1, 2000);
+    const half = Math.floor(counts.total / 2);
+    let start = half;
+    while (counts.regime(start - 1) === 'middle') start = Math.floor(start - (half - start) / 2 - 1);
+    for (let m = start - 1; counts.regime(m) === 'middle'; m--) start = m;
+    // start: the first middle m (found from below the boundary, then stepped down to it).
+    expect(counts.regime(start - 1)).toBe('tail');
+    const direct = counts.logRatio(start + 300, start - 300);
+    const steps = counts.logRatio(start + 300, start) + counts.logRatio(start, start - 300);
+    expect(Math.abs(direct - steps)).toBeLessThan(1e-12 * Math.max(1, Math.abs(direct)));
+    // And one step across agrees with the tail regime's neighbouring steps (second difference small).
+    const across = counts.logRatio(start, start - 1);
+    const below = counts.logRatio(start - 1, start - 2);
+    const above = counts.logRatio(start + 1, start);
+    expect(Math.abs(across - (below + above) / 2)).toBeLessThan(1e-9);
+  });
+
+  it('the counts a maxPart = 2√n family uses at n = 1e9 are log-concave near the middle (grid)', () => {
+    for (const b of [31_623, 3952, 494]) {
+      const c = new LogDistinctBoundedCounts(1, b);
+      const half = Math.floor(c.total / 2);
+      for (let m = half; m > half / 2; m -= Math.ceil(half / 300)) {
+        expect(c.logRatio(m + 1, m) - c.logRatio(m, m - 1), `b=${b} m=${m}`).toBeLessThan(0);
+      }
+    }
+  });
+});
+
+describe('the middle regime against the tail series where both serve', () => {
+  // Wide ranges serve the series out to (b + 1)t <= 2.8; from (b + 1)t = 1 the tail series is
+  // accurate too (the tests above), so in the overlap the two log-ratios must agree. Measured
+  // worst difference 3.6e-15. (Reaches into the class's private parts to evaluate both.)
+  for (const [a, b] of [[1, 1000], [7, 5000], [1, 31_623]] as const) {
+    it(`parts in [${a}, ${b}]`, () => {
+      const c = new LogDistinctBoundedCounts(a, b) as unknown as {
+        total: number;
+        regime(m: number): string;
+        logRatio(m1: number, m2: number): number;
+        memo: { get(m: number): { t: number; logI: number } };
+        phiDifference(m1: number, t1: number, m2: number, t2: number): number;
+        middleSaddle(m: number): number;
+      };
+      const half = Math.floor(c.total / 2);
+      let checked = 0;
+      for (let f = Math.floor(c.total * 0.1); f < half; f += Math.ceil(half / 200)) {
+        if (c.regime(f) !== 'middle' || c.regime(f - 50) !== 'middle' || (b + 1) * c.middleSaddle(f - 50) < 1.05) continue;
+        for (const d of [1, 50]) {
+          const s1 = c.memo.get(f);
+          const s2 = c.memo.get(f - d);
+          const tail = c.phiDifference(f, s1.t, f - d, s2.t) + s1.logI - s2.logI;
+          expect(Math.abs(c.logRatio(f, f - d) - tail), `m=${f} d=${d}`).toBeLessThan(1e-14);
+        }
+        checked++;
+      }
+      expect(checked).toBeGreaterThan(10);
+    });
+  }
+});

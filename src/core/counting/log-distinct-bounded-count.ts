@@ -1,3 +1,4 @@
+import { LogCoshSum } from './log-cosh-sum.js';
 import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
 import { saddleNewton } from './saddle-newton.js';
 import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
@@ -22,8 +23,18 @@ import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
  *   trapezoidal rule (step 0.5/σ, σ² = φ''(t), range ±10/σ: error e^{−79} and e^{−50}; Trefethen
  *   & Weideman 2014, SIAM Review 56, §5). The j-series of T_b converges like e^{−j(b+1)t}; it is
  *   used only where (b + 1)t >= TAIL_MIN_BT (there T_b is below ~e^{−3}/t, so its rounding stays
- *   far below 1e-14 relative to Q). Where b is nearer the middle of the polynomial the class
- *   refuses (accurate(m) is false) and the planner keeps the other methods.
+ *   far below 1e-14 relative to Q).
+ * - The middle of the polynomial (finite b, (b + 1)t <= CENTRAL_MAX_BT, so t near 0, where the
+ *   1/τ pole and T_b cancel and T_b's series converges slowly): the same integral written without
+ *   the pole, log Π_{a<=k<=b}(1 + e^{−kτ}) = N log 2 − τS/2 + C(τ), C(τ) = Σ log cosh(kτ/2) as a
+ *   power series in τ (log-cosh-sum.ts; every node of the trapezoid stays at |bτ| <= 0.93π), so
+ *   φ(τ) = N log 2 + (m − S/2)τ + C(τ) exactly and the saddle solves C'(t) = S/2 − m (t = 0 at
+ *   m = S/2). Only the main arc is kept: at a root of unity of order j >= 2 the product has
+ *   modulus at most ~2^{N·2/j}·e^{O(1)} <= 2^{2N/3} (order 3), against 2^N/(σ√(2π)) for the main
+ *   arc, so for N >= CENTRAL_MIN_RANGE the dropped arcs are below 1e-19 relative (checked
+ *   against exact BigInt counts in test/partitions/log-distinct-bounded-count.test.ts). Log-ratios
+ *   in this regime are formed from differences in place (C(t1) − C(t2) term by term).
+ *   Where neither serves (a narrow range near its middle), an exact table grown on demand.
  *   The other arcs (q near roots of unity of order >= 2) are dropped: near q = −1 the factors
  *   1/(1 + q^k), k < a odd, amplify them, so the table must reach further for larger a. Where the
  *   dropped part is below double rounding was decided by comparing with exact BigInt counts
@@ -40,6 +51,15 @@ export class LogDistinctBoundedCounts {
   /** Largest exact table built on demand for finite b (additions), and its widest part range (no overflow: Q < 2^1000). */
   static readonly SLOW_TABLE_ADDITIONS = 2e8;
   static readonly SLOW_TABLE_MAX_RANGE = 1000;
+  /**
+   * The power series serves (folded) m whose saddle point has (b + 1)t at most this (the tail
+   * series serves from (b + 1)t = TAIL_MIN_BT on), and for wide ranges up to the largest (b + 1)t
+   * <= CENTRAL_WIDEST_BT at which every node is within the series' reach.
+   */
+  static readonly CENTRAL_MAX_BT = 1.25;
+  static readonly CENTRAL_WIDEST_BT = 2.8;
+  /** Least N = b − a + 1 for the power series (the dropped arcs, see the class comment). */
+  static readonly CENTRAL_MIN_RANGE = 200;
 
   /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
   readonly total: number;
@@ -49,12 +69,28 @@ export class LogDistinctBoundedCounts {
   /** Largest m the table holds (or will hold once built). */
   private tableEnd: number;
   private readonly memo = new SaddleMemo((m) => computeSaddle(this.a, this.b, m));
+  private readonly centralMemo = new SaddleMemo((m) => this.computeCentral(m));
   private concaveFrom = -1;
+  /** Σ log cosh(kτ/2) as a series (finite b; built on first use). */
+  private cosh: LogCoshSum | null = null;
+  /** The least folded m whose saddle point has (b + 1)t <= CENTRAL_MAX_BT (finite b; −1: not yet computed). */
+  private seriesFrom = -1;
+  private wideRange: boolean | undefined;
+  /** The largest |w| the series is asked for (set with wideRange). */
+  private reach = LogCoshSum.MAX_W;
+  /** The middle regime's largest (b + 1)t (set with wideRange). */
+  private maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
 
+  /**
+   * `below`: counts for the same a and a smaller b (same exactUpTo), whose table this one's is
+   * built from by multiplying in the factors (1 + q^k), b_below < k <= b (the same doubles as a
+   * table built from scratch, for a fraction of the additions); shared as is when b_below >= exactUpTo.
+   */
   constructor(
     readonly a: number,
     readonly b: number = Infinity,
     readonly exactUpTo: number = defaultDistinctExactUpTo(a),
+    private readonly below?: LogDistinctBoundedCounts,
   ) {
     if (!Number.isInteger(a) || a < 1) throw new RangeError(`a must be an integer >= 1, got ${a}`);
     if (b !== Infinity && (!Number.isInteger(b) || b < a)) throw new RangeError(`b must be an integer >= a or Infinity, got ${b}`);
@@ -65,7 +101,9 @@ export class LogDistinctBoundedCounts {
 
   private get exact(): Float64Array {
     if (this.table === null) {
-      this.table = knapsack(this.a, this.b, this.tableEnd);
+      const below = this.below;
+      const chained = below !== undefined && below.a === this.a && below.b <= this.b && below.tableEnd === this.tableEnd;
+      this.table = chained ? extendKnapsack(below.exact, below.b, this.b) : knapsack(this.a, this.b, this.tableEnd);
       this.logTable = this.table.map(Math.log);
     }
     return this.table;
@@ -76,11 +114,88 @@ export class LogDistinctBoundedCounts {
     return this.logTable!;
   }
 
-  /** Additions filling the table (setup work, paid on its first use). */
-  static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a)): number {
+  /** The series, summed out to the reach the regime needs (see `wide`). */
+  private get series(): LogCoshSum {
+    if (this.cosh === null) {
+      void this.wide;
+      this.cosh = new LogCoshSum(this.a, this.b, this.reach);
+    }
+    return this.cosh;
+  }
+
+  /** The least folded m served by the power series' saddle (Infinity for b = ∞). */
+  private get middleFrom(): number {
+    if (this.b === Infinity) return Infinity;
+    if (this.seriesFrom < 0) {
+      // Mean size at t: S/2 − C'(t), decreasing in t.
+      void this.wide;
+      const [d1] = this.series.derivatives(this.maxBt / (this.b + 1));
+      this.seriesFrom = Math.max(0, Math.ceil(this.total / 2 - d1));
+    }
+    return this.seriesFrom;
+  }
+
+  /**
+   * Whether the power-series integral serves this range (finite b): N >= CENTRAL_MIN_RANGE, and at
+   * the regime's largest saddle point ((b + 1)t = CENTRAL_MAX_BT, where the nodes reach furthest
+   * out: the width 1/σ grows with t) the trapezoid's last node is within the series' reach.
+   */
+  private get wide(): boolean {
+    if (this.wideRange === undefined) {
+      // Real t up to CENTRAL_MAX_BT/(b + 1) (saddle points, middleFrom) need |w| <= 0.4.
+      this.reach = Math.max(0.4, (this.b * LogDistinctBoundedCounts.CENTRAL_MAX_BT) / ((this.b + 1) * Math.PI)) * 1.01;
+      this.maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
+      let ok = this.b !== Infinity && this.b - this.a + 1 >= LogDistinctBoundedCounts.CENTRAL_MIN_RANGE;
+      if (ok) ok = this.nodeReach(this.maxBt) * REACH_MARGIN <= LogCoshSum.MAX_W;
+      if (ok) {
+        // Wide ranges serve further from the middle, as far as the series reaches (bisection):
+        // fewer counts fall to the slower tail series.
+        let lo = this.maxBt;
+        let hi = LogDistinctBoundedCounts.CENTRAL_WIDEST_BT;
+        if (this.nodeReach(hi) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = hi;
+        else {
+          for (let i = 0; i < 8; i++) {
+            const mid = (lo + hi) / 2;
+            if (this.nodeReach(mid) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = mid;
+            else hi = mid;
+          }
+        }
+        this.maxBt = lo;
+        this.reach = Math.min(LogCoshSum.MAX_W, Math.max(this.reach, this.nodeReach(lo) * REACH_MARGIN));
+      }
+      this.wideRange = ok;
+    }
+    return this.wideRange;
+  }
+
+  /**
+   * |w| = b|τ|/π at the trapezoid's last node (one past TRAPEZOID_RANGE/σ) for the saddle point
+   * t = bt/(b + 1): σ² = C''(t) = Σ (k/2)²·sech²(kt/2) by a midpoint sum over ~2000 strides
+   * (relative error ~1e-6, inside REACH_MARGIN). The nodes reach furthest at the largest t.
+   */
+  private nodeReach(bt: number): number {
+    const t = bt / (this.b + 1);
+    const stride = Math.max(1, Math.floor((this.b - this.a + 1) / 2000));
+    let v = 0;
+    for (let k = this.a; k <= this.b; k += stride) {
+      const width = Math.min(stride, this.b - k + 1);
+      const mid = k + (width - 1) / 2;
+      v += (width * mid * mid) / (4 * Math.cosh((mid * t) / 2) ** 2);
+    }
+    const { h, last } = trapezoidGrid(Math.sqrt(v));
+    return (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI;
+  }
+
+  /** Whether the power-series integral serves this folded m. */
+  private central(m: number): boolean {
+    return this.wide && m >= this.middleFrom;
+  }
+
+  /** Additions the table costs (setup work), built from one for [a, from] (from = a − 1: from scratch). */
+  static setupWork(a: number, b = Infinity, exactUpTo: number = defaultDistinctExactUpTo(a), from = a - 1): number {
     if (b === Infinity) return byPartsWork(a, exactUpTo);
     let sum = 0;
-    for (let k = a; k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
+    for (let k = Math.max(a, from + 1); k <= Math.min(b, exactUpTo); k++) sum += exactUpTo - k + 1;
     return sum;
   }
 
@@ -103,15 +218,43 @@ export class LogDistinctBoundedCounts {
    */
   servable(mMax: number): boolean {
     const top = Math.min(mMax, Math.floor(this.total / 2));
-    if (top <= this.tableEnd || this.fast(top)) return true;
+    // Below the middle regime the saddle point has (b + 1)t > CENTRAL_MAX_BT, where the tail series serves.
+    if (top <= this.tableEnd || this.central(top) || this.fast(top)) return true;
     return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
+  }
+
+  /**
+   * How log Q(m) is served: 'table' (tabulated), 'middle' (the power-series integral), 'tail'
+   * (the integral with the tail series T_b, or b = ∞) or 'grown' (an exact table grown on demand).
+   */
+  regime(m: number): 'table' | 'middle' | 'tail' | 'grown' {
+    const f = this.fold(Math.min(m, this.total));
+    if (f <= this.tableEnd) return 'table';
+    if (this.central(f)) return 'middle';
+    return this.fast(f) ? 'tail' : 'grown';
+  }
+
+  /** Additions the power series' coefficients cost (0 for b = ∞). */
+  seriesWork(): number {
+    if (this.b === Infinity) return 0;
+    void this.wide;
+    return LogCoshSum.setupWork(this.a, this.b, this.reach);
+  }
+
+  /** Series terms per node of a middle-regime count at m (for work estimates; the sums stop early). */
+  middleTermsAt(m: number): number {
+    const f = this.fold(Math.min(m, this.total));
+    const t = this.middleSaddle(f);
+    const sigma = Math.sqrt(this.series.derivatives(t)[1]);
+    const w = (this.b * Math.hypot(t, TRAPEZOID_RANGE_NODES / sigma)) / Math.PI;
+    return LogCoshSum.termsFor(Math.min(this.reach, w));
   }
 
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
   servesByIntegral(m: number): boolean {
     const f = this.fold(Math.min(m, this.total));
-    return f > this.tableEnd && this.fast(f);
+    return f > this.tableEnd && (this.central(f) || this.fast(f));
   }
 
   /** Additions an exact table up to m costs. */
@@ -148,7 +291,11 @@ export class LogDistinctBoundedCounts {
     this.check(m);
     if (m > this.total) return -Infinity;
     const f = this.fold(m);
-    if (f < this.exact.length) return this.logExact[f];
+    if (f <= this.tableEnd) return f < this.exact.length ? this.logExact[f] : -Infinity;
+    if (this.central(f)) {
+      const s = this.centralMemo.get(f);
+      return this.centralPhi(f, s.t) + s.logI;
+    }
     if (this.fast(f)) {
       const s = this.memo.get(f);
       return s.phi + s.logI;
@@ -165,8 +312,15 @@ export class LogDistinctBoundedCounts {
     const f1 = this.fold(m1);
     const f2 = this.fold(m2);
     if (f1 === f2) return 0;
-    const n = this.exact.length;
+    const n = this.tableEnd + 1;
     if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
+    if (f1 >= n && f2 >= n && this.central(f1) && this.central(f2)) {
+      // φ_{f1}(t1) − φ_{f2}(t2) = (f1 − f2)t1 + (f2 − S/2)(t1 − t2) + C(t1) − C(t2).
+      const s1 = this.centralMemo.get(f1);
+      const s2 = this.centralMemo.get(f2);
+      const phi = (f1 - f2) * s1.t + (f2 - this.total / 2) * (s1.t - s2.t) + this.series.difference(s1.t, s2.t);
+      return phi + s1.logI - s2.logI;
+    }
     if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
     const s1 = this.memo.get(f1);
     const s2 = this.memo.get(f2);
@@ -176,6 +330,74 @@ export class LogDistinctBoundedCounts {
   /** The real saddle point for m (also a Boltzmann parameter of mean size ≈ m). */
   saddlePoint(m: number): number {
     return distinctBoundedSaddle(this.a, this.b, m);
+  }
+
+  /**
+   * The t (of either sign) at which Boltzmann distinct parts in [a, b] have mean size m,
+   * Σ k/(e^{kt} + 1) = m, for 0 < m < S (finite b; m > S/2 by symmetry, t(S − m) = −t(m)).
+   */
+  tilt(m: number): number {
+    const f = this.fold(m);
+    const sign = m > this.total / 2 ? -1 : 1;
+    if (f >= this.middleFrom) return sign * this.middleSaddle(f);
+    return sign * distinctBoundedSaddle(this.a, this.b, Math.max(1, f));
+  }
+
+  /**
+   * The Boltzmann mean size Σ_{a<=k<=b} k/(e^{kt} + 1) at real t (finite b): S/2 − C'(t) near
+   * t = 0 (the series), the saddle equation's terms π²/(12t²) − 1/24 − ... + T_b'(t) further out
+   * (accurate there to e^{−π²/t}), S − mean(−t) for t < 0. A guess for the maximisers (exact
+   * searches), so its own accuracy only sets how far they search.
+   */
+  meanSize(t: number): number {
+    if (t < 0) return this.total - this.meanSize(-t);
+    if (t === 0) return this.total / 2;
+    void this.wide;
+    if ((this.b + 1) * t <= this.maxBt) return this.total / 2 - this.series.derivatives(t)[0];
+    return -derivatives(this.a, this.b, 0, t)[0];
+  }
+
+  /** φ(t) = N log 2 + (m − S/2)t + C(t) of the middle regime. */
+  private centralPhi(m: number, t: number): number {
+    return (this.b - this.a + 1) * Math.LN2 + (m - this.total / 2) * t + this.series.value(t);
+  }
+
+  /**
+   * The saddle point of the middle regime, C'(t) = S/2 − m (folded m >= middleFrom): Newton from
+   * t = (S/2 − m)/C''(0). C' is odd, increasing and concave on t >= 0, so from below the steps
+   * stay below the root and rise to it.
+   */
+  private middleSaddle(m: number): number {
+    const target = this.total / 2 - m;
+    if (target <= 0) return 0;
+    const [, c0] = this.series.derivatives(0);
+    let t = target / c0;
+    for (let i = 0; i < 60; i++) {
+      const [d1, d2] = this.series.derivatives(t);
+      const step = (target - d1) / d2;
+      t += step;
+      if (!(Math.abs(step) > 1e-16 * t)) break;
+    }
+    return t;
+  }
+
+  /** The middle regime's integral at folded m (see the class comment). */
+  private computeCentral(m: number): SaddleIntegral {
+    const t = this.middleSaddle(m);
+    const [, d2] = this.series.derivatives(t);
+    const sigma = Math.sqrt(d2);
+    const { K, h, last: first } = trapezoidGrid(sigma);
+    let sum = 1;
+    for (let j = 1; j <= K / 2; j++) {
+      const y = j * h;
+      const [re, ci] = this.series.shift(t, y);
+      if (Number.isNaN(re)) throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}]: the power series does not reach node ${j}`);
+      // (m − S/2)·y mod 2π, both phases exact: S·y/2 = 2π(S·j mod 2K)/(2K).
+      const im = nodePhase(m, j, K) - nodePhase(this.total, j, 2 * K) + ci;
+      sum += 2 * Math.exp(re) * Math.cos(im);
+      if (j >= first && re < -CUTOFF) break;
+    }
+    return { t, phi: 0, logI: Math.log((h * sum) / (2 * Math.PI)) };
   }
 
   /** Grows the exact table to cover m (finite b, where the integral is not used). */
@@ -247,7 +469,21 @@ function byPartsWork(a: number, upTo: number): number {
   return work;
 }
 
+/** Q(0..upTo) for parts in [a, b] from the table for [a, b0], b0 <= b (shared when nothing is to multiply in). */
+function extendKnapsack(base: Float64Array, b0: number, b: number): Float64Array {
+  const upTo = base.length - 1;
+  if (b0 >= upTo || b0 === b) return base;
+  const c = base.slice();
+  const last = Math.min(b, upTo);
+  for (let k = b0 + 1; k <= last; k++) for (let m = upTo; m >= k; m--) c[m] += c[m - k];
+  return c;
+}
+
 const PI2_12 = (Math.PI * Math.PI) / 12;
+/** How far out (×1/σ) a middle-regime count's nodes go, for its work estimate. */
+const TRAPEZOID_RANGE_NODES = 10;
+/** Safety factor on the series' reach estimate (the stride sum for σ, the node count's rounding). */
+const REACH_MARGIN = 1.02;
 /** The integrand is summed until it is below e^{−CUTOFF} of its peak. */
 const CUTOFF = 45;
 

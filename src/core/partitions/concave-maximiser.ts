@@ -8,7 +8,7 @@ export interface LogConcaveCounts {
 
 /**
  * The maximiser M of a self-similar level's acceptance: argmax over integers 0 <= m <= n/2 of
- * the weight log c(m) + 2m·logX (x < 1). Above L = logConcaveFrom() the weight is concave, so the
+ * the weight log c(m) + 2m·logX (x < 1, or any x for a finite largest part). Above L = logConcaveFrom() the weight is concave, so the
  * last m with a positive forward difference is found by bisection on [L, n/2] (with a guess, the
  * answer is first bracketed by galloping from it: the same answer in ~log₂|guess error| counts
  * instead of log₂ n). m < L is scanned unless the peak is above log c(L), which bounds every
@@ -60,7 +60,9 @@ export function concaveMaximiser(counts: LogConcaveCounts, n: number, logX: numb
     else hi = mid - 1;
   }
   let m = lo;
-  if (counts.log(m) + 2 * m * logX < counts.log(from)) {
+  // Every weight below `from` is at most log c(from) + 2·from·max(0, logX) (see above; x > 1 only
+  // for a finite largest part past the middle of its range).
+  if (counts.log(m) + 2 * m * logX < counts.log(from) + 2 * from * Math.max(0, logX)) {
     for (let k = 0; k < from; k++) if (weight(k, m) > 0) m = k;
   }
   return m;

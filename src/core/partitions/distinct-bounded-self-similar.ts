@@ -72,47 +72,80 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
     this.expectedLength = Math.max(1, parts);
     this.expectedDistinct = this.expectedLength;
     // Per level: 1/P proposals (P ≈ PROPOSALS⁻¹ measured, as for plain distinct parts), each
-    // visiting the odd sizes and evaluating one count (≈ COUNT_NODES·(b' + tail terms) steps
-    // above the table), plus the maximiser's bisection (≈ log₂ n counts; memoised at the top level).
+    // visiting its odd sizes and evaluating one count, plus the maximiser's search (≈ log₂ n
+    // counts; memoised at the top level). A count's cost depends on how it is served (table,
+    // middle power series, tail series above the table; log-distinct-bounded-count.ts).
+    const levels: Array<{ size: number; worst: number; b: number; cap: number }> = [];
+    {
+      let b = a;
+      let cap = c;
+      for (let size = n, worst = n; size > baseThreshold; size = Math.round(size / 4), worst = Math.floor(worst / 2)) {
+        levels.push({ size, worst, b, cap });
+        if (!(b === 1 && cap === Infinity)) {
+          b = Math.ceil(b / 2);
+          cap = Math.floor(cap / 2);
+        }
+      }
+    }
+    // The count tables smallest range first, so that each seeds the next one's (distinct-bounded-tables.ts).
+    for (let i = levels.length - 1; i >= 0; i--) {
+      const { b, cap } = levels[i];
+      if (!(b === 1 && cap === Infinity) && Math.floor(cap / 2) >= Math.ceil(b / 2)) tables.bounded.countsFor(Math.ceil(b / 2), Math.floor(cap / 2));
+    }
     let work = 2 * this.expectedLength + baseThreshold;
     let setup = 0;
     let cells = 0;
     let servable = true;
-    let size = n;
-    let worst = n;
-    let b = a;
-    let cap = c;
-    for (; size > baseThreshold; size = Math.round(size / 4), worst = Math.floor(worst / 2)) {
+    const seeded = new Map<number, number>();
+    for (const { size, worst, b, cap } of levels) {
       if (b === 1 && cap === Infinity) {
         work += visitsPerProposal(size) * PROPOSALS;
         continue;
       }
       const bp = Math.ceil(b / 2);
       const cp = Math.floor(cap / 2);
-      const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * tables.bounded.saddle(bp, Math.max(1, Math.round(size / 4)), cp)));
-      const count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
-      work += PROPOSALS * (visitsPerProposal(size) + count) + Math.log2(size) * count;
-      if (bp === 1 && cp === Infinity) setup += EXACT_COUNT_WORK;
-      else if (cp >= bp) {
+      const tLevel = tables.bounded.saddle(b, Math.max(1, size), cap);
+      const visits = boundedVisits(tLevel, b % 2 === 1 ? b + 2 : b + 3, cap);
+      let count = 1;
+      if (bp === 1 && cp === Infinity) {
+        count = COUNT_NODES * 2;
+        setup += EXACT_COUNT_WORK;
+      } else if (cp >= bp) {
         const counts = tables.bounded.countsFor(bp, cp) as LogDistinctBoundedCounts;
-        setup += LogDistinctBoundedCounts.setupWork(bp, cp);
-        cells += 2 * (defaultDistinctExactUpTo(bp) + 1);
+        // The sub-problem's typical size: (size − mean odd part sum at the level's tilt)/2.
+        let oddMean = 0;
+        for (let k = b % 2 === 1 ? b : b + 1; k <= cap && k * tLevel < 40; k += 2) oddMean += k / (Math.exp(k * tLevel) + 1);
+        const typical = Math.max(1, Math.round((size - oddMean) / 2));
+        const regime = counts.regime(typical);
+        if (regime === 'middle') {
+          count = MIDDLE_NODES * counts.middleTermsAt(typical) * SERIES_TERM_STEPS;
+          setup += counts.seriesWork();
+        } else if (regime === 'tail') {
+          const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * Math.abs(tables.bounded.saddle(bp, typical, cp))));
+          count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
+        }
+        // The exact table to exactUpTo, from the previous (smaller) range with the same bp.
+        const from = seeded.get(bp);
+        setup += LogDistinctBoundedCounts.setupWork(bp, cp, counts.exactUpTo, from === undefined || from > cp ? bp - 1 : from);
+        if (from === undefined || from > cp) seeded.set(bp, cp);
+        cells += 2 * (counts.exactUpTo + 1);
         if (cp !== Infinity) {
           const top = Math.min(Math.floor(worst / 2), Math.floor(counts.total / 2));
           if (!counts.servable(top)) servable = false;
-          else if (top > counts.exactUpTo && !counts.servesByIntegral(top)) {
+          else if (regime === 'grown') {
+            // The sizes this level meets need an exact table grown past exactUpTo: built, so timed.
+            const reach = Math.min(Math.floor(counts.total / 2), 2 * typical);
+            setup += LogDistinctBoundedCounts.slowTableWork(bp, cp, reach);
+            cells += reach + 1;
+          } else if (top > counts.exactUpTo && counts.regime(top) === 'grown') {
             // An exact table grown on demand: its memory is counted, not its time, since it is
             // built only if a level's size lands far above its typical n/4^l (probability ~0).
             cells += top + 1;
           }
         }
       }
-      b = bp;
-      cap = cp;
+      work += PROPOSALS * (visits + count) + Math.log2(size) * count;
     }
-    // The base table for the last smallest part (cells, ~1 step each).
-    setup += (baseThreshold + 1) ** 2 / STEPS_PER_ADDITION;
-    cells += (baseThreshold + 1) ** 2;
     this.expectedWork = work;
     this.setupWork = setup * STEPS_PER_ADDITION;
     this.setupCells = cells;
@@ -126,6 +159,22 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
 
 /** Proposals per accepted level (measured ≈ 1.2–1.6 at n = 1e4..1e9 for a = 7, 50). */
 const PROPOSALS = 1.5;
+/** Nodes of a middle-regime count (the trapezoid's ±10/σ at step 0.5/σ) and steps per series term. */
+const MIDDLE_NODES = 22;
+const SERIES_TERM_STEPS = 0.25;
+
+/**
+ * Odd sizes s, s + 2, ... <= cap a proposal at tilt t visits: one by one while p_k > 1/4 (all of
+ * them for t <= 0), then about VISITS_PER_TAIL_PART per part of the thinned tail
+ * (Σ_{odd k > K} p_k ≈ (1/2t)·log((1 + e^{−Kt})/(1 + e^{−cap·t})), distinct-odd-proposal.ts).
+ */
+function boundedVisits(t: number, s: number, cap: number): number {
+  if (!(t > 0)) return Math.max(0, (cap - s) / 2 + 1);
+  const K = Math.min(cap, Math.log(3) / t);
+  const direct = Math.max(0, (K - s) / 2 + 1);
+  const tail = cap <= K ? 0 : (Math.log1p(Math.exp(-K * t)) - (cap === Infinity ? 0 : Math.log1p(Math.exp(-cap * t)))) / (2 * t);
+  return direct + 1.5 * tail + 2;
+}
 /** Steps per count above the table: ~30 trapezoid nodes plus Newton, each over b' factors. */
 const COUNT_NODES = 30;
 const STEPS_PER_ADDITION = 0.05;

@@ -31,10 +31,19 @@ export class DistinctBoundedTables {
     const key = `${b},${c}`;
     let counts = this.counts.get(key);
     if (counts === undefined) {
-      counts = new LogDistinctBoundedCounts(b, c);
+      counts = new LogDistinctBoundedCounts(b, c, undefined, this.below(b, c));
       this.counts.set(key, counts);
     }
     return counts;
+  }
+
+  /** The counts already made for smallest part b with the largest upper bound below c (their table seeds c's). */
+  private below(b: number, c: number): LogDistinctBoundedCounts | undefined {
+    let best: LogDistinctBoundedCounts | undefined;
+    for (const counts of this.counts.values()) {
+      if (counts.a === b && counts.b < c && (best === undefined || counts.b > best.b)) best = counts;
+    }
+    return best;
   }
 
   /** The unranking table for distinct parts >= lo up to the base threshold. */
@@ -48,11 +57,15 @@ export class DistinctBoundedTables {
   }
 
   /**
-   * t with Boltzmann mean size ≈ n for distinct parts in [b, c] (any t > 0 is exact; this one is
-   * efficient). Past the middle of a finite range (n >= S/2, no positive saddle) t = 1/c.
+   * t with Boltzmann mean size ≈ n for distinct parts in [b, c] (any real t is exact for a finite
+   * c, any t > 0 for c = ∞; this one is efficient): negative past the middle of a finite range
+   * (n > S/2), 0 at it (log-distinct-bounded-count.ts, tilt).
    */
   saddle(b: number, n: number, c = Infinity): number {
-    if (c !== Infinity && n >= ((b + c) * (c - b + 1)) / 4) return 1 / c;
+    if (c !== Infinity && c >= b) {
+      const t = (this.countsFor(b, c) as LogDistinctBoundedCounts).tilt(n);
+      return Number.isFinite(t) ? t : 1 / c;
+    }
     const t = distinctBoundedSaddle(b, c, n);
     return t > 0 && Number.isFinite(t) ? t : c === Infinity ? Math.PI / Math.sqrt(12 * n) : 1 / c;
   }
@@ -68,6 +81,9 @@ export class DistinctBoundedTables {
  * (Q's saddle point at m) equals 2t, i.e. the Boltzmann mean size Σ_{b<=k<=c} k/(e^{2tk} + 1).
  */
 export function maximiserGuess(b: number, c: number, t: number): number {
+  // Past the middle (t < 0): the mean at −t taken from the sum of all sizes (symmetry).
+  if (t < 0 && c !== Infinity) return ((b + c) * (c - b + 1)) / 2 - maximiserGuess(b, c, -t);
+  if (t === 0 && c !== Infinity) return ((b + c) * (c - b + 1)) / 4;
   // A midpoint sum over at most ~GUESS_TERMS strides (only a guess: the search is exact anyway).
   const last = Math.min(c, b + 40 / (2 * t));
   const stride = Math.max(1, Math.floor((last - b + 1) / GUESS_TERMS));

@@ -32,10 +32,13 @@ export class DistinctOddProposal {
 
   /**
    * Draws the parts k = start, start + step, ... <= last at x = e^{logX}; returns their sum or
-   * OVER. (last = Infinity draws exactly as without it.)
+   * OVER. (last = Infinity draws exactly as without it.) x >= 1 is allowed with a finite last:
+   * then every p_k >= 1/2 and all sizes are drawn one by one.
    */
   draw(source: RandomSource, logX: number, start: number, step: number, budget: number, last = Infinity): number {
-    if (!(logX < 0)) throw new RangeError(`log x must be negative, got ${logX}`);
+    if (!(logX < 0) && !(logX >= 0 && Number.isFinite(logX) && last !== Infinity)) {
+      throw new RangeError(`log x must be negative (or finite with a largest size), got ${logX}`);
+    }
     let count = 0;
     let total = 0;
     let visited = 0;

@@ -1,3 +1,4 @@
+import type { LogDistinctBoundedCounts } from '../counting/log-distinct-bounded-count.js';
 import { LogDistinctPartitionNumbers } from '../counting/log-distinct-partition-number.js';
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
@@ -50,6 +51,10 @@ import { DistinctPartitionTable } from './distinct-table.js';
  *   3. T = |A|; reject if T > n; m = (n − T)/2; accept with probability
  *      Q(m)·x^{2m}·x^{s·j0} / max_{m'} Q(m')x^{2m'},  Q = Q_{⌈b/2⌉} the count of distinct parts
  *      >= ⌈b/2⌉ (the plain q when ⌈b/2⌉ = 1). P(A accepted) ∝ x^{T − s·j0}·Q(m)x^{2m + s·j0} ∝ Q(m).
+ * With a largest part c the sizes stop at c (Q then counts parts in [⌈b/2⌉, ⌊c/2⌋]), and past the
+ * middle of the range (n > S/2, S the sum of all allowed sizes) the saddle point is negative: x > 1,
+ * each odd size present with probability x^k/(1 + x^k) > 1/2, and the bound of step 3 is multiplied
+ * by x^s so that it still bounds the j0 = 1 case (a constant factor: the law is unchanged).
  * The base table then counts distinct parts >= b_l (distinct-table.ts with its lo).
  *
  * Glaisher's bijection (partitions into odd parts ↔ distinct parts) was the alternative: it would
@@ -191,7 +196,9 @@ export class DistinctSelfSimilarEngine {
     const cp = Math.floor(cap / 2);
     const counts = bounded.countsFor(bp, cp);
     const logX = -bounded.saddle(b, n, cap);
-    const best = bounded.maximiser(counts, n, logX, maximiserGuess(bp, cp, -logX));
+    // The maximiser's guess: the mean size of Q's Boltzmann law at 2t (where d log Q/dm = 2t).
+    const guess = cp === Infinity || cp < bp ? maximiserGuess(bp, cp, -logX) : (counts as LogDistinctBoundedCounts).meanSize(-2 * logX);
+    const best = bounded.maximiser(counts, n, logX, guess);
     const s = b % 2 === 1 ? b : b + 1;
     const [m, j0] = this.accept(source, n, s, cap, logX, counts, best, proposal, top, all);
     this.extra = j0 === 1 ? s : 0;
@@ -229,8 +236,9 @@ export class DistinctSelfSimilarEngine {
       const t = rest + s * j0;
       if (t > n) continue;
       const m = (n - t) / 2;
-      // log of Q(m)x^{2m}x^{s·j0} / Q(best)x^{2·best}.
-      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX;
+      // log of Q(m)x^{2m}x^{s·j0} / (Q(best)x^{2·best}·max(1, x^s)): with x > 1 (past the middle
+      // of a finite range) the bound takes x^s in, so that it holds for j0 = 1 too.
+      const logAccept = counts.logRatio(m, best) + 2 * (m - best) * logX + s * j0 * logX - (logX > 0 ? s * logX : 0);
       if (logAccept >= 0 || source.nextDouble() < Math.exp(logAccept)) return [m, j0];
     }
   }

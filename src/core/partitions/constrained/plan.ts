@@ -46,8 +46,9 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   (2 <= a <= 200) up to n = 1e9 (distinct-bounded-self-similar: 0.26 ms per sample at 1e6, 6 ms
  *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
  *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7), or distinct-bounded-self-similar where
- *   its counts serve every level (not for maxPart ~ 2 sqrt(n); e.g. maxPart = 1e4 at n = 1e6:
- *   4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
+ *   its counts serve every level (also maxPart near the middle of its range, 1.5-3 sqrt(n), by the
+ *   middle-regime counts: 2.4 ms at 1e8 and 9 ms at 1e9 for 2 sqrt(n), 8-24 ms for 1.5 and
+ *   3 sqrt(n), bench shapes; e.g. maxPart = 1e4 at n = 1e6: 4 ms against 11 ms); parts <= m, "at most K parts" and "exactly k
  *   parts" (conjugated to parts <= K) up to n = 1e9 for m, K, k up to ~1000 (3e4 steps,
  *   ~10-30 ms) by bounded-boltzmann, and for m, K, k near √n or above by bounded-self-similar
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
@@ -225,8 +226,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
     // Distinct parts in [a, c] (a <= 200; a >= 2 or c < n): the same engine with the bounds going
     // down the levels (distinct-bounded-self-similar.ts), where its counts serve every level
-    // (`servable`: not for an upper bound near the middle of its range at large n, e.g.
-    // maxPart ~ 2√n). Its setup is time (count tables of a few thousand doubles each), so it fits
+    // (`servable`; an upper bound near the middle of its range, e.g. maxPart ~ 2√n, is served
+    // by the counts' middle regime). Its setup is time (count tables of a few thousand doubles each), so it fits
     // on the sample-work limit and the memory it holds.
     // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated faster.
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
