@@ -166,8 +166,9 @@ const PROPOSALS = 1.5;
  * CPU, load < 0.3: b = √n/8 6.9 ms against 1.84 at 1e7, 11.8 against 3.17 at 1e8), so the planner
  * took it over bounded-boltzmann (3.0 ms measured) for length / maxLength = √n/4 at 1e7. It is
  * now quadratic in √size / b (cap 64): the same sweep measures 0.6-0.95 of the estimate for
- * b = √n/8 and √n/4 at n = 1e6-1e8 (0.16-1.1 at 1e5, where it is an over-estimate); b >= √n/2
- * is unchanged (r <= 2: measured 0.6-3, higher at n = 1e6-1e7 on short warm-ups).
+ * b = √n/8 and √n/4 at n = 1e6-1e8 (0.16-1.1 at 1e5, where it is an over-estimate); b = √n/2
+ * gains ~40% at 1e7 (r = 2), b = √n is unchanged and 2√n slightly lower (measured 0.6-3 there,
+ * higher at n = 1e6-1e7 on short warm-ups).
  * In steps of this method's 30 ns row:
  */
 /** Per estimated odd size of a proposal. */
