@@ -79,7 +79,7 @@ export class BoundedSelfSimilarSampler implements PartitionSampler {
       const nextHi = Math.floor(hi / 2);
       cap = Math.floor(cap / 2);
       const end = nextHi < nextLo ? 0 : tables.boundedTableEnd(nextLo, nextHi, cap);
-      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + NARROW_LEVEL_STEPS * Math.min(8, Math.sqrt(size) / hi));
+      work += VISITED_STEPS * PROPOSALS * (odd + 2) + (size / 2 <= end ? 2 * Math.log2(size) : SQRT_STEPS * Math.sqrt(size) + NARROW_LEVEL_STEPS * Math.min(64, (Math.sqrt(size) / hi) ** 2));
       if (nextHi >= nextLo && size / 4 - (TABLE_REACH_SD * oddPartsSizeSd(lo, hi, tl)) / 2 <= end) {
         setup += LogBoundedPartCounts.setupWork(nextLo, nextHi, end);
         cells += 2 * (end + 1);
@@ -160,12 +160,20 @@ const PROPOSALS = 1.5;
  * BoundedSelfSimilarSampler; the planner's view of it is scripts/bench/plan-fit.ts):
  * time ≈ 34 ns × PROPOSALS·(odd + 2) + 73 ns × √size per level above its table + ~30-130 µs per
  * such level, more where b is small against √size (b = √n/4: the deeper levels' bounds are
- * small and their counts miss more). Measured / estimated 0.6-1.6, 2-3 for b = √n/4 at
- * n = 1e7-1e8. In steps of this method's 30 ns row:
+ * small and their counts miss more). With that level term linear in √size / b, measured /
+ * estimated was 2-4 for b = √n/8 and √n/4 at n = 1e6-1e8 (`npm run bench -- plan-fit`
+ * length=sqrt(n)/4 at 1e7: 5.05 ms against 1.27; a direct sweep, 150-300 ms warm-up, process
+ * CPU, load < 0.3: b = √n/8 6.9 ms against 1.84 at 1e7, 11.8 against 3.17 at 1e8), so the planner
+ * took it over bounded-boltzmann (3.0 ms measured) for length / maxLength = √n/4 at 1e7. It is
+ * now quadratic in √size / b (cap 64): the same sweep measures 0.6-0.95 of the estimate for
+ * b = √n/8 and √n/4 at n = 1e6-1e8 (0.16-1.1 at 1e5, where it is an over-estimate); b = √n/2
+ * gains ~40% at 1e7 (r = 2), b = √n is unchanged and 2√n slightly lower (measured 0.6-3 there,
+ * higher at n = 1e6-1e7 on short warm-ups).
+ * In steps of this method's 30 ns row:
  */
 /** Per estimated odd size of a proposal. */
 const VISITED_STEPS = 1.1;
 /** Per √size of a level above its count table (its counts the remembered ones miss). */
 const SQRT_STEPS = 2.4;
-/** Per level above its table, times √size / b (at most 8). */
+/** Per level above its table, times (√size / b)² (at most 64). */
 const NARROW_LEVEL_STEPS = 1100;

@@ -36,7 +36,7 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   table-sizes (no length constraint) needs (#sizes + 1)(n + 1) <= 5e6, e.g. distinct or
  *   minPart-only families up to n ~ 2200 this way; table-lengths needs (K + 1)(n + 1), e.g.
  *   distinct parts (K ~ sqrt(2n)) up to n ~ 2.2e4 (plain distinct parts switch to
- *   distinct-self-similar from n ~ 7000, where it is estimated faster), exactly k parts with k = 100 up to n ~ 5e4;
+ *   distinct-self-similar from n ~ 5000, where it is estimated faster), exactly k parts with k = 100 up to n ~ 5e4;
  *   table-sizes-lengths needs (#sizes + 1)(L + 1)(n + 1), e.g. n = 300 with 50 sizes and L = 300.
  * - DISTINCT_BLOCK_CELL_LIMIT = 2e6 cells for distinct-boltzmann's table of the smallest sizes.
  * - SAMPLE_WORK_LIMIT = 1e7 expected steps per sample (one step ~ 0.1-0.3 us measured, so at
