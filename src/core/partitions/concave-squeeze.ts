@@ -1,3 +1,4 @@
+import { firstAtLeast } from './falling-differences.js';
 /**
  * Bounds on a concave function from the values already computed: the squeeze of a rejection
  * test (Marsaglia 1977, "The squeeze method for generating gamma variates"; for log-concave
@@ -52,13 +53,6 @@ export class ConcaveSqueeze {
 
   /** First index whose point is >= m (binary search). */
   private search(m: number): number {
-    let lo = 0;
-    let hi = this.ms.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (this.ms[mid] < m) lo = mid + 1;
-      else hi = mid;
-    }
-    return lo;
+    return firstAtLeast(this.ms, m);
   }
 }

@@ -41,14 +41,7 @@ export class FallingDifferences {
   }
 
   private search(m: number): number {
-    let lo = 0;
-    let hi = this.ms.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (this.ms[mid] < m) lo = mid + 1;
-      else hi = mid;
-    }
-    return lo;
+    return firstAtLeast(this.ms, m);
   }
 }
 
@@ -72,4 +65,16 @@ export function bracketedLastRise(differences: FallingDifferences, rises: (d: nu
     else bad = mid;
   }
   return good;
+}
+
+/** First index of the ascending `sorted` whose value is >= m (binary search; sorted.length when none). */
+export function firstAtLeast(sorted: readonly number[], m: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < m) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
