@@ -416,9 +416,14 @@ export class LogDistinctBoundedCounts {
     // π²/(12t1) − π²/(12t2) + (m1 + 1/24)t1 − (m2 + 1/24)t2 = d·(m1 + 1/24 − π²/(12 t1 t2)) + (m1 − m2)·t2
     let sum = d * (m1 + 1 / 24 - PI2_12 / (t1 * t2)) + (m1 - m2) * t2;
     // −Σ_{k<a} log((1 + e^{−k t1})/(1 + e^{−k t2})) = −Σ log1p(e^{−k t2}·expm1(−k d)/(1 + e^{−k t2}))
-    for (let k = 1; k < this.a; k++) {
-      const e = Math.exp(-k * t2);
-      sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
+    const head = headSeries(this.a, Math.max(t1, t2));
+    // −Σ_{k<a}: d·S'/2 − (C(t1) − C(t2)) by the series (log-cosh-sum.ts), in place.
+    if (head !== null) sum += (d * head.total) / 2 - head.difference(t1, t2);
+    else {
+      for (let k = 1; k < this.a; k++) {
+        const e = Math.exp(-k * t2);
+        sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
+      }
     }
     if (this.b !== Infinity) sum -= tailDifference(this.b, t1, t2);
     return sum;
@@ -550,14 +555,41 @@ function tailDerivatives(b: number, t: number): [number, number] {
   return [d1, d2];
 }
 
+/**
+ * The parts below a (a > HEAD_SERIES_ABOVE): Σ_{k=1}^{a−1} log(1 + e^{−kτ}) = (a − 1)·log 2 −
+ * τ·S'/2 + C(τ), S' = a(a − 1)/2, C = Σ_{k<a} log cosh(kτ/2) as a power series (log-cosh-sum.ts),
+ * ~350 multiply-adds per evaluation instead of a − 1 exponentials, logarithms and arctangents
+ * (a ~ 2500: ~50x faster). Used where (a − 1)|τ| <= π·MAX_W (the series' reach); the direct sum
+ * otherwise, and always for a <= HEAD_SERIES_ABOVE (their values, and so the streams, unchanged).
+ */
+const HEAD_SERIES_ABOVE = 32;
+const heads = new Map<number, LogCoshSum>();
+function headSeries(a: number, t: number): LogCoshSum | null {
+  if (a <= HEAD_SERIES_ABOVE || !((a - 1) * Math.abs(t) <= Math.PI * LogCoshSum.MAX_W)) return null;
+  let head = heads.get(a);
+  if (head === undefined) {
+    head = new LogCoshSum(1, a - 1);
+    heads.set(a, head);
+  }
+  return head;
+}
+
 /** φ'(t) and φ''(t) on the real axis. */
 function derivatives(a: number, b: number, m: number, t: number): [number, number] {
   let d1 = -PI2_12 / (t * t) + m + 1 / 24;
   let d2 = (2 * PI2_12) / (t * t * t);
-  for (let k = 1; k < a; k++) {
-    const e = Math.exp(-k * t);
-    d1 += (k * e) / (1 + e);
-    d2 -= (k * k * e) / ((1 + e) * (1 + e));
+  const head = headSeries(a, t);
+  if (head !== null) {
+    // Σ_{k<a} k/(e^{kt} + 1) = S'/2 − C'(t) and Σ_{k<a} k²e^{−kt}/(1 + e^{−kt})² = C''(t) (log-cosh-sum.ts).
+    const [c1, c2] = head.derivatives(t);
+    d1 += head.total / 2 - c1;
+    d2 -= c2;
+  } else {
+    for (let k = 1; k < a; k++) {
+      const e = Math.exp(-k * t);
+      d1 += (k * e) / (1 + e);
+      d2 -= (k * k * e) / ((1 + e) * (1 + e));
+    }
   }
   if (b !== Infinity) {
     const [t1, t2] = tailDerivatives(b, t);
@@ -580,7 +612,10 @@ function computeSaddle(a: number, b: number, m: number): SaddleIntegral {
   const [, d2] = derivatives(a, b, m, t);
   const sigma = Math.sqrt(d2);
   let phi = -0.5 * Math.LN2 + PI2_12 / t + (m + 1 / 24) * t;
-  for (let k = 1; k < a; k++) phi -= Math.log1p(Math.exp(-k * t));
+  const head = headSeries(a, t);
+  // Σ_{k<a} log(1 + e^{−kt}) = (a − 1)·log 2 − t·S'/2 + C(t) (log-cosh-sum.ts).
+  if (head !== null) phi -= (a - 1) * Math.LN2 - (t * head.total) / 2 + head.value(t);
+  else for (let k = 1; k < a; k++) phi -= Math.log1p(Math.exp(-k * t));
   const tailT = b === Infinity ? 0 : tail(b, t);
   phi -= tailT;
   // Trapezoid with h = 2π/K, K integer, so that the phase m·y = 2π(m·j mod K)/K is exact.
@@ -609,14 +644,23 @@ function phiShift(a: number, b: number, m: number, t: number, y: number, j: numb
   const c = PI2_12 / (t * t) / (1 + s2);
   let re = (-c * y * y) / t;
   let im = nodePhase(m, j, K) - c * y + y / 24;
-  for (let k = 1; k < a; k++) {
-    const e = Math.exp(-k * t);
-    const p = e / (1 + e);
-    const half = Math.sin((k * y) / 2);
-    const wr = -2 * p * half * half;
-    const wi = -p * Math.sin(k * y);
-    re -= 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
-    im -= Math.atan2(wi, 1 + wr);
+  const head = headSeries(a, t);
+  const shifted = head === null ? null : head.shift(t, y);
+  if (shifted !== null && !Number.isNaN(shifted[0])) {
+    // Σ_{k<a} [log(1 + e^{−k(t+iy)}) − log(1 + e^{−kt})] = −iy·S'/2 + C(t + iy) − C(t), the
+    // phase y·S'/2 = 2π(S'·j mod 2K)/(2K) exact (nodes out of the series' reach: the loop below).
+    re -= shifted[0];
+    im += nodePhase(head!.total, j, 2 * K) - shifted[1];
+  } else {
+    for (let k = 1; k < a; k++) {
+      const e = Math.exp(-k * t);
+      const p = e / (1 + e);
+      const half = Math.sin((k * y) / 2);
+      const wr = -2 * p * half * half;
+      const wi = -p * Math.sin(k * y);
+      re -= 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
+      im -= Math.atan2(wi, 1 + wr);
+    }
   }
   if (b !== Infinity) {
     // T_b(t + iy) − T_b(t) = Σ_j ((−1)^{j+1}/j)·g_j(t)·(e^{Δ_j} − 1), term by term without

@@ -25,10 +25,11 @@ import {
  */
 export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
   /**
-   * Largest a served: the counts it needs (b' = ⌈a/2⌉ <= 100) were checked against exact BigInt
-   * counts (test/partitions/log-distinct-bounded-count.test.ts, b' up to 100).
+   * Largest a served: the counts it needs (b' = ⌈a/2⌉ <= 400) were checked against exact BigInt
+   * counts above their tables (test/partitions/log-distinct-bounded-count.test.ts, b' up to 200;
+   * test/partitions/log-distinct-large-min-count.test.ts, b' = 201, 268, 400).
    */
-  static readonly MAX_A = 200;
+  static readonly MAX_A = 800;
   readonly method = 'distinct-bounded-self-similar/1';
   readonly expectedLength: number;
   readonly expectedDistinct: number;
