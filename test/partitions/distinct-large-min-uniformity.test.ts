@@ -9,6 +9,8 @@ import { DistinctBoundedSelfSimilarSampler } from '../../src/core/partitions/dis
 import { DistinctSelfSimilarTables } from '../../src/core/partitions/distinct-self-similar.js';
 import { DistinctPartitionTable } from '../../src/core/partitions/distinct-table.js';
 import { sampleSource } from '../../src/core/seeding.js';
+import { chiSquareTest } from '../support/chi-square.js';
+import { exactPartCountLaw, pooled } from '../support/distinct-part-count-law.js';
 
 const ALPHA = 1e-4; // false-alarm probability per check (project convention)
 
@@ -71,12 +73,24 @@ describe('distinct-bounded-self-similar with minPart above 200 (exactly uniform,
       expect(r.pValue).toBeGreaterThan(ALPHA);
     });
   }
-  it('through the planner (method forced): n = 700, minPart = 230', () => {
-    const family: PartitionFamily = { kind: 'partition', n: 700, distinct: true, minPart: 230 };
+});
+
+describe('distinct-bounded-self-similar with minPart above 200 through the planner: the exact law of the number of parts', () => {
+  // Where the planner serves a > 200 (n >= a²/4): the number of parts against its exact law from
+  // BigInt counts (test/support/distinct-part-count-law.ts), Pearson chi-square on the pooled
+  // law; false-alarm probability 1e-4. n = 16,000 with parts >= 240 (n/a² = 0.28, ~17 parts).
+  it('n = 16,000, parts >= 240 (method forced)', () => {
+    const n = 16_000;
+    const a = 240;
+    const family: PartitionFamily = { kind: 'partition', n, distinct: true, minPart: a };
     const sampler = constrainedPartitionSampler(family, { method: 'distinct-bounded-self-similar' });
     expect(sampler.method).toBe('distinct-bounded-self-similar/1');
-    const r = chiSquare(enumerateDistinct(700, 230), sampler, 'dlm-plan');
-    expect(r.strangers).toBe(0);
-    expect(r.pValue).toBeGreaterThan(ALPHA);
+    const law = exactPartCountLaw(n, a);
+    const samples = 4000;
+    const observed = new Array<number>(law.length).fill(0);
+    for (let i = 0; i < samples; i++) observed[sampler.sample(sampleSource('dlm-parts-law', i, 'test')).sizes.length]++;
+    const p = pooled(observed, law, samples);
+    expect(p.observed.length).toBeGreaterThan(5);
+    expect(chiSquareTest(p.observed, p.probabilities).pValue).toBeGreaterThan(ALPHA);
   });
 });

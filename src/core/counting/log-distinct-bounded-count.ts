@@ -60,6 +60,8 @@ export class LogDistinctBoundedCounts {
   static readonly CENTRAL_WIDEST_BT = 2.8;
   /** Least N = b − a + 1 for the power series (the dropped arcs, see the class comment). */
   static readonly CENTRAL_MIN_RANGE = 200;
+  /** Exact tables longer than this are built only when a count below their end is asked (logConcaveFrom). */
+  static readonly LAZY_TABLE_ABOVE = 30_000;
 
   /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
   readonly total: number;
@@ -268,6 +270,15 @@ export class LogDistinctBoundedCounts {
    * concave on a grid in the tests.
    */
   logConcaveFrom(): number {
+    if (this.exactUpTo > LogDistinctBoundedCounts.LAZY_TABLE_ABOVE) {
+      // A large table (parts >= b' > ~400) is not built to find L: tableEnd + 1 serves as well
+      // (above the table the counts are taken log-concave in either case, and Q is
+      // non-decreasing from its smallest part on — add 1 to the largest part — so Q(k) <=
+      // Q(tableEnd + 1) for k <= tableEnd). The table is then built only if a level's size
+      // reaches it (at the upper levels, with probability ~0). The same answer whether or not the
+      // table was built since, so the maximiser (and the stream) does not depend on what ran before.
+      return this.exactUpTo + 1;
+    }
     if (this.concaveFrom < 0) {
       const c = this.exact;
       let from = Math.min(this.a, c.length - 1);
