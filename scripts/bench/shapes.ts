@@ -39,6 +39,8 @@ export const SHAPES: Array<[string, Shape]> = [
   ['maxLength=sqrt(n)/4', (n) => ({ maxLength: Math.ceil(root(n) / 4) })],
   ['allowed=1,2,5,10,20,50', () => ({ allowed: COINS })],
   ['distinct,minPart=7', () => ({ distinct: true, minPart: 7 })],
+  ['distinct,minPart=500', () => ({ distinct: true, minPart: 500 })],
+  ['distinct,minPart=sqrt(n)/8', (n) => ({ distinct: true, minPart: Math.ceil(root(n) / 8) })],
   ['distinct,maxPart=2sqrt(n)', (n) => ({ distinct: true, maxPart: 2 * root(n) })],
   // maxPart near the middle of its range (S = Σ sizes ≈ 2n at 2√n; n > S/2 at 1.5√n).
   ['distinct,maxPart=1.5sqrt(n)', (n) => ({ distinct: true, maxPart: Math.ceil(1.5 * root(n)) })],

@@ -229,12 +229,12 @@ describe('the middle regime against the tail series where both serve', () => {
         logRatio(m1: number, m2: number): number;
         memo: { get(m: number): { t: number; logI: number } };
         phiDifference(m1: number, t1: number, m2: number, t2: number): number;
-        middleSaddle(m: number): number;
+        middle: { saddle(m: number): number };
       };
       const half = Math.floor(c.total / 2);
       let checked = 0;
       for (let f = Math.floor(c.total * 0.1); f < half; f += Math.ceil(half / 200)) {
-        if (c.regime(f) !== 'middle' || c.regime(f - 50) !== 'middle' || (b + 1) * c.middleSaddle(f - 50) < 1.05) continue;
+        if (c.regime(f) !== 'middle' || c.regime(f - 50) !== 'middle' || (b + 1) * c.middle.saddle(f - 50) < 1.05) continue;
         for (const d of [1, 50]) {
           const s1 = c.memo.get(f);
           const s2 = c.memo.get(f - d);

@@ -1,4 +1,5 @@
 import { LogCoshSum } from './log-cosh-sum.js';
+import { DistinctMiddleCounts } from './log-distinct-middle-count.js';
 import { SaddleMemo, type SaddleIntegral } from './saddle-memo.js';
 import { saddleNewton } from './saddle-newton.js';
 import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
@@ -26,14 +27,7 @@ import { nodePhase, trapezoidGrid } from './saddle-trapezoid.js';
  *   far below 1e-14 relative to Q).
  * - The middle of the polynomial (finite b, (b + 1)t <= CENTRAL_MAX_BT, so t near 0, where the
  *   1/τ pole and T_b cancel and T_b's series converges slowly): the same integral written without
- *   the pole, log Π_{a<=k<=b}(1 + e^{−kτ}) = N log 2 − τS/2 + C(τ), C(τ) = Σ log cosh(kτ/2) as a
- *   power series in τ (log-cosh-sum.ts; every node of the trapezoid stays at |bτ| <= 0.93π), so
- *   φ(τ) = N log 2 + (m − S/2)τ + C(τ) exactly and the saddle solves C'(t) = S/2 − m (t = 0 at
- *   m = S/2). Only the main arc is kept: at a root of unity of order j >= 2 the product has
- *   modulus at most ~2^{N·2/j}·e^{O(1)} <= 2^{2N/3} (order 3), against 2^N/(σ√(2π)) for the main
- *   arc, so for N >= CENTRAL_MIN_RANGE the dropped arcs are below 1e-19 relative (checked
- *   against exact BigInt counts in test/partitions/log-distinct-bounded-count.test.ts). Log-ratios
- *   in this regime are formed from differences in place (C(t1) − C(t2) term by term).
+ *   the pole, N log 2 − τS/2 + Σ log cosh(kτ/2) as a power series (log-distinct-middle-count.ts).
  *   Where neither serves (a narrow range near its middle), an exact table grown on demand.
  *   The other arcs (q near roots of unity of order >= 2) are dropped: near q = −1 the factors
  *   1/(1 + q^k), k < a odd, amplify them, so the table must reach further for larger a. Where the
@@ -56,10 +50,12 @@ export class LogDistinctBoundedCounts {
    * series serves from (b + 1)t = TAIL_MIN_BT on), and for wide ranges up to the largest (b + 1)t
    * <= CENTRAL_WIDEST_BT at which every node is within the series' reach.
    */
-  static readonly CENTRAL_MAX_BT = 1.25;
-  static readonly CENTRAL_WIDEST_BT = 2.8;
+  static readonly CENTRAL_MAX_BT = DistinctMiddleCounts.MAX_BT;
+  static readonly CENTRAL_WIDEST_BT = DistinctMiddleCounts.WIDEST_BT;
   /** Least N = b − a + 1 for the power series (the dropped arcs, see the class comment). */
-  static readonly CENTRAL_MIN_RANGE = 200;
+  static readonly CENTRAL_MIN_RANGE = DistinctMiddleCounts.MIN_RANGE;
+  /** Exact tables longer than this are built only when a count below their end is asked (logConcaveFrom). */
+  static readonly LAZY_TABLE_ABOVE = 30_000;
 
   /** Σ_{a<=k<=b} k (Infinity for b = ∞): Q(m) = Q(S − m), Q(m) = 0 for m > S. */
   readonly total: number;
@@ -69,17 +65,9 @@ export class LogDistinctBoundedCounts {
   /** Largest m the table holds (or will hold once built). */
   private tableEnd: number;
   private readonly memo = new SaddleMemo((m) => computeSaddle(this.a, this.b, m));
-  private readonly centralMemo = new SaddleMemo((m) => this.computeCentral(m));
   private concaveFrom = -1;
-  /** Σ log cosh(kτ/2) as a series (finite b; built on first use). */
-  private cosh: LogCoshSum | null = null;
-  /** The least folded m whose saddle point has (b + 1)t <= CENTRAL_MAX_BT (finite b; −1: not yet computed). */
-  private seriesFrom = -1;
-  private wideRange: boolean | undefined;
-  /** The largest |w| the series is asked for (set with wideRange). */
-  private reach = LogCoshSum.MAX_W;
-  /** The middle regime's largest (b + 1)t (set with wideRange). */
-  private maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
+  /** The middle of the polynomial (finite b): the power-series integral (log-distinct-middle-count.ts). */
+  private readonly middle: DistinctMiddleCounts;
 
   /**
    * `below`: counts for the same a and a smaller b (same exactUpTo), whose table this one's is
@@ -97,6 +85,7 @@ export class LogDistinctBoundedCounts {
     if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
     this.total = b === Infinity ? Infinity : ((a + b) * (b - a + 1)) / 2;
     this.tableEnd = exactUpTo;
+    this.middle = new DistinctMiddleCounts(a, b, this.total);
   }
 
   private get exact(): Float64Array {
@@ -112,83 +101,6 @@ export class LogDistinctBoundedCounts {
   private get logExact(): Float64Array {
     void this.exact;
     return this.logTable!;
-  }
-
-  /** The series, summed out to the reach the regime needs (see `wide`). */
-  private get series(): LogCoshSum {
-    if (this.cosh === null) {
-      void this.wide;
-      this.cosh = new LogCoshSum(this.a, this.b, this.reach);
-    }
-    return this.cosh;
-  }
-
-  /** The least folded m served by the power series' saddle (Infinity for b = ∞). */
-  private get middleFrom(): number {
-    if (this.b === Infinity) return Infinity;
-    if (this.seriesFrom < 0) {
-      // Mean size at t: S/2 − C'(t), decreasing in t.
-      void this.wide;
-      const [d1] = this.series.derivatives(this.maxBt / (this.b + 1));
-      this.seriesFrom = Math.max(0, Math.ceil(this.total / 2 - d1));
-    }
-    return this.seriesFrom;
-  }
-
-  /**
-   * Whether the power-series integral serves this range (finite b): N >= CENTRAL_MIN_RANGE, and at
-   * the regime's largest saddle point ((b + 1)t = CENTRAL_MAX_BT, where the nodes reach furthest
-   * out: the width 1/σ grows with t) the trapezoid's last node is within the series' reach.
-   */
-  private get wide(): boolean {
-    if (this.wideRange === undefined) {
-      // Real t up to CENTRAL_MAX_BT/(b + 1) (saddle points, middleFrom) need |w| <= 0.4.
-      this.reach = Math.max(0.4, (this.b * LogDistinctBoundedCounts.CENTRAL_MAX_BT) / ((this.b + 1) * Math.PI)) * 1.01;
-      this.maxBt = LogDistinctBoundedCounts.CENTRAL_MAX_BT;
-      let ok = this.b !== Infinity && this.b - this.a + 1 >= LogDistinctBoundedCounts.CENTRAL_MIN_RANGE;
-      if (ok) ok = this.nodeReach(this.maxBt) * REACH_MARGIN <= LogCoshSum.MAX_W;
-      if (ok) {
-        // Wide ranges serve further from the middle, as far as the series reaches (bisection):
-        // fewer counts fall to the slower tail series.
-        let lo = this.maxBt;
-        let hi = LogDistinctBoundedCounts.CENTRAL_WIDEST_BT;
-        if (this.nodeReach(hi) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = hi;
-        else {
-          for (let i = 0; i < 8; i++) {
-            const mid = (lo + hi) / 2;
-            if (this.nodeReach(mid) * REACH_MARGIN <= LogCoshSum.MAX_W) lo = mid;
-            else hi = mid;
-          }
-        }
-        this.maxBt = lo;
-        this.reach = Math.min(LogCoshSum.MAX_W, Math.max(this.reach, this.nodeReach(lo) * REACH_MARGIN));
-      }
-      this.wideRange = ok;
-    }
-    return this.wideRange;
-  }
-
-  /**
-   * |w| = b|τ|/π at the trapezoid's last node (one past TRAPEZOID_RANGE/σ) for the saddle point
-   * t = bt/(b + 1): σ² = C''(t) = Σ (k/2)²·sech²(kt/2) by a midpoint sum over ~2000 strides
-   * (relative error ~1e-6, inside REACH_MARGIN). The nodes reach furthest at the largest t.
-   */
-  private nodeReach(bt: number): number {
-    const t = bt / (this.b + 1);
-    const stride = Math.max(1, Math.floor((this.b - this.a + 1) / 2000));
-    let v = 0;
-    for (let k = this.a; k <= this.b; k += stride) {
-      const width = Math.min(stride, this.b - k + 1);
-      const mid = k + (width - 1) / 2;
-      v += (width * mid * mid) / (4 * Math.cosh((mid * t) / 2) ** 2);
-    }
-    const { h, last } = trapezoidGrid(Math.sqrt(v));
-    return (this.b * Math.hypot(t, (last + 1) * h)) / Math.PI;
-  }
-
-  /** Whether the power-series integral serves this folded m. */
-  private central(m: number): boolean {
-    return this.wide && m >= this.middleFrom;
   }
 
   /** Additions the table costs (setup work), built from one for [a, from] (from = a − 1: from scratch). */
@@ -219,7 +131,7 @@ export class LogDistinctBoundedCounts {
   servable(mMax: number): boolean {
     const top = Math.min(mMax, Math.floor(this.total / 2));
     // Below the middle regime the saddle point has (b + 1)t > CENTRAL_MAX_BT, where the tail series serves.
-    if (top <= this.tableEnd || this.central(top) || this.fast(top)) return true;
+    if (top <= this.tableEnd || this.middle.serves(top) || this.fast(top)) return true;
     return this.b - this.a + 1 <= LogDistinctBoundedCounts.SLOW_TABLE_MAX_RANGE &&
       LogDistinctBoundedCounts.slowTableWork(this.a, this.b, top) <= LogDistinctBoundedCounts.SLOW_TABLE_ADDITIONS;
   }
@@ -231,30 +143,24 @@ export class LogDistinctBoundedCounts {
   regime(m: number): 'table' | 'middle' | 'tail' | 'grown' {
     const f = this.fold(Math.min(m, this.total));
     if (f <= this.tableEnd) return 'table';
-    if (this.central(f)) return 'middle';
+    if (this.middle.serves(f)) return 'middle';
     return this.fast(f) ? 'tail' : 'grown';
   }
 
   /** Additions the power series' coefficients cost (0 for b = ∞). */
   seriesWork(): number {
-    if (this.b === Infinity) return 0;
-    void this.wide;
-    return LogCoshSum.setupWork(this.a, this.b, this.reach);
+    return this.middle.seriesWork();
   }
 
   /** Series terms per node of a middle-regime count at m (for work estimates; the sums stop early). */
   middleTermsAt(m: number): number {
-    const f = this.fold(Math.min(m, this.total));
-    const t = this.middleSaddle(f);
-    const sigma = Math.sqrt(this.series.derivatives(t)[1]);
-    const w = (this.b * Math.hypot(t, TRAPEZOID_RANGE_NODES / sigma)) / Math.PI;
-    return LogCoshSum.termsFor(Math.min(this.reach, w));
+    return this.middle.termsAt(this.fold(Math.min(m, this.total)));
   }
 
   /** Whether m (folded) is above the table and served by the integral (no grown table). */
   servesByIntegral(m: number): boolean {
     const f = this.fold(Math.min(m, this.total));
-    return f > this.tableEnd && (this.central(f) || this.fast(f));
+    return f > this.tableEnd && (this.middle.serves(f) || this.fast(f));
   }
 
   /** Additions an exact table up to m costs. */
@@ -268,6 +174,15 @@ export class LogDistinctBoundedCounts {
    * concave on a grid in the tests.
    */
   logConcaveFrom(): number {
+    if (this.exactUpTo > LogDistinctBoundedCounts.LAZY_TABLE_ABOVE) {
+      // A large table (parts >= b' > ~400) is not built to find L: tableEnd + 1 serves as well
+      // (above the table the counts are taken log-concave in either case, and Q is
+      // non-decreasing from its smallest part on — add 1 to the largest part — so Q(k) <=
+      // Q(tableEnd + 1) for k <= tableEnd). The table is then built only if a level's size
+      // reaches it (at the upper levels, with probability ~0). The same answer whether or not the
+      // table was built since, so the maximiser (and the stream) does not depend on what ran before.
+      return this.exactUpTo + 1;
+    }
     if (this.concaveFrom < 0) {
       const c = this.exact;
       let from = Math.min(this.a, c.length - 1);
@@ -292,10 +207,7 @@ export class LogDistinctBoundedCounts {
     if (m > this.total) return -Infinity;
     const f = this.fold(m);
     if (f <= this.tableEnd) return f < this.exact.length ? this.logExact[f] : -Infinity;
-    if (this.central(f)) {
-      const s = this.centralMemo.get(f);
-      return this.centralPhi(f, s.t) + s.logI;
-    }
+    if (this.middle.serves(f)) return this.middle.log(f);
     if (this.fast(f)) {
       const s = this.memo.get(f);
       return s.phi + s.logI;
@@ -314,13 +226,7 @@ export class LogDistinctBoundedCounts {
     if (f1 === f2) return 0;
     const n = this.tableEnd + 1;
     if (f1 < n && f2 < n) return Math.log(this.exact[f1] / this.exact[f2]);
-    if (f1 >= n && f2 >= n && this.central(f1) && this.central(f2)) {
-      // φ_{f1}(t1) − φ_{f2}(t2) = (f1 − f2)t1 + (f2 − S/2)(t1 − t2) + C(t1) − C(t2).
-      const s1 = this.centralMemo.get(f1);
-      const s2 = this.centralMemo.get(f2);
-      const phi = (f1 - f2) * s1.t + (f2 - this.total / 2) * (s1.t - s2.t) + this.series.difference(s1.t, s2.t);
-      return phi + s1.logI - s2.logI;
-    }
+    if (f1 >= n && f2 >= n && this.middle.serves(f1) && this.middle.serves(f2)) return this.middle.logRatio(f1, f2);
     if (f1 < n || f2 < n || !this.fast(f1) || !this.fast(f2)) return this.log(f1) - this.log(f2);
     const s1 = this.memo.get(f1);
     const s2 = this.memo.get(f2);
@@ -339,7 +245,7 @@ export class LogDistinctBoundedCounts {
   tilt(m: number): number {
     const f = this.fold(m);
     const sign = m > this.total / 2 ? -1 : 1;
-    if (f >= this.middleFrom) return sign * this.middleSaddle(f);
+    if (f >= this.middle.from) return sign * this.middle.saddle(f);
     return sign * distinctBoundedSaddle(this.a, this.b, Math.max(1, f));
   }
 
@@ -352,52 +258,9 @@ export class LogDistinctBoundedCounts {
   meanSize(t: number): number {
     if (t < 0) return this.total - this.meanSize(-t);
     if (t === 0) return this.total / 2;
-    void this.wide;
-    if ((this.b + 1) * t <= this.maxBt) return this.total / 2 - this.series.derivatives(t)[0];
+    const near = this.middle.meanSize(t);
+    if (near !== null) return near;
     return -derivatives(this.a, this.b, 0, t)[0];
-  }
-
-  /** φ(t) = N log 2 + (m − S/2)t + C(t) of the middle regime. */
-  private centralPhi(m: number, t: number): number {
-    return (this.b - this.a + 1) * Math.LN2 + (m - this.total / 2) * t + this.series.value(t);
-  }
-
-  /**
-   * The saddle point of the middle regime, C'(t) = S/2 − m (folded m >= middleFrom): Newton from
-   * t = (S/2 − m)/C''(0). C' is odd, increasing and concave on t >= 0, so from below the steps
-   * stay below the root and rise to it.
-   */
-  private middleSaddle(m: number): number {
-    const target = this.total / 2 - m;
-    if (target <= 0) return 0;
-    const [, c0] = this.series.derivatives(0);
-    let t = target / c0;
-    for (let i = 0; i < 60; i++) {
-      const [d1, d2] = this.series.derivatives(t);
-      const step = (target - d1) / d2;
-      t += step;
-      if (!(Math.abs(step) > 1e-16 * t)) break;
-    }
-    return t;
-  }
-
-  /** The middle regime's integral at folded m (see the class comment). */
-  private computeCentral(m: number): SaddleIntegral {
-    const t = this.middleSaddle(m);
-    const [, d2] = this.series.derivatives(t);
-    const sigma = Math.sqrt(d2);
-    const { K, h, last: first } = trapezoidGrid(sigma);
-    let sum = 1;
-    for (let j = 1; j <= K / 2; j++) {
-      const y = j * h;
-      const [re, ci] = this.series.shift(t, y);
-      if (Number.isNaN(re)) throw new RangeError(`Q(${m}) for parts in [${this.a}, ${this.b}]: the power series does not reach node ${j}`);
-      // (m − S/2)·y mod 2π, both phases exact: S·y/2 = 2π(S·j mod 2K)/(2K).
-      const im = nodePhase(m, j, K) - nodePhase(this.total, j, 2 * K) + ci;
-      sum += 2 * Math.exp(re) * Math.cos(im);
-      if (j >= first && re < -CUTOFF) break;
-    }
-    return { t, phi: 0, logI: Math.log((h * sum) / (2 * Math.PI)) };
   }
 
   /** Grows the exact table to cover m (finite b, where the integral is not used). */
@@ -416,9 +279,14 @@ export class LogDistinctBoundedCounts {
     // π²/(12t1) − π²/(12t2) + (m1 + 1/24)t1 − (m2 + 1/24)t2 = d·(m1 + 1/24 − π²/(12 t1 t2)) + (m1 − m2)·t2
     let sum = d * (m1 + 1 / 24 - PI2_12 / (t1 * t2)) + (m1 - m2) * t2;
     // −Σ_{k<a} log((1 + e^{−k t1})/(1 + e^{−k t2})) = −Σ log1p(e^{−k t2}·expm1(−k d)/(1 + e^{−k t2}))
-    for (let k = 1; k < this.a; k++) {
-      const e = Math.exp(-k * t2);
-      sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
+    const head = headSeries(this.a, Math.max(t1, t2));
+    // −Σ_{k<a}: d·S'/2 − (C(t1) − C(t2)) by the series (log-cosh-sum.ts), in place.
+    if (head !== null) sum += (d * head.total) / 2 - head.difference(t1, t2);
+    else {
+      for (let k = 1; k < this.a; k++) {
+        const e = Math.exp(-k * t2);
+        sum -= Math.log1p((e * Math.expm1(-k * d)) / (1 + e));
+      }
     }
     if (this.b !== Infinity) sum -= tailDifference(this.b, t1, t2);
     return sum;
@@ -480,10 +348,6 @@ function extendKnapsack(base: Float64Array, b0: number, b: number): Float64Array
 }
 
 const PI2_12 = (Math.PI * Math.PI) / 12;
-/** How far out (×1/σ) a middle-regime count's nodes go, for its work estimate. */
-const TRAPEZOID_RANGE_NODES = 10;
-/** Safety factor on the series' reach estimate (the stride sum for σ, the node count's rounding). */
-const REACH_MARGIN = 1.02;
 /** The integrand is summed until it is below e^{−CUTOFF} of its peak. */
 const CUTOFF = 45;
 
@@ -550,14 +414,41 @@ function tailDerivatives(b: number, t: number): [number, number] {
   return [d1, d2];
 }
 
+/**
+ * The parts below a (a > HEAD_SERIES_ABOVE): Σ_{k=1}^{a−1} log(1 + e^{−kτ}) = (a − 1)·log 2 −
+ * τ·S'/2 + C(τ), S' = a(a − 1)/2, C = Σ_{k<a} log cosh(kτ/2) as a power series (log-cosh-sum.ts),
+ * ~350 multiply-adds per evaluation instead of a − 1 exponentials, logarithms and arctangents
+ * (a ~ 2500: ~50x faster). Used where (a − 1)|τ| <= π·MAX_W (the series' reach); the direct sum
+ * otherwise, and always for a <= HEAD_SERIES_ABOVE (their values, and so the streams, unchanged).
+ */
+const HEAD_SERIES_ABOVE = 32;
+const heads = new Map<number, LogCoshSum>();
+function headSeries(a: number, t: number): LogCoshSum | null {
+  if (a <= HEAD_SERIES_ABOVE || !((a - 1) * Math.abs(t) <= Math.PI * LogCoshSum.MAX_W)) return null;
+  let head = heads.get(a);
+  if (head === undefined) {
+    head = new LogCoshSum(1, a - 1);
+    heads.set(a, head);
+  }
+  return head;
+}
+
 /** φ'(t) and φ''(t) on the real axis. */
 function derivatives(a: number, b: number, m: number, t: number): [number, number] {
   let d1 = -PI2_12 / (t * t) + m + 1 / 24;
   let d2 = (2 * PI2_12) / (t * t * t);
-  for (let k = 1; k < a; k++) {
-    const e = Math.exp(-k * t);
-    d1 += (k * e) / (1 + e);
-    d2 -= (k * k * e) / ((1 + e) * (1 + e));
+  const head = headSeries(a, t);
+  if (head !== null) {
+    // Σ_{k<a} k/(e^{kt} + 1) = S'/2 − C'(t) and Σ_{k<a} k²e^{−kt}/(1 + e^{−kt})² = C''(t) (log-cosh-sum.ts).
+    const [c1, c2] = head.derivatives(t);
+    d1 += head.total / 2 - c1;
+    d2 -= c2;
+  } else {
+    for (let k = 1; k < a; k++) {
+      const e = Math.exp(-k * t);
+      d1 += (k * e) / (1 + e);
+      d2 -= (k * k * e) / ((1 + e) * (1 + e));
+    }
   }
   if (b !== Infinity) {
     const [t1, t2] = tailDerivatives(b, t);
@@ -580,7 +471,10 @@ function computeSaddle(a: number, b: number, m: number): SaddleIntegral {
   const [, d2] = derivatives(a, b, m, t);
   const sigma = Math.sqrt(d2);
   let phi = -0.5 * Math.LN2 + PI2_12 / t + (m + 1 / 24) * t;
-  for (let k = 1; k < a; k++) phi -= Math.log1p(Math.exp(-k * t));
+  const head = headSeries(a, t);
+  // Σ_{k<a} log(1 + e^{−kt}) = (a − 1)·log 2 − t·S'/2 + C(t) (log-cosh-sum.ts).
+  if (head !== null) phi -= (a - 1) * Math.LN2 - (t * head.total) / 2 + head.value(t);
+  else for (let k = 1; k < a; k++) phi -= Math.log1p(Math.exp(-k * t));
   const tailT = b === Infinity ? 0 : tail(b, t);
   phi -= tailT;
   // Trapezoid with h = 2π/K, K integer, so that the phase m·y = 2π(m·j mod K)/K is exact.
@@ -609,14 +503,23 @@ function phiShift(a: number, b: number, m: number, t: number, y: number, j: numb
   const c = PI2_12 / (t * t) / (1 + s2);
   let re = (-c * y * y) / t;
   let im = nodePhase(m, j, K) - c * y + y / 24;
-  for (let k = 1; k < a; k++) {
-    const e = Math.exp(-k * t);
-    const p = e / (1 + e);
-    const half = Math.sin((k * y) / 2);
-    const wr = -2 * p * half * half;
-    const wi = -p * Math.sin(k * y);
-    re -= 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
-    im -= Math.atan2(wi, 1 + wr);
+  const head = headSeries(a, t);
+  const shifted = head === null ? null : head.shift(t, y);
+  if (shifted !== null && !Number.isNaN(shifted[0])) {
+    // Σ_{k<a} [log(1 + e^{−k(t+iy)}) − log(1 + e^{−kt})] = −iy·S'/2 + C(t + iy) − C(t), the
+    // phase y·S'/2 = 2π(S'·j mod 2K)/(2K) exact (nodes out of the series' reach: the loop below).
+    re -= shifted[0];
+    im += nodePhase(head!.total, j, 2 * K) - shifted[1];
+  } else {
+    for (let k = 1; k < a; k++) {
+      const e = Math.exp(-k * t);
+      const p = e / (1 + e);
+      const half = Math.sin((k * y) / 2);
+      const wr = -2 * p * half * half;
+      const wi = -p * Math.sin(k * y);
+      re -= 0.5 * Math.log1p(2 * wr + wr * wr + wi * wi);
+      im -= Math.atan2(wi, 1 + wr);
+    }
   }
   if (b !== Infinity) {
     // T_b(t + iy) − T_b(t) = Σ_j ((−1)^{j+1}/j)·g_j(t)·(e^{Δ_j} − 1), term by term without

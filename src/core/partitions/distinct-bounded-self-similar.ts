@@ -25,10 +25,21 @@ import {
  */
 export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
   /**
-   * Largest a served: the counts it needs (b' = ⌈a/2⌉ <= 100) were checked against exact BigInt
-   * counts (test/partitions/log-distinct-bounded-count.test.ts, b' up to 100).
+   * Largest a served: the counts it needs (b' = ⌈a/2⌉ <= 2500) were checked against exact BigInt
+   * counts above their tables (test/partitions/log-distinct-bounded-count.test.ts, b' up to 200;
+   * test/partitions/log-distinct-large-min-count.test.ts, b' = 201, 268, 400;
+   * test/verify/distinct-large-min-counts.verify.ts, b' = 1000, 2500).
    */
-  static readonly MAX_A = 200;
+  static readonly MAX_A = 5000;
+  /**
+   * Above a = 200 the method is planned only where n >= a²/4 (~a/4 parts or more): with fewer
+   * parts the lower levels' counts are lumpy and their proposals many (measured: 15–20 per sample
+   * at n >= a², 50–220 at n = 0.25a²–0.05a², a = 300, 2000; the estimate assumes ~1.5 per level);
+   * such families keep the table and Boltzmann methods (few parts fit).
+   */
+  static serves(n: number, a: number): boolean {
+    return a <= 200 || (a <= DistinctBoundedSelfSimilarSampler.MAX_A && 4 * n >= a * a);
+  }
   readonly method = 'distinct-bounded-self-similar/1';
   readonly expectedLength: number;
   readonly expectedDistinct: number;

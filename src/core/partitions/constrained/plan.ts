@@ -224,13 +224,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // is only built when all candidates are asked for.
     const plainDistinct = distinct && open && lo <= 1;
     if (plainDistinct) boltzmann(() => new DistinctSelfSimilarSampler(n));
-    // Distinct parts in [a, c] (a <= 200; a >= 2 or c < n): the same engine with the bounds going
+    // Distinct parts in [a, c] (a <= 200, or a <= 5000 with n >= a²/4; a >= 2 or c < n): the same engine with the bounds going
     // down the levels (distinct-bounded-self-similar.ts), where its counts serve every level
     // (`servable`; an upper bound near the middle of its range, e.g. maxPart ~ 2√n, is served
     // by the counts' middle regime). Its setup is time (count tables of a few thousand doubles each), so it fits
     // on the sample-work limit and the memory it holds.
     // distinct-boltzmann stays a candidate: with a in the tens and n <~ 1e5 it is estimated faster.
-    const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && Math.max(1, lo) <= DistinctBoundedSelfSimilarSampler.MAX_A;
+    const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && DistinctBoundedSelfSimilarSampler.serves(n, Math.max(1, lo));
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
     if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
     if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
