@@ -1,4 +1,4 @@
-import { sumOverSizes } from './tilt.js';
+import { sumsOverSizes } from './tilt.js';
 import type { SizeSet } from './spec.js';
 
 /**
@@ -14,23 +14,25 @@ export interface LengthLaw {
 }
 
 export function lengthLaw(sizes: SizeSet, t: number, distinct: boolean): LengthLaw {
-  const varZ = (k: number): number => {
+  // One pass over the sizes for the four sums (sumsOverSizes: each bit for bit its own sum).
+  const [mean, varL, cov, varN] = sumsOverSizes(sizes, t, 4, (k, out) => {
     const q = Math.exp(t * k);
+    let varZ: number;
+    let meanZ: number;
     if (distinct) {
       const p = 1 / (1 + 1 / q);
-      return p * (1 - p);
+      varZ = p * (1 - p);
+      meanZ = p;
+    } else {
+      const d = -Math.expm1(t * k);
+      varZ = q / (d * d);
+      meanZ = q / d;
     }
-    const d = -Math.expm1(t * k);
-    return q / (d * d);
-  };
-  const meanZ = (k: number): number => {
-    const q = Math.exp(t * k);
-    return distinct ? 1 / (1 + 1 / q) : q / -Math.expm1(t * k);
-  };
-  const mean = sumOverSizes(sizes, t, meanZ);
-  const varL = sumOverSizes(sizes, t, varZ);
-  const cov = sumOverSizes(sizes, t, (k) => k * varZ(k));
-  const varN = sumOverSizes(sizes, t, (k) => k * k * varZ(k));
+    out[0] = meanZ;
+    out[1] = varZ;
+    out[2] = k * varZ;
+    out[3] = k * k * varZ;
+  });
   const conditional = varN > 0 ? varL - (cov * cov) / varN : varL;
   return { mean, sd: Math.sqrt(Math.max(conditional, 0)) };
 }
@@ -54,19 +56,19 @@ export function solveTiltNewton(sizes: SizeSet, n: number, distinct: boolean): n
   let lo = -60 / smallest;
   let hi = distinct ? 60 / smallest : -1e-15;
   const moments = (t: number): { mean: number; variance: number } => {
-    const terms = (k: number): [number, number] => {
+    const [mean, variance] = sumsOverSizes(sizes, t, 2, (k, out) => {
       const q = Math.exp(t * k);
       if (distinct) {
         const p = 1 / (1 + 1 / q);
-        return [p, p * (1 - p)];
+        out[0] = k * p;
+        out[1] = k * k * (p * (1 - p));
+        return;
       }
       const d = -Math.expm1(t * k);
-      return [q / d, q / (d * d)];
-    };
-    return {
-      mean: sumOverSizes(sizes, t, (k) => k * terms(k)[0]),
-      variance: sumOverSizes(sizes, t, (k) => k * k * terms(k)[1]),
-    };
+      out[0] = k * (q / d);
+      out[1] = k * k * (q / (d * d));
+    });
+    return { mean, variance };
   };
   let t = distinct ? -Math.PI / Math.sqrt(12 * n) : -Math.PI / Math.sqrt(6 * n);
   t = Math.min(Math.max(t, lo), hi);

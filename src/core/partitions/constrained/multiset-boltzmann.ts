@@ -91,25 +91,39 @@ export class MultisetBoltzmann implements PartitionSampler {
     const { n, t, sizes, a, b } = this;
     if (this.pair === null) return { sizes: [a], multiplicities: [n / a] };
     const restEmpty = sizeCount(sizes) === 2;
+    // The sizes drawn with Z_k >= 1 and their Z_k, in drawing order (plain arrays reused across
+    // proposals: a proposal over a wide interval draws thousands of sizes, most of them rejected).
+    const drawnSizes: number[] = [];
+    const drawnCounts: number[] = [];
     for (;;) {
-      const counts = new Map<number, number>();
+      drawnSizes.length = 0;
+      drawnCounts.length = 0;
       let total = 0;
-      // Z_k = floor(ln U / (k t)) has P(Z_k >= j) = x^(kj).
-      const drawAll = (k: number): boolean => {
-        const z = Math.floor(Math.log(nextOpenDouble(source)) / (k * t));
-        if (z > 0) {
-          counts.set(k, z);
-          total += k * z;
-        }
-        return total <= n;
-      };
       let alive = true;
+      // Z_k = floor(ln U / (k t)) has P(Z_k >= j) = x^(kj).
       if (sizes.kind === 'list') {
         const values = sizes.values;
-        for (let i = values.length - 1; i >= 2 && alive; i--) alive = drawAll(values[i]);
+        for (let i = values.length - 1; i >= 2 && alive; i--) {
+          const k = values[i];
+          const z = Math.floor(Math.log(nextOpenDouble(source)) / (k * t));
+          if (z > 0) {
+            drawnSizes.push(k);
+            drawnCounts.push(z);
+            total += k * z;
+          }
+          alive = total <= n;
+        }
       } else {
         const denseTop = Math.min(sizes.hi, this.denseEnd);
-        for (let k = sizes.lo + 2; k <= denseTop && alive; k++) alive = drawAll(k);
+        for (let k = sizes.lo + 2; k <= denseTop && alive; k++) {
+          const z = Math.floor(Math.log(nextOpenDouble(source)) / (k * t));
+          if (z > 0) {
+            drawnSizes.push(k);
+            drawnCounts.push(z);
+            total += k * z;
+          }
+          alive = total <= n;
+        }
         if (alive && sizes.hi > denseTop) {
           // Sparse sizes: visit those with Z_k >= 1 (probability x^k), then Z_k = 1 + Geometric.
           alive = visitThinned(
@@ -119,7 +133,8 @@ export class MultisetBoltzmann implements PartitionSampler {
             (k) => Math.exp(t * k),
             (k) => {
               const z = 1 + Math.floor(Math.log(nextOpenDouble(source)) / (k * t));
-              counts.set(k, z);
+              drawnSizes.push(k);
+              drawnCounts.push(z);
               total += k * z;
               return total <= n;
             },
@@ -133,6 +148,8 @@ export class MultisetBoltzmann implements PartitionSampler {
       if (!restEmpty && !(source.nextDouble() < Math.exp(Math.log(solutions) + t * m - this.logBound))) continue;
       const j = this.pair.nth(m, solutions === 1 ? 0 : nextBelow(source, solutions));
       const i = (m - b * j) / a;
+      const counts = new Map<number, number>();
+      for (let d = 0; d < drawnSizes.length; d++) counts.set(drawnSizes[d], drawnCounts[d]);
       if (i > 0) counts.set(a, i);
       if (j > 0) counts.set(b, j);
       return countsToPartition(counts);

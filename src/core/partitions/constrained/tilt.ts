@@ -44,6 +44,45 @@ export function sumOverSizes(sizes: SizeSet, t: number, f: (k: number) => number
   return s + (acc * h) / 3;
 }
 
+/**
+ * Several sums over the allowed sizes at once, sums[i] = sum over k of f_i(k), where
+ * fill(k, values) writes f_0(k), ..., f_{width-1}(k) into values: the same points, weights and
+ * order of additions as sumOverSizes for each i (so each result is bit for bit that function's),
+ * with the terms' shared transcendental functions evaluated once per point.
+ */
+export function sumsOverSizes(sizes: SizeSet, t: number, width: number, fill: (k: number, values: Float64Array) => void): Float64Array {
+  const values = new Float64Array(width);
+  const s = new Float64Array(width);
+  const add = (k: number, weight: number, into: Float64Array) => {
+    fill(k, values);
+    for (let i = 0; i < width; i++) into[i] += weight === 1 ? values[i] : weight * values[i];
+  };
+  if (sizes.kind === 'list') {
+    for (const k of sizes.values) add(k, 1, s);
+    return s;
+  }
+  const { lo } = sizes;
+  let hi = sizes.hi;
+  if (t < 0) hi = Math.min(hi, lo + Math.ceil(60 / -t));
+  if (hi - lo + 1 <= 2 * DIRECT_TERMS) {
+    for (let k = lo; k <= hi; k++) add(k, 1, s);
+    return s;
+  }
+  const split = lo + DIRECT_TERMS;
+  for (let k = lo; k < split; k++) add(k, 1, s);
+  const a = split - 0.5;
+  const b = hi + 0.5;
+  const h = (b - a) / SIMPSON_PANELS;
+  const acc = new Float64Array(width);
+  fill(a, values);
+  for (let i = 0; i < width; i++) acc[i] = values[i];
+  fill(b, values);
+  for (let i = 0; i < width; i++) acc[i] += values[i];
+  for (let j = 1; j < SIMPSON_PANELS; j++) add(a + j * h, j % 2 === 1 ? 4 : 2, acc);
+  for (let i = 0; i < width; i++) s[i] = s[i] + (acc[i] * h) / 3;
+  return s;
+}
+
 /** Mean part count, mean size and size variance of one size k under tilt t. */
 function geometricTerms(k: number, t: number): { p: number; mean: number; varZ: number } {
   const y = Math.exp(t * k); // x^k
@@ -69,12 +108,14 @@ export interface TiltMoments {
 
 export function tiltMoments(sizes: SizeSet, t: number, distinct: boolean): TiltMoments {
   const terms = distinct ? bernoulliTerms : geometricTerms;
-  return {
-    mean: sumOverSizes(sizes, t, (k) => k * terms(k, t).mean),
-    variance: sumOverSizes(sizes, t, (k) => k * k * terms(k, t).varZ),
-    parts: sumOverSizes(sizes, t, (k) => terms(k, t).mean),
-    distinctSizes: sumOverSizes(sizes, t, (k) => terms(k, t).p),
-  };
+  const [mean, variance, parts, distinctSizes] = sumsOverSizes(sizes, t, 4, (k, out) => {
+    const z = terms(k, t);
+    out[0] = k * z.mean;
+    out[1] = k * k * z.varZ;
+    out[2] = z.mean;
+    out[3] = z.p;
+  });
+  return { mean, variance, parts, distinctSizes };
 }
 
 function meanSize(sizes: SizeSet, t: number, distinct: boolean): number {
