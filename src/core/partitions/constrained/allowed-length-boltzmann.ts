@@ -15,21 +15,39 @@ import { gcd } from './spec.js';
  * probability proportional to y^L x^N; given (N, L) = (n, k) it is uniform whatever (x, y). The
  * two tilts are solved numerically so that (n, k) is the mean (Newton's method on the convex
  * cumulant function; its Hessian is the covariance of (N, L)). For "at most K parts" a size-0
- * site Z_0 (P(Z_0 >= j) = y^j) counts the missing parts and the condition becomes L + Z_0 = K.
+ * site Z_0 (P(Z_0 >= j) = y^j) counts the missing parts and the condition becomes "exactly K
+ * sites' worth of parts from S ∪ {0}"; below, the sites are S (exactly k) or S ∪ {0} (at most K).
  *
  * Probabilistic divide-and-conquer with a deterministic last step (Arratia & DeSalvo 2016,
- * CPC 25, §3.3): all multiplicities are drawn except those of two sizes a < b (the two most
- * frequent under the tilt); the residual count C and size M fix them:
- * - exactly k: i + j = C, a i + b j = M has at most one solution; its probability is
- *   (1 - q_a)(1 - q_b) q_a^i q_b^j, accepted with probability q_a^i q_b^j (the ratio to its
- *   maximum, at i = j = 0). Every member then has probability prod_(s != a,b)(1 - q_s) y^k x^n.
- * - at most K: the solutions (z, i, j) of z + i + j = C, a i + b j = M all have weight
- *   y^C x^M; they are counted in closed form (j runs over one residue class, Nijenhuis & Wilf
- *   1978, ch. 9) and accepted with probability y^C x^M #solutions / U, then one is taken
- *   uniformly. U bounds y^C x^M #solutions: any solution has C >= M / b and at most
- *   M / lcm(a, b) + 1 of them exist, so U = max over M >= 0 of (x y^(1/b))^M (M / lcm + 1).
- * The acceptance rate is P(N = n, L = k) / U-normalised, estimated by the two-dimensional local
- * limit theorem: gcd / (2 pi sqrt(det Cov)).
+ * CPC 25, §3.3): the multiplicities of every site but three, a < b < c (the free sites), are
+ * drawn; the residual count C = k - (their count) and size M = n - (their size) leave
+ *   i + j + l = C,  a i + b j + c l = M,  i, j, l >= 0
+ * for the three determined sites. With R = M - a C, beta = b - a, gamma = c - a this is
+ * beta j + gamma l = R with j + l <= C: l runs over one residue class modulo beta / gcd(beta, gamma)
+ * between max(0, ceil((R - beta C) / (gamma - beta))) and floor(R / gamma) (counted in closed form,
+ * Nijenhuis & Wilf 1978, ch. 9). Every solution has the same weight q_a^i q_b^j q_c^l = y^C x^M,
+ * so the proposal (free sites, then the residual) is accepted with probability
+ * y^C x^M #solutions(C, M) / U and one solution is then taken uniformly.
+ *
+ * Exactness: a member with free multiplicities alpha is output with probability
+ * P(free = alpha) (y^C x^M #sol / U) (1 / #sol) = prod_(free)(1 - q_s) y^k x^n / U, the same for
+ * every member; the loop restarts otherwise, so the output is uniform provided
+ * y^C x^M #solutions(C, M) <= U for every residual. The bound U: write m = M / C (in [a, c] when
+ * a solution exists) and lambda(m) = -(ln y + m ln x) > 0 (linear in m and positive at a and c,
+ * since q_a, q_c < 1), so y^C x^M = e^(-C lambda(m)) <= 1. The solutions are the lattice points of
+ * one residue class (step gamma / g in j, g = gcd(beta, gamma)) on the real segment of the
+ * triangle {i + j + l = C, a i + b j + c l = M, >= 0}, whose j-range is C h(m) with the tent
+ * h(m) = (m - a) / (b - a) on [a, b], (c - m) / (c - b) on [b, c]; so
+ * #sol <= 1 + C h(m) g / gamma. Then y^C x^M #sol <= 1 + (g / gamma) h(m) C e^(-C lambda(m)), and
+ * C e^(-C lambda) <= 1 / (e lambda); h / lambda is a ratio of linear functions, monotone on each
+ * piece and 0 at a and c, hence at most 1 / lambda(b). So U = 1 + g / (gamma e (-ln q_b)).
+ * With no free site the residual is always (k, n) and no acceptance step is needed.
+ *
+ * The acceptance rate is P(N = n, L = k) / (prod over the three of (1 - q_s) U), estimated with
+ * the two-dimensional local limit theorem, P(N = n, L = k) ~ span / (2 pi sqrt(det Cov)); the
+ * three determined sites are the triple (among the most frequent sites and the two extreme ones)
+ * minimising prod (1 - q_s) U, i.e. carrying the largest share of the covariance. With two sizes
+ * and exactly k parts the member is unique (solved directly).
  *
  * Method id "allowed-length-boltzmann/1". The caller guarantees the family is not empty.
  */
@@ -42,85 +60,81 @@ export class AllowedLengthBoltzmann implements PartitionSampler {
   /** ln x and ln y. */
   readonly t: number;
   readonly u: number;
-  private readonly sizes: readonly number[];
-  /** ln q_s for the sizes other than a and b, drawn by inversion. */
-  private readonly others: number[];
+  /** The three determined sites a < b < c (a may be the size-0 site), or two sizes a < b (c = -1). */
+  readonly determined: readonly number[];
+  /** Free sites (possibly the size-0 site) and their ln q, drawn by inversion. */
+  private readonly free: number[];
   private readonly logQ: number[];
   private readonly a: number;
-  private readonly b: number;
-  private readonly logQa: number;
-  private readonly logQb: number;
-  /** ln U (at most K only). */
+  private readonly beta: number;
+  private readonly gamma: number;
+  /** ln U. */
   private readonly logBound: number;
-  private readonly atMost: boolean;
   private readonly pair: PairSolutions;
 
+  /**
+   * `triple` forces the three determined sites (tests); by default the cheapest by the estimate.
+   */
   constructor(
     values: readonly number[],
     readonly n: number,
     readonly parts: number,
     atMost: boolean,
+    triple?: readonly [number, number, number],
   ) {
     if (values.length < 2) throw new RangeError('allowed-length-boltzmann needs at least two sizes');
-    this.sizes = values.slice();
-    this.atMost = atMost;
     const tilt = solveTwoTilts(values, n, parts, atMost);
     this.t = tilt.t;
     this.u = tilt.u;
-    const logQ = values.map((s) => this.u + this.t * s);
-    // The pair: the two sizes with the largest q (most frequent).
-    const order = values.map((_, i) => i).sort((i, j) => logQ[j] - logQ[i]);
-    const [ia, ib] = order[0] < order[1] ? [order[0], order[1]] : [order[1], order[0]];
-    this.a = values[ia];
-    this.b = values[ib];
-    this.logQa = logQ[ia];
-    this.logQb = logQ[ib];
-    this.others = [];
+    const sites = atMost ? [0, ...values] : values.slice();
+    const logQOf = (s: number) => this.u + this.t * s;
+    const chosen = sites.length === 2 ? sites.slice() : (triple?.slice() ?? cheapestTriple(sites, logQOf));
+    if (chosen.length === 3 && !(chosen[0] < chosen[1] && chosen[1] < chosen[2] && chosen.every((s) => sites.includes(s)))) {
+      throw new RangeError('allowed-length-boltzmann: the determined sites must be three increasing sites');
+    }
+    this.determined = chosen;
+    this.free = [];
     this.logQ = [];
-    for (let i = values.length - 1; i >= 0; i--) {
-      if (i === ia || i === ib) continue;
-      this.others.push(values[i]);
-      this.logQ.push(logQ[i]);
+    for (let i = sites.length - 1; i >= 0; i--) {
+      if (chosen.includes(sites[i])) continue;
+      this.free.push(sites[i]);
+      this.logQ.push(logQOf(sites[i]));
     }
-    this.pair = new PairSolutions(this.a, this.b);
-    if (atMost) {
-      // max over 0 <= M <= n of tau M + ln(M / lcm + 1), tau = ln(x y^(1/b)).
-      const tau = this.t + this.u / this.b;
-      const lcm = (this.a / gcd(this.a, this.b)) * this.b;
-      const peak = tau < 0 ? Math.min(n, Math.max(0, -1 / tau - lcm)) : n;
-      this.logBound = tau * peak + Math.log(peak / lcm + 1);
-    } else {
-      this.logBound = 0;
-    }
+    this.a = chosen[0];
+    this.beta = chosen[1] - chosen[0];
+    this.gamma = chosen.length === 3 ? chosen[2] - chosen[0] : 0;
+    // beta j + gamma l = R (unused with two sizes).
+    this.pair = new PairSolutions(this.beta, chosen.length === 3 ? this.gamma : this.beta + 1);
+    this.logBound = chosen.length === 3 ? tripleLogCost(chosen as [number, number, number], logQOf, false) : 0;
     // Estimates: 2-D local limit theorem for P(N = n, L = parts).
     const cov = covariance(values, this.t, this.u, atMost);
     const det = Math.max(cov.varN * cov.varL - cov.cov * cov.cov, 1e-300);
     let span = 0;
     for (const s of values) span = gcd(span, atMost ? s : s - values[0]);
     const hit = Math.min(1, span / (2 * Math.PI * Math.sqrt(det)));
-    // P(accept) = P(N = n, L = parts) / (block maximum): (1 - q_a)(1 - q_b) for exactly k, times
-    // (1 - y) U for at most K.
-    let logBlockMax = Math.log(-Math.expm1(this.logQa)) + Math.log(-Math.expm1(this.logQb));
-    if (atMost) logBlockMax += Math.log(-Math.expm1(this.u)) + this.logBound;
-    this.expectedProposals = this.others.length === 0 ? 1 : Math.max(1, Math.exp(logBlockMax) / hit);
-    this.expectedLength = atMost ? Math.min(parts, cov.meanL) : parts;
+    // P(accept) = P(N = n, L = parts) / (prod over the three of (1 - q_s) U).
+    const logBlockMax = chosen.length === 3 ? tripleLogCost(chosen as [number, number, number], logQOf, true) : 0;
+    this.expectedProposals = this.free.length === 0 ? 1 : Math.max(1, Math.exp(logBlockMax) / hit);
+    this.expectedLength = atMost ? Math.min(parts, cov.meanL - cov.meanZero) : parts;
     this.expectedDistinct = Math.min(values.length, this.expectedLength);
-    this.expectedWork = this.expectedProposals * (this.others.length + 3) + this.expectedDistinct;
+    this.expectedWork = this.expectedProposals * (this.free.length + 3) + this.expectedDistinct;
   }
 
   sample(source: RandomSource): Partition {
-    const { n, parts, a, b, others, logQ } = this;
+    const { n, parts, free, logQ, a, beta, gamma } = this;
+    if (gamma === 0) return this.pairMember();
+    const [, b, c] = this.determined;
     for (;;) {
       const counts = new Map<number, number>();
       let total = 0;
       let count = 0;
       let alive = true;
-      for (let i = 0; i < others.length; i++) {
+      for (let f = 0; f < free.length; f++) {
         // Z = floor(ln U / ln q) has P(Z >= j) = q^j.
-        const z = Math.floor(Math.log(nextOpenDouble(source)) / logQ[i]);
+        const z = Math.floor(Math.log(nextOpenDouble(source)) / logQ[f]);
         if (z > 0) {
-          counts.set(others[i], z);
-          total += z * others[i];
+          if (free[f] > 0) counts.set(free[f], z);
+          total += z * free[f];
           count += z;
           if (total > n || count > parts) {
             alive = false;
@@ -131,33 +145,71 @@ export class AllowedLengthBoltzmann implements PartitionSampler {
       if (!alive) continue;
       const C = parts - count;
       const M = n - total;
-      let i: number;
-      let j: number;
-      if (!this.atMost) {
-        // i + j = C, a i + b j = M.
-        const jNum = M - a * C;
-        if (jNum < 0 || jNum % (b - a) !== 0) continue;
-        j = jNum / (b - a);
-        i = C - j;
-        if (i < 0) continue;
-        // With no other size the residual is always the same: the acceptance is a constant.
-        if (others.length > 0 && !(source.nextDouble() < Math.exp(i * this.logQa + j * this.logQb))) continue;
-      } else {
-        // z + i + j = C, a i + b j = M: j in the residue class, M / b >= j >= (M - a C) / (b - a).
-        const first = Math.max(0, Math.ceil((M - a * C) / (b - a)));
-        const last = Math.floor(M / b);
-        const solutions = this.pair.countBetween(M, first, last);
-        if (solutions === 0) continue;
+      // beta j + gamma l = R, j + l <= C.
+      const R = M - a * C;
+      if (R < 0) continue;
+      const first = Math.max(0, Math.ceil((R - beta * C) / (gamma - beta)));
+      const last = Math.floor(R / gamma);
+      const solutions = this.pair.countBetween(R, first, last);
+      if (solutions === 0) continue;
+      if (free.length > 0) {
         const logWeight = this.u * C + this.t * M + Math.log(solutions) - this.logBound;
-        if (others.length > 0 && !(source.nextDouble() < Math.exp(logWeight))) continue;
-        j = this.pair.nthBetween(M, first, solutions === 1 ? 0 : nextBelow(source, solutions));
-        i = (M - b * j) / a;
+        if (!(source.nextDouble() < Math.exp(logWeight))) continue;
       }
-      if (i > 0) counts.set(a, i);
+      const l = this.pair.nthBetween(R, first, solutions === 1 ? 0 : nextBelow(source, solutions));
+      const j = (R - gamma * l) / beta;
+      const i = C - j - l;
+      if (i > 0 && a > 0) counts.set(a, i);
       if (j > 0) counts.set(b, j);
+      if (l > 0) counts.set(c, l);
       return countsToPartition(counts);
     }
   }
+
+  /** Two sizes a < b, exactly k parts: i + j = k, a i + b j = n (the caller guarantees a solution). */
+  private pairMember(): Partition {
+    const [a, b] = this.determined;
+    const j = (this.n - a * this.parts) / (b - a);
+    const counts = new Map<number, number>();
+    if (this.parts - j > 0) counts.set(a, this.parts - j);
+    if (j > 0) counts.set(b, j);
+    return countsToPartition(counts);
+  }
+}
+
+/** Sites tried for the determined triple: the most frequent ones and the two extreme sites. */
+const TRIPLE_CANDIDATES = 12;
+
+/**
+ * ln U for the triple (withBlock false), or ln(prod over the three of (1 - q_s) U), the
+ * quantity the acceptance rate is inversely proportional to (withBlock true).
+ */
+function tripleLogCost([a, b, c]: readonly [number, number, number], logQOf: (s: number) => number, withBlock: boolean): number {
+  const g = gcd(b - a, c - a);
+  const logBound = Math.log1p(g / ((c - a) * Math.E * -logQOf(b)));
+  if (!withBlock) return logBound;
+  return logBound + Math.log(-Math.expm1(logQOf(a))) + Math.log(-Math.expm1(logQOf(b))) + Math.log(-Math.expm1(logQOf(c)));
+}
+
+/** The triple of sites with the least estimated cost (sites increasing, at least three). */
+function cheapestTriple(sites: readonly number[], logQOf: (s: number) => number): number[] {
+  const byFrequency = sites.slice().sort((s, r) => logQOf(r) - logQOf(s));
+  const pool = [...new Set([...byFrequency.slice(0, TRIPLE_CANDIDATES), sites[0], sites[sites.length - 1]])].sort((s, r) => s - r);
+  let best: [number, number, number] = [pool[0], pool[1], pool[2]];
+  let bestCost = Infinity;
+  for (let x = 0; x < pool.length; x++) {
+    for (let y = x + 1; y < pool.length; y++) {
+      for (let z = y + 1; z < pool.length; z++) {
+        const triple: [number, number, number] = [pool[x], pool[y], pool[z]];
+        const cost = tripleLogCost(triple, logQOf, true);
+        if (cost < bestCost) {
+          bestCost = cost;
+          best = triple;
+        }
+      }
+    }
+  }
+  return best;
 }
 
 interface Moments {
@@ -166,6 +218,8 @@ interface Moments {
   readonly varN: number;
   readonly varL: number;
   readonly cov: number;
+  /** E Z_0, the missing parts (0 unless atMost). */
+  readonly meanZero: number;
 }
 
 /** Means and covariance of (N, L) under the tilts (L includes the size-0 site when atMost). */
@@ -188,8 +242,9 @@ function covariance(values: readonly number[], t: number, u: number, atMost: boo
     cov += s * v;
   };
   for (const s of values) add(s);
+  const meanNonZero = meanL;
   if (atMost) add(0);
-  return { meanN, meanL, varN, varL, cov };
+  return { meanN, meanL, varN, varL, cov, meanZero: meanL - meanNonZero };
 }
 
 /**

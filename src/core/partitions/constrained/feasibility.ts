@@ -1,6 +1,6 @@
 import { listLengthFeasible } from './length-feasibility.js';
 import { subsetSumReachable } from './subset-sum-reach.js';
-import { sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './spec.js';
+import { gcd, sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './spec.js';
 
 /**
  * Whether a family has at least one member, decided without counting where a closed form
@@ -44,7 +44,7 @@ function intervalFeasible(n: number, lo: number, hi: number, distinct: boolean, 
 /**
  * Any multiplicities from a list: n must be a multiple of g = gcd; beyond Schur's bound on the
  * Frobenius number, (a_1/g - 1)(a_r/g - 1) (Brauer 1942, "On a problem of partitions"), every
- * multiple of g is reachable; below it, a reachability table.
+ * multiple of g is reachable; below it, the residue table of the smallest size (round robin).
  */
 function listFeasible(values: readonly number[], n: number, workLimit: number): boolean | undefined {
   const g = sizeGcd({ kind: 'list', values });
@@ -52,11 +52,43 @@ function listFeasible(values: readonly number[], n: number, workLimit: number): 
   const first = values[0] / g;
   const last = values[values.length - 1] / g;
   if (n / g >= (first - 1) * (last - 1)) return true;
-  if (values.length * n > workLimit) return undefined;
-  const reach = new Uint8Array(n + 1);
-  reach[0] = 1;
-  for (const a of values) for (let m = a; m <= n; m++) if (reach[m - a]) reach[m] = 1;
-  return reach[n] === 1;
+  if (values.length * first > workLimit) return undefined;
+  return smallestInResidue(values.map((v) => v / g))[(n / g) % first] <= n / g;
+}
+
+/**
+ * For sizes a_1 < ... < a_r with gcd 1: d[p] = the smallest sum of sizes (any multiplicities)
+ * that is = p mod a_1, so that m is a sum iff m >= d[m mod a_1] (m - d[m mod a_1] is a
+ * multiple of a_1). Round-robin algorithm (Böcker & Lipták 2007, "A fast and simple algorithm
+ * for the money changing problem", Algorithmica 48): adding a size a splits the residues into
+ * gcd(a_1, a) cycles p -> p + a mod a_1; starting each cycle at its smallest entry, one pass of
+ * d[p + a] = min(d[p + a], d[p] + a) around it is exact (a shortest path never wraps the whole
+ * cycle). O(r a_1) steps.
+ */
+export function smallestInResidue(sizes: readonly number[]): Float64Array {
+  const a1 = sizes[0];
+  const d = new Float64Array(a1).fill(Infinity);
+  d[0] = 0;
+  for (let i = 1; i < sizes.length; i++) {
+    const a = sizes[i];
+    const step = a % a1;
+    if (step === 0) continue;
+    const cycles = gcd(a1, step);
+    const cycleLength = a1 / cycles;
+    for (let p = 0; p < cycles; p++) {
+      // The cycle's smallest entry.
+      let start = p;
+      for (let q = p, c = 0; c < cycleLength; c++, q = (q + step) % a1) if (d[q] < d[start]) start = q;
+      if (d[start] === Infinity) continue;
+      for (let q = start, c = 0; c < cycleLength; c++) {
+        const next = (q + step) % a1;
+        const via = d[q] + a;
+        if (via < d[next]) d[next] = via;
+        q = next;
+      }
+    }
+  }
+  return d;
 }
 
 /** Distinct parts from a list: subset-sum reachability (subset-sum-reach.ts; undefined beyond its work bound). */
