@@ -1,7 +1,8 @@
 import type { Partition } from '../../partition.js';
 import type { PartitionSampler } from '../../sampler.js';
 import { BoundedSelfSimilarSampler } from '../bounded-self-similar.js';
-import { conjugated, samplerCandidate, type LengthPlanInput } from './length-candidate.js';
+import { ConjugateMixture } from './conjugate-mixture.js';
+import { conjugated, partsHint, SAMPLE_WORK_CEILING, samplerCandidate, type LengthPlanInput } from './length-candidate.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
 import type { PlanCandidate } from './plan.js';
 import { addPart, addStaircase, conjugate, shiftParts } from './transforms.js';
@@ -65,4 +66,25 @@ export function openAtMostCandidates(input: LengthPlanInput, n: number, K: numbe
   const bounded = boundedCandidate(input, n, K, conjugate, K);
   if (bounded !== null) out.push(bounded);
   return out;
+}
+
+/** Setup steps per number of parts of conjugate-mixture (weights, moments; the tilt's sums). */
+const CONJUGATE_MIXTURE_SETUP_PER_PART = 12;
+
+/**
+ * At most K parts in [lo, hi], lo >= 2, not distinct: by the conjugate (k^lo) ∪ ν with the number
+ * of parts k drawn under one tilt (conjugate-mixture.ts). Not built where its O(K) setup alone
+ * is over the limit.
+ */
+export function conjugateMixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: number): PlanCandidate | null {
+  const { n } = input.spec;
+  const top = Math.min(K, Math.floor(n / lo));
+  if (top < 1 || lo < 2) return null;
+  const setupWork = CONJUGATE_MIXTURE_SETUP_PER_PART * top;
+  if (!input.fits(setupWork, 0)) {
+    return { method: 'conjugate-mixture/1', setupWork, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('conjugate mixture over its setup limit'); }, hint: partsHint(input.fits(0, 0) ? top / 2 : 1) };
+  }
+  const sampler = new ConjugateMixture(n, lo, hi, K);
+  // Work grows like K^1.5 (proposals ~ sqrt(K), each ~ K draws).
+  return samplerCandidate(input, sampler, sampler.setupWork, (work) => partsHint(top * Math.pow(SAMPLE_WORK_CEILING / work, 2 / 3)));
 }

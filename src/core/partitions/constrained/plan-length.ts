@@ -6,7 +6,7 @@ import type { LengthPlanInput } from './length-candidate.js';
 import { FILTER_MIN_ACCEPTANCE, FILTER_SLACK_ACCEPTANCE, filterCandidate } from './length-filter-candidate.js';
 import { listLengthCandidates } from './list-length-candidates.js';
 import { mixtureCandidate } from './mixture-candidate.js';
-import { openAtMostCandidates, openExactCandidates } from './open-length-candidates.js';
+import { conjugateMixtureCandidate, openAtMostCandidates, openExactCandidates } from './open-length-candidates.js';
 import type { PlanCandidate } from './plan.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
 
@@ -27,6 +27,8 @@ export { mixtureEntries, mixtureSampler } from './mixture-candidate.js';
  *   box-rotation is cheaper than box-subset's least work);
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
+ * - "conjugate-mixture/1" (conjugate-mixture.ts): at most K parts >= lo >= 2 (any maxPart), as the
+ *   conjugate (k^lo) ∪ ν with ν's parts <= k, the number of parts k drawn under the same tilt;
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
  *   (allowed lists, distinct parts, exactly k): the subset design over the list;
  * - "bounded-boltzmann/1+conjugate" and "bounded-self-similar/1+conjugate": no upper bound on
@@ -71,6 +73,9 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
       } else {
         const mixture = mixtureCandidate(input, lo, hi, K);
         if (mixture !== null) out.push(mixture);
+        // At most K parts >= lo (lo >= 2): the conjugate has lo equal largest parts (one tilt over k).
+        const conjugated = distinct ? null : conjugateMixtureCandidate(input, lo, hi, K);
+        if (conjugated !== null) out.push(conjugated);
       }
     }
   }
