@@ -67,9 +67,10 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   // Per random draw (block counts, internal sums, placed positions): 41-70 ns of CPU, median ~46,
   // n = 1e5-1e9 with maxPart = 2 sqrt(n) and length or maxLength sqrt(n) (loaded 2-core machine).
   'box-rotation/1': 50,
-  // Per estimated step (one geometric draw per size <= k): 37 ns of CPU for n = 9.0e8, parts >= 187,
-  // at most 23013 parts (121 ms per sample, 70 proposals against 139 estimated).
-  'conjugate-mixture/1': 40,
+  // Per estimated step (one geometric draw per size <= k, a logarithm each): 65-85 ns of CPU
+  // per sample / expectedWork at n = 1e6 (parts >= 10, at most 500) and 1e8 (parts >= 2 and >= 50,
+  // at most 5000; proposals 53-74 against 65 estimated), loaded 2-core machine.
+  'conjugate-mixture/1': 75,
   'allowed-length-boltzmann/1': 70,
   'allowed-subset/1': 30,
   // Compositions (src/core/compositions).

@@ -85,6 +85,8 @@ export function conjugateMixtureCandidate(input: LengthPlanInput, lo: number, hi
     return { method: 'conjugate-mixture/1', setupWork, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('conjugate mixture over its setup limit'); }, hint: partsHint(input.fits(0, 0) ? top / 2 : 1) };
   }
   const sampler = new ConjugateMixture(n, lo, hi, K);
-  // Work grows like K^1.5 (proposals ~ sqrt(K), each ~ K draws).
-  return samplerCandidate(input, sampler, sampler.setupWork, (work) => partsHint(top * Math.pow(SAMPLE_WORK_CEILING / work, 2 / 3)));
+  // Work grows like K^1.5 (proposals ~ sqrt(K), each ~ K draws); with a binding maxPart it is
+  // step 4's rejections instead, and no number of parts is named.
+  const hint = hi >= n ? (work: number) => partsHint(top * Math.pow(SAMPLE_WORK_CEILING / work, 2 / 3)) : undefined;
+  return samplerCandidate(input, sampler, sampler.setupWork, hint);
 }
