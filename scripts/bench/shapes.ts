@@ -52,6 +52,8 @@ export const SHAPES: Array<[string, Shape]> = [
   ['minPart=7,maxPart=sqrt(n)', (n) => ({ minPart: 7, maxPart: root(n) })],
   ['minPart=7,length=sqrt(n)/4', (n) => ({ minPart: 7, length: Math.ceil(root(n) / 4) })],
   ['minPart=7,maxLength=sqrt(n)/4', (n) => ({ minPart: 7, maxLength: Math.ceil(root(n) / 4) })],
+  // A maxLength that binds hard (the free mean number of parts >= 7 is ~2e5 at 1e9): conjugate-mixture.
+  ['minPart=7,maxLength=0.75sqrt(n)', (n) => ({ minPart: 7, maxLength: Math.ceil(0.75 * root(n)) })],
   ['minPart=2,allowed=coins', () => ({ minPart: 2, allowed: COINS })],
   ['maxPart=2sqrt(n),length=sqrt(n)', (n) => ({ maxPart: 2 * root(n), length: root(n) })],
   ['maxPart=2sqrt(n),maxLength=sqrt(n)', (n) => ({ maxPart: 2 * root(n), maxLength: root(n) })],

@@ -66,8 +66,8 @@ const large: Array<{ family: PartitionFamily; method: string; heads: Array<[numb
   },
   {
     family: { kind: 'partition', n: 1_000_000, minPart: 10, maxLength: 500 },
-    method: 'box-mixture/1',
-    heads: [[500, [10200, 10109, 10074, 9885, 9703]], [500, [11789, 10003, 9897, 9102, 9086]], [500, [14195, 13727, 13077, 10573, 8323]]],
+    method: 'conjugate-mixture/1',
+    heads: [[500, [13816, 11145, 9993, 9655, 8899]], [500, [14984, 11675, 11311, 10974, 10930]], [499, [12291, 11685, 11561, 10353, 10131]]],
   },
 ];
 

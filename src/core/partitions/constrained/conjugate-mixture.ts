@@ -1,0 +1,213 @@
+import type { Partition } from '../../partition.js';
+import { nextBelow, nextOpenDouble, type RandomSource } from '../../random.js';
+import type { PartitionSampler } from '../../sampler.js';
+import { PairSolutions } from './multiset-boltzmann.js';
+import { normalCdf } from './length-law.js';
+import { solveTilt } from './tilt.js';
+import { visitThinned } from './thinning.js';
+
+/**
+ * Exact uniform partitions of n into at most K parts, every part in [lo, hi] (hi may be >= n:
+ * no bound), through the conjugate, with the number of parts drawn under one tilt.
+ *
+ * A partition λ with exactly k parts, all >= lo, has a conjugate λ' (Andrews 1976, §1.3) whose
+ * lo largest parts all equal k: λ' = (k^lo) ∪ ν with ν any partition of n - lo k into parts <= k,
+ * and λ_1 = lo + (number of parts of ν), so λ_1 <= hi is a bound on ν's number of parts. The
+ * family is the disjoint union over k <= K of these pairs (k, ν). A proposal (Boltzmann
+ * sampling, Duchon, Flajolet, Louchard & Schaeffer 2004, CPC 13, with probabilistic
+ * divide-and-conquer, Arratia & DeSalvo 2016, CPC 25, §3, as multiset-boltzmann.ts), at x = e^t:
+ *  1. k with probability proportional to x^(lo k) / prod_(i=3..k) (1 - x^i) (weights summed once,
+ *     O(K) setup; for k <= 2 the product is empty);
+ *  2. for 3 <= i <= k the multiplicity Z_i of i in ν, independent, P(Z_i >= j) = x^(ij);
+ *  3. the remainder m = n - lo k - sum i Z_i is left to the sizes 1 and 2 (only 1 when k = 1):
+ *     accepted with probability Q(m) x^m / U, Q(m) the number of solutions of Z_1 + 2 Z_2 = m
+ *     (m/2 + 1, or 1 when k = 1), U = max over real m of (m/2 + 1) x^m, and the solution then
+ *     taken uniformly;
+ *  4. accepted when lo + (number of parts of ν) <= hi.
+ * A pair (k, ν) is thus proposed and accepted with probability
+ *   x^(lo k) / prod (1 - x^i) * prod (1 - x^i) x^(i Z_i) * x^m / U / W = x^n / (U W),
+ * W the sum of the weights of step 1: the same for every member, so the accepted λ is exactly
+ * uniform, whatever the tilt (it only sets the speed; t is solved for ν at k = K). The
+ * acceptance rate is P(lo k + |ν| = n) / ((1 - x)(1 - x^2) U) times the chance of step 4 (local
+ * limit estimate below): of order K^(-1/2), with proposals of about K geometric draws, as
+ * "bounded-boltzmann/1+conjugate" for lo = 1. Weights below 2^-1074 of the largest underflow to 0;
+ * those k hold a share of the family below ~1e-300 / (acceptance rate).
+ *
+ * Method id "conjugate-mixture/1".
+ */
+export class ConjugateMixture implements PartitionSampler {
+  readonly method = 'conjugate-mixture/1';
+  readonly expectedLength: number;
+  readonly expectedDistinct: number;
+  readonly expectedWork: number;
+  readonly expectedProposals: number;
+  readonly proposalCost: number;
+  /** Steps of the setup (weights and moments, O(K)). */
+  readonly setupWork: number;
+  /** ln x. */
+  readonly t: number;
+  /** Largest number of parts (min(K, n / lo)). */
+  readonly top: number;
+  private readonly cumulative: Float64Array;
+  private readonly logBound: number;
+  private readonly pair = new PairSolutions(1, 2);
+  private readonly denseEnd: number;
+  private readonly z: Float64Array;
+
+  constructor(
+    readonly n: number,
+    readonly lo: number,
+    readonly hi: number,
+    K: number,
+    tilt?: number,
+  ) {
+    if (!(Number.isInteger(n) && n >= 1 && Number.isInteger(lo) && lo >= 1 && K >= 1)) throw new RangeError('conjugate mixture needs n >= 1, lo >= 1, K >= 1');
+    const top = Math.min(K, Math.floor(n / lo));
+    if (top < 1) throw new RangeError(`no partition of ${n} into at most ${K} parts >= ${lo}`);
+    this.top = top;
+    const target = Math.max(n - lo * top, top);
+    const t = tilt ?? (top >= 2 ? solveTilt({ kind: 'interval', lo: 1, hi: top }, target, false) : -1 / Math.max(1, target));
+    this.t = t;
+    // max over m >= 0 of (m / 2 + 1) e^(t m): at m* = -1/t - 2 when positive (multiset-boltzmann.ts).
+    const peak = -1 / t - 2;
+    this.logBound = peak > 0 ? Math.log(-1 / (t * 2)) + t * peak : 0;
+    this.denseEnd = Math.floor(Math.log(4) / -t);
+    // Step 1's log-weights, and per k the mean and variance of lo k + |ν| (all Z_i geometric) and
+    // of ν's number of parts, for the estimates.
+    const logWeights = new Float64Array(top);
+    let logW = 0;
+    let sizeMean = 0;
+    let sizeVar = 0;
+    let partsMean = 0;
+    let partsVar = 0;
+    const means = new Float64Array(top);
+    const vars = new Float64Array(top);
+    const pMeans = new Float64Array(top);
+    const pVars = new Float64Array(top);
+    for (let k = 1; k <= top; k++) {
+      const xi = Math.exp(t * k);
+      const g = xi / -Math.expm1(t * k); // E Z_k
+      sizeMean += k * g;
+      sizeVar += k * k * g * (1 + g);
+      partsMean += g;
+      partsVar += g * (1 + g);
+      logW += lo * t - (k >= 3 ? Math.log1p(-xi) : 0);
+      logWeights[k - 1] = logW;
+      means[k - 1] = lo * k + sizeMean;
+      vars[k - 1] = sizeVar;
+      pMeans[k - 1] = partsMean;
+      pVars[k - 1] = partsVar;
+    }
+    let heaviest = -Infinity;
+    for (const w of logWeights) heaviest = Math.max(heaviest, w);
+    this.cumulative = new Float64Array(top);
+    let total = 0;
+    let hit = 0;
+    let length = 0;
+    for (let i = 0; i < top; i++) {
+      const weight = Math.exp(logWeights[i] - heaviest);
+      total += weight;
+      this.cumulative[i] = total;
+      // Local limit: P(lo k + |ν| = n) ~ normal density; step 4 by the normal law of ν's parts.
+      const sd = Math.sqrt(vars[i]);
+      const zn = (n - means[i]) / sd;
+      const density = sd > 0 ? Math.exp((-zn * zn) / 2) / (Math.sqrt(2 * Math.PI) * sd) : 1;
+      const slack = hi - lo + 0.5 - pMeans[i];
+      const fits = hi >= n ? 1 : normalCdf(slack / Math.sqrt(Math.max(pVars[i], 1e-300)));
+      hit += weight * density * fits;
+      length += weight * density * fits * (i + 1);
+    }
+    const normaliser = Math.log(-Math.expm1(t)) + Math.log(-Math.expm1(2 * t)) + this.logBound;
+    const rate = hit / total / Math.exp(normaliser);
+    this.expectedProposals = Math.max(1, 1 / Math.min(1, rate));
+    const dense = Math.min(top, this.denseEnd);
+    const tail = top > this.denseEnd ? Math.min(top - this.denseEnd, (2 * Math.exp(t * (this.denseEnd + 1))) / -Math.expm1(t)) : 0;
+    this.proposalCost = dense + tail + Math.log2(top + 1) + 3;
+    this.expectedLength = hit > 0 ? length / hit : top;
+    // Distinct part sizes of λ: corners of the diagram, those of ν (sizes with Z_i >= 1) at most.
+    let corners = 0;
+    for (let k = 1; k <= Math.min(top, 5000); k++) corners += Math.exp(t * k);
+    if (top > 5000) corners += (Math.exp(t * 5000) - Math.exp(t * top)) / -t;
+    this.expectedDistinct = Math.max(1, Math.min(this.expectedLength, corners + 1));
+    this.expectedWork = this.expectedProposals * this.proposalCost + this.expectedLength / 8 + this.expectedDistinct;
+    this.setupWork = 12 * top; // per number of parts: the tilt's Newton sums and the weights
+    this.z = new Float64Array(top + 1);
+  }
+
+  sample(source: RandomSource): Partition {
+    for (;;) {
+      const p = this.propose(source);
+      if (p !== null) return p;
+    }
+  }
+
+  /** One proposal: the partition, or null when rejected. */
+  propose(source: RandomSource): Partition | null {
+    const { n, lo, hi, t, z, cumulative } = this;
+    const last = cumulative.length - 1;
+    const u = source.nextDouble() * cumulative[last];
+    let a = 0;
+    let b = last;
+    while (a < b) {
+      const mid = (a + b) >> 1;
+      if (cumulative[mid] <= u) a = mid + 1;
+      else b = mid;
+    }
+    const k = a + 1;
+    const room = n - lo * k;
+    let total = 0;
+    z.fill(0, 0, k + 1);
+    // Z_i = floor(ln U / (i t)) has P(Z_i >= j) = x^(ij); sizes with x^i < 1/4 by thinning.
+    const denseTop = Math.min(k, this.denseEnd);
+    for (let i = 3; i <= denseTop; i++) {
+      const v = Math.floor(Math.log(nextOpenDouble(source)) / (i * t));
+      z[i] = v;
+      total += i * v;
+    }
+    if (total > room) return null;
+    if (k > denseTop) {
+      const alive = visitThinned(
+        source,
+        Math.max(denseTop + 1, 3),
+        k,
+        (i) => Math.exp(t * i),
+        (i) => {
+          const v = 1 + Math.floor(Math.log(nextOpenDouble(source)) / (i * t));
+          z[i] = v;
+          total += i * v;
+          return total <= room;
+        },
+      );
+      if (!alive) return null;
+    }
+    const m = room - total;
+    if (m < 0) return null;
+    if (k === 1) {
+      if (!(source.nextDouble() < Math.exp(t * m - this.logBound))) return null;
+      z[1] = m;
+    } else {
+      const solutions = this.pair.count(m);
+      if (!(source.nextDouble() < Math.exp(Math.log(solutions) + t * m - this.logBound))) return null;
+      const j = this.pair.nth(m, solutions === 1 ? 0 : nextBelow(source, solutions));
+      z[2] = j;
+      z[1] = m - 2 * j;
+    }
+    // λ_j = lo + sum_(i >= j) Z_i (conjugate of (k^lo) ∪ ν), non-increasing in j.
+    let parts = 0;
+    for (let i = 1; i <= k; i++) parts += z[i];
+    if (lo + parts > hi) return null;
+    const sizes: number[] = [];
+    const multiplicities: number[] = [];
+    let value = lo + parts;
+    for (let j = 1; j <= k; j++) {
+      const last = sizes.length - 1;
+      if (last >= 0 && sizes[last] === value) multiplicities[last]++;
+      else {
+        sizes.push(value);
+        multiplicities.push(1);
+      }
+      value -= z[j];
+    }
+    return { sizes, multiplicities };
+  }
+}
