@@ -142,7 +142,7 @@ function ratioRow(label: string, core: number[], library: number[]): void {
   console.log(`| ${label} | ${c.toFixed(0)} | ${l.toFixed(0)} | ${(l / c).toFixed(2)} |`);
 }
 
-function importTimes(): void {
+export function importTimes(): void {
   const coreEntry = join(ROOT, 'scripts/bench/import/core.ts');
   const libraryEntry = join(ROOT, 'src/index.ts');
   console.log(`\nImport time, ms (fresh processes, alternating, median of ${ROUNDS}); library / core is the target ratio (<= 2)\n`);

@@ -110,7 +110,7 @@ async function warmClient(): Promise<void> {
 /** Fresh servers per n: a first request is one measurement, so it is taken on several servers. */
 const FRESH_SERVERS = 3;
 
-async function coldOverWarm(): Promise<void> {
+export async function coldOverWarm(): Promise<void> {
   await warmClient();
   for (const n of [1e3, 1e6, 1e9]) {
     const firsts: number[] = [];
