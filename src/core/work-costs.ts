@@ -67,6 +67,8 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   // Per random draw (block counts, internal sums, placed positions): 41-70 ns of CPU, median ~46,
   // n = 1e5-1e9 with maxPart = 2 sqrt(n) and length or maxLength sqrt(n) (loaded 2-core machine).
   'box-rotation/1': 50,
+  // In box-rotation draws (box-subset's steps converted, narrow-range-mixture.ts).
+  'narrow-range-mixture/1': 50,
   'allowed-length-boltzmann/1': 70,
   'allowed-subset/1': 30,
   // Compositions (src/core/compositions).
@@ -134,6 +136,7 @@ export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
   'bounded-self-similar/1': 1.4,
   'distinct-bounded-self-similar/1': 30,
   'box-mixture/1': 60,
+  'narrow-range-mixture/1': 60,
   'distinct-self-similar/1': 48,
 };
 
