@@ -5,6 +5,7 @@ import { BoundedSelfSimilarSampler } from '../bounded-self-similar.js';
 import { DistinctBoundedSelfSimilarSampler } from '../distinct-bounded-self-similar.js';
 import { DistinctSelfSimilarSampler } from '../distinct-self-similar.js';
 import { MinPartSelfSimilarSampler } from '../min-part-self-similar.js';
+import { NarrowRangeMixture } from '../narrow-range-mixture.js';
 import { DistinctBoltzmann } from './distinct-boltzmann.js';
 import { isFeasible } from './feasibility.js';
 import { MultisetBoltzmann } from './multiset-boltzmann.js';
@@ -252,6 +253,12 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       // exceeds n), its upper levels' counts main-arc integrals over tables left unfilled.
       const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), Math.min(sizes.hi, n));
       prepared(sampler, sampler.fitsLimits());
+    }
+    if (!distinct && sizes.kind === 'interval' && NarrowRangeMixture.applies(n, sizes.lo, sizes.hi)) {
+      // Parts in a narrow range of large sizes (few numbers of parts): the union over k of boxes,
+      // box-rotation near half full and box-subset elsewhere (narrow-range-mixture.ts).
+      const sampler = NarrowRangeMixture.within(n, sizes.lo, sizes.hi, TABLE_CELL_LIMIT);
+      if (sampler !== null) prepared(sampler, true);
     }
   }
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
