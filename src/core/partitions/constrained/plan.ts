@@ -44,8 +44,10 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   most ~3 s per sample): Boltzmann methods whose expected proposals x proposal cost exceed it
  *   are refused. Measured consequences (planner estimates): plain distinct parts up to n = 1e9
  *   (distinct-self-similar: 1.3e5 steps, ~8 ms per sample at 1e9); distinct parts >= a alone
- *   (2 <= a <= 200) up to n = 1e9 (distinct-bounded-self-similar: 0.26 ms per sample at 1e6, 6 ms
- *   at 1e9 for a = 7, bench shapes); distinct parts with a maxPart (distinct-boltzmann) up to
+ *   (2 <= a <= 200, and 200 < a <= 5000 where n >= a²/4) up to n = 1e9 (distinct-bounded-self-similar:
+ *   0.26 ms per sample at 1e6, 6 ms at 1e9 for a = 7; 14-28 ms at 1e8-1e9 for a = 500, 22-62 ms for
+ *   a = √n/8 at load ~3, bench shapes; fewer parts keep table-lengths or distinct-boltzmann, and
+ *   a > 5000 at large n is refused); distinct parts with a maxPart (distinct-boltzmann) up to
  *   n ~ 4e7 (1.6e6 steps, 70 ms per sample at n = 1e7), or distinct-bounded-self-similar where
  *   its counts serve every level (also maxPart near the middle of its range, 1.5-3 sqrt(n), by the
  *   middle-regime counts: 2.4 ms at 1e8 and 9 ms at 1e9 for 2 sqrt(n), 8-24 ms for 1.5 and
