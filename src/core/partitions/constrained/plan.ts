@@ -78,6 +78,15 @@ export const NOMINAL_SAMPLES = 100;
  */
 const BOLTZMANN_CONSIDERED_ABOVE_NS = 5e6;
 
+/**
+ * The union of boxes (implicitLengthCandidates) is also built when every method above is
+ * estimated above this (10 ms per sample for NOMINAL_SAMPLES; its setup stays below ~120 ms,
+ * plan-length.ts): bounded-boltzmann over a narrow range of large sizes wastes most proposals (its
+ * two smallest sizes represent few residuals), e.g. parts in [10000, 10029] at n = 1e7: 265 ms
+ * per sample against 1.6 ms for box-mixture (scripts/scan-families.ts).
+ */
+const IMPLICIT_LENGTH_CONSIDERED_ABOVE_NS = 1e9;
+
 export interface PlanOptions {
   /**
    * Force a method by id without versions, e.g. "distinct-boltzmann" or "box-subset"; composite
@@ -255,8 +264,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
     out.push(...lengthCandidates({ spec, shape, feasible, fits, withoutLength: () => cheapestWithoutLength(family) }));
-  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits))) {
-    // Few parts fit (large minPart, or distinct parts) and no method above fits: the family is the
+  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits && planCostNs(c) <= IMPLICIT_LENGTH_CONSIDERED_ABOVE_NS))) {
+    // Few parts fit (large minPart, or distinct parts) and no method above fits, or none cheaply: the family is the
     // union over k <= mostParts of boxes, which the length branch samples too (plan-length.ts).
     out.push(...implicitLengthCandidates({ spec, shape, feasible, fits, withoutLength: () => null }));
   }
