@@ -54,7 +54,11 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
  *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
- *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   "exactly" k ~ √n/4 parts from n ~ 1e7; bounded-boltzmann's sample time grows like r^1.5 over r
+ *   sizes, and over a narrow range of large sizes most proposals are wasted: where it is
+ *   estimated above 10 ms per sample and few parts fit, box-mixture is built too, e.g. parts in
+ *   [n/1000, n/1000 + 29]: 0.3-0.4 ms per sample at 1e7 instead of ~600 ms, bench shapes short:);
+ *   parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481), larger a
  *   by bounded-self-similar with b = n (its upper levels' tables stay unfilled; 6-20 ms CPU per
  *   sample for a = 524-41,380 at 6e7-1e9, scripts/scan-families.ts); allowed
