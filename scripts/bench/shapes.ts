@@ -61,6 +61,7 @@ export const SHAPES: Array<[string, Shape]> = [
   ['short:length=10', () => ({ length: 10 })],
   ['short:minPart=52,length=2', () => ({ minPart: 52, length: 2 })],
   ['short:minPart=n/1000,maxPart=n/1000+29', (n) => ({ minPart: Math.ceil(n / 1000), maxPart: Math.ceil(n / 1000) + 29 })],
+  ['short:minPart=128,maxPart=2305', () => ({ minPart: 128, maxPart: 2305 })],
 ];
 
 /** The requests of issue 13's table (each must cost at most 50 ms per sample). */
