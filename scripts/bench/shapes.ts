@@ -60,6 +60,12 @@ export const SHAPES: Array<[string, Shape]> = [
   ['maxPart=20,allowed=coins', () => ({ maxPart: 20, allowed: COINS })],
   ['length=n/20,allowed=coins', (n) => ({ length: Math.ceil(n / 20), allowed: COINS })],
   ['maxLength=n/30,allowed=coins', (n) => ({ maxLength: Math.ceil(n / 30), allowed: COINS })],
+  // Shapes of scripts/scan-families.ts whose planning or sampling was slow (bounded-boltzmann).
+  ['short:maxPart=6', () => ({ maxPart: 6 })],
+  ['short:length=10', () => ({ length: 10 })],
+  ['short:minPart=52,length=2', () => ({ minPart: 52, length: 2 })],
+  ['short:minPart=n/1000,maxPart=n/1000+29', (n) => ({ minPart: Math.ceil(n / 1000), maxPart: Math.ceil(n / 1000) + 29 })],
+  ['short:minPart=128,maxPart=2305', () => ({ minPart: 128, maxPart: 2305 })],
 ];
 
 /** The requests of issue 13's table (each must cost at most 50 ms per sample). */

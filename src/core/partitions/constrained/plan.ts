@@ -57,7 +57,11 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   (parts in [a, b] with b < n, minPart allowed; its count tables must fit, so b not far below
  *   √n: ~1-2e5 steps, 3-8 ms per sample at 1e9, `npm run bench -- costs`), the faster
  *   estimate chosen (bounded-self-similar from n ~ 1e6 on for b ~ √n, and for "at most" or
- *   "exactly" k ~ √n/4 parts from n ~ 1e7); parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
+ *   "exactly" k ~ √n/4 parts from n ~ 1e7; bounded-boltzmann's sample time grows like r^1.5 over r
+ *   sizes, and over a narrow range of large sizes most proposals are wasted: where it is
+ *   estimated above 10 ms per sample and few parts fit, box-mixture is built too, e.g. parts in
+ *   [n/1000, n/1000 + 29]: 0.3-0.4 ms per sample at 1e7 instead of ~600 ms, bench shapes short:);
+ *   parts >= a alone (2 <= a <= 482) up to n = 1e9 by minpart-self-similar (0.3-12 ms
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481), larger a
  *   by bounded-self-similar with b = n (its upper levels' tables stay unfilled; 6-20 ms CPU per
  *   sample for a = 524-41,380 at 6e7-1e9, scripts/scan-families.ts); allowed
@@ -82,6 +86,15 @@ export const NOMINAL_SAMPLES = 100;
  * is about what building them costs, ~1-2 ms of tilts and candidates measured at n = 1e3-3e3).
  */
 const BOLTZMANN_CONSIDERED_ABOVE_NS = 5e6;
+
+/**
+ * The union of boxes (implicitLengthCandidates) is also built when every method above is
+ * estimated above this (10 ms per sample for NOMINAL_SAMPLES; its setup stays below ~120 ms,
+ * plan-length.ts): bounded-boltzmann over a narrow range of large sizes wastes most proposals (its
+ * two smallest sizes represent few residuals), e.g. parts in [10000, 10029] at n = 1e7: 265 ms
+ * per sample against 1.6 ms for box-mixture (scripts/scan-families.ts).
+ */
+const IMPLICIT_LENGTH_CONSIDERED_ABOVE_NS = 1e9;
 
 export interface PlanOptions {
   /**
@@ -266,8 +279,8 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
   const fits = (setup: number, work: number) => setup <= TABLE_CELL_LIMIT && work <= SAMPLE_WORK_LIMIT;
   if (hasLength) {
     out.push(...lengthCandidates({ spec, shape, feasible, fits, withoutLength: () => cheapestWithoutLength(family) }));
-  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits))) {
-    // Few parts fit (large minPart, or distinct parts) and no method above fits: the family is the
+  } else if (feasible === true && sizes.kind === 'interval' && (distinct || lo > 1) && (includeAll || !out.some((c) => c.fits && planCostNs(c) <= IMPLICIT_LENGTH_CONSIDERED_ABOVE_NS))) {
+    // Few parts fit (large minPart, or distinct parts) and no method above fits, or none cheaply: the family is the
     // union over k <= mostParts of boxes, which the length branch samples too (plan-length.ts).
     out.push(...implicitLengthCandidates({ spec, shape, feasible, fits, withoutLength: () => null }));
   }
