@@ -30,6 +30,9 @@ const spread = (n: number) => {
   return Array.from({ length: 1000 }, (_, i) => 1 + Math.floor(i * d));
 };
 
+/** 10 sizes 2√n + floor(4√n i / 9) + (i mod 3), i = 0..9: all large, gcd 1. */
+const largeSizes = (n: number) => Array.from({ length: 10 }, (_, i) => 2 * root(n) + Math.floor((4 * root(n) * i) / 9) + (i % 3));
+
 /** [name, family] — the constraint values used at each n. */
 export const SHAPES: Array<[string, Shape]> = [
   ['distinct', () => ({ distinct: true })],
@@ -56,6 +59,8 @@ export const SHAPES: Array<[string, Shape]> = [
   ['maxPart=20,allowed=coins', () => ({ maxPart: 20, allowed: COINS })],
   ['length=n/20,allowed=coins', (n) => ({ length: Math.ceil(n / 20), allowed: COINS })],
   ['maxLength=n/30,allowed=coins', (n) => ({ maxLength: Math.ceil(n / 30), allowed: COINS })],
+  // Large sizes only (minPart cuts the list): below Schur's bound, decided by the residue table (feasibility.ts).
+  ['minPart=3sqrt(n),allowed=10 sizes in [2,6]sqrt(n)', (n) => ({ minPart: 3 * root(n), allowed: largeSizes(n) })],
 ];
 
 /** The requests of issue 13's table (each must cost at most 50 ms per sample). */
