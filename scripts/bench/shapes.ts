@@ -30,6 +30,9 @@ const spread = (n: number) => {
   return Array.from({ length: 1000 }, (_, i) => 1 + Math.floor(i * d));
 };
 
+/** 10 sizes 2√n + floor(4√n i / 9) + (i mod 3), i = 0..9: all large, gcd 1. */
+const largeSizes = (n: number) => Array.from({ length: 10 }, (_, i) => 2 * root(n) + Math.floor((4 * root(n) * i) / 9) + (i % 3));
+
 /** [name, family] — the constraint values used at each n. */
 export const SHAPES: Array<[string, Shape]> = [
   ['distinct', () => ({ distinct: true })],
@@ -66,6 +69,8 @@ export const SHAPES: Array<[string, Shape]> = [
   ['short:minPart=52,length=2', () => ({ minPart: 52, length: 2 })],
   ['short:minPart=n/1000,maxPart=n/1000+29', (n) => ({ minPart: Math.ceil(n / 1000), maxPart: Math.ceil(n / 1000) + 29 })],
   ['short:minPart=128,maxPart=2305', () => ({ minPart: 128, maxPart: 2305 })],
+  // Large sizes only (minPart cuts the list): below Schur's bound, decided by the residue table (feasibility.ts).
+  ['minPart=3sqrt(n),allowed=10 sizes in [2,6]sqrt(n)', (n) => ({ minPart: 3 * root(n), allowed: largeSizes(n) })],
 ];
 
 /** The requests of issue 13's table (each must cost at most 50 ms per sample). */

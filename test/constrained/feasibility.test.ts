@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isFeasible, smallestInResidue } from '../../src/core/partitions/constrained/feasibility.js';
+import { listLengthFeasible } from '../../src/core/partitions/constrained/length-feasibility.js';
 import { toSpec } from '../../src/core/partitions/constrained/spec.js';
 import { nextBelow } from '../../src/core/random.js';
 import { sampleSource } from '../../src/core/seeding.js';
@@ -48,5 +49,27 @@ describe('any multiplicities from a list: which n are sums (round-robin residue 
     expect(isFeasible(toSpec({ kind: 'partition', n: 998_999, allowed: [1000, 1001] }))).toBe(false);
     expect(isFeasible(toSpec({ kind: 'partition', n: 999_000, allowed: [1000, 1001] }))).toBe(true);
     expect(isFeasible(toSpec({ kind: 'partition', n: 998_998, allowed: [1000, 1001] }))).toBe(true);
+  });
+});
+
+describe('any multiplicities from a list with a length constraint (round-robin residue paths)', () => {
+  it('agrees with the table of fewest parts (length-feasibility.ts) on 300 random lists (fixed seed)', () => {
+    const source = sampleSource('feasibility', 1, 'length');
+    for (let trial = 0; trial < 300; trial++) {
+      const count = 2 + nextBelow(source, 5);
+      const set = new Set<number>();
+      while (set.size < count) set.add(1 + nextBelow(source, 40));
+      const sizes = [...set].sort((a, b) => a - b);
+      const n = 1 + nextBelow(source, 600);
+      const parts = 1 + nextBelow(source, 40);
+      for (const exactly of [true, false]) {
+        const spec = toSpec({ kind: 'partition', n, allowed: sizes, ...(exactly ? { length: parts } : { maxLength: parts }) });
+        if (spec.sizes.kind !== 'list') continue;
+        const values = spec.sizes.values;
+        const byTable = listLengthFeasible(values, n, exactly ? parts : 1, parts, false);
+        expect(byTable).not.toBeUndefined();
+        expect(isFeasible(spec), `${sizes.join(',')} n = ${n}, ${exactly ? 'exactly' : 'at most'} ${parts}`).toBe(byTable);
+      }
+    }
   });
 });

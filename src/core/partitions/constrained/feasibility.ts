@@ -8,6 +8,9 @@ import { gcd, sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './s
  * Returns undefined when deciding would cost more than `workLimit` steps (the caller then uses
  * a counting table, which decides emptiness by itself).
  */
+/** Work bound (|D| d steps) for the round-robin residue paths tried before length-feasibility.ts. */
+const ROUND_ROBIN_LIMIT = 4e6;
+
 export function isFeasible(spec: ConstrainedSpec, workLimit = 1e8): boolean | undefined {
   const { n, sizes, distinct } = spec;
   if (n === 0) return spec.length === undefined || spec.length === 0;
@@ -17,7 +20,13 @@ export function isFeasible(spec: ConstrainedSpec, workLimit = 1e8): boolean | un
   if (spec.length !== undefined) kMin = spec.length;
   if (kMin > kMax || kMax === 0) return false;
   if (sizes.kind === 'interval') return intervalFeasible(n, sizes.lo, sizes.hi, distinct, kMin, kMax);
-  if (spec.length !== undefined || spec.maxLength !== undefined) return listLengthFeasible(sizes.values, n, kMin, kMax, distinct);
+  if (spec.length !== undefined || spec.maxLength !== undefined) {
+    // Any multiplicities: the residue shortest paths by round robin first (|D| d steps, d the
+    // largest size), the slower general decision (length-feasibility.ts: a table of fewest parts
+    // in |D| n steps, or Dijkstra) only when they leave it undecided or d is too large.
+    const quick = distinct ? undefined : lengthByRoundRobin(sizes.values, n, kMin, kMax);
+    return quick ?? listLengthFeasible(sizes.values, n, kMin, kMax, distinct);
+  }
   return distinct ? subsetSumFeasible(sizes.values, n) : listFeasible(sizes.values, n, workLimit);
 }
 
@@ -94,4 +103,65 @@ export function smallestInResidue(sizes: readonly number[]): Float64Array {
 /** Distinct parts from a list: subset-sum reachability (subset-sum-reach.ts; undefined beyond its work bound). */
 function subsetSumFeasible(values: readonly number[], n: number): boolean | undefined {
   return subsetSumReachable(values, n);
+}
+
+/**
+ * Exactly k parts (kMin = kMax) or at most kMax parts (kMin <= 1) from a list, any
+ * multiplicities, or undefined. The reduction of length-feasibility.ts: exactly k parts <=> N =
+ * n - k s_1 is a sum of at most c = k elements of D = {s - s_1 : s > s_1}; at most K parts <=> N = n
+ * is a sum of at most c = K elements of D = S. With d = max D, a sum of C elements with value V
+ * from the elements below d, topped up with d's, reaches N iff V <= N and V = N (mod d), using
+ * C_V + (N - V) / d elements, i.e. iff d C_V - V <= c d - N: each element e < d costs d - e >= 0.
+ * The least cost per residue mod d, and the smallest V with it, by the round-robin pass of
+ * smallestInResidue with the lexicographic weight (d - e, e) (the pass is exact for any positive
+ * weight per element: a shortest path never wraps a whole cycle). Then: least cost > c d - N:
+ * no member; its smallest V <= N: a member; otherwise undecided.
+ */
+function lengthByRoundRobin(values: readonly number[], n: number, kMin: number, kMax: number): boolean | undefined {
+  let D: number[];
+  let N: number;
+  let c: number;
+  if (kMin === kMax) {
+    D = values.slice(1).map((s) => s - values[0]);
+    N = n - kMin * values[0];
+    c = kMin;
+    if (N < 0) return false;
+  } else if (kMin <= 1) {
+    D = values.slice();
+    N = n;
+    c = kMax;
+  } else return undefined;
+  if (N === 0) return true;
+  if (D.length === 0 || c === 0) return false;
+  const d = D[D.length - 1];
+  if (N > c * d) return false;
+  if (D.length * d > ROUND_ROBIN_LIMIT) return undefined;
+  const cost = new Float64Array(d).fill(Infinity);
+  const value = new Float64Array(d).fill(Infinity);
+  cost[0] = 0;
+  value[0] = 0;
+  const less = (c1: number, v1: number, p: number) => c1 < cost[p] || (c1 === cost[p] && v1 < value[p]);
+  for (const e of D) {
+    if (e === d) continue;
+    const cycles = gcd(d, e);
+    const cycleLength = d / cycles;
+    for (let p = 0; p < cycles; p++) {
+      let start = p;
+      for (let q = p, i = 0; i < cycleLength; i++, q = (q + e) % d) if (less(cost[q], value[q], start)) start = q;
+      if (cost[start] === Infinity) continue;
+      for (let q = start, i = 0; i < cycleLength; i++) {
+        const next = (q + e) % d;
+        const nc = cost[q] + (d - e);
+        const nv = value[q] + e;
+        if (less(nc, nv, next)) {
+          cost[next] = nc;
+          value[next] = nv;
+        }
+        q = next;
+      }
+    }
+  }
+  const rho = N % d;
+  if (cost[rho] === Infinity || cost[rho] > c * d - N) return false;
+  return value[rho] <= N ? true : undefined;
 }

@@ -65,7 +65,8 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   per sample at 1e6-1e9 for a = 2, 7, 100; 19 ms at n = 95,488,108 with a = 481), larger a
  *   by bounded-self-similar with b = n (its upper levels' tables stay unfilled; 6-20 ms CPU per
  *   sample for a = 524-41,380 at 6e7-1e9, scripts/scan-families.ts); allowed
- *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms); distinct parts from lists of up to 1000
+ *   lists such as {1, 2, 5, 10, 20, 50} up to n = 1e9 (0.1 ms), also lists of large sizes (emptiness by
+ *   the residue table of the smallest size, feasibility.ts); distinct parts from lists of up to 1000
  *   sizes wherever subset-sum-reach.ts decides that n is reached (distinct-boltzmann, 0.2-9 ms per
  *   sample at 1e4-1e8, `npx tsx scripts/bench/shapes.ts distinct-allowed`). Families with `length` or
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
