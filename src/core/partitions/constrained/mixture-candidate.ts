@@ -12,11 +12,11 @@ import { partsHint, SAMPLE_WORK_CEILING, samplerCandidate, type LengthPlanInput 
  */
 const MIXTURE_SETUP_LIMIT = 2e6;
 /**
- * ... and while another method of the family fits (conjugate-mixture): half of it, so that
- * planning both stays within ~200 ms (bench shapes, minPart=7 with maxLength 0.25-0.75 sqrt(n):
+ * ... and while another method of the family fits (conjugate-mixture): a quarter of it, so that
+ * planning both stays within ~100 ms once compiled (bench shapes, minPart=7 with maxLength 0.25-0.75 sqrt(n):
  * conjugate-mixture was the faster of the two at every n = 1e4-1e9).
  */
-export const MIXTURE_SETUP_LIMIT_WITH_RIVAL = MIXTURE_SETUP_LIMIT / 2;
+export const MIXTURE_SETUP_LIMIT_WITH_RIVAL = MIXTURE_SETUP_LIMIT / 4;
 
 /** The boxes of "at most K parts in [lo, hi]" (distinct or not), one per feasible number of parts k. */
 export function mixtureEntries(n: number, lo: number, hi: number, distinct: boolean, K: number): MixtureEntry[] {
