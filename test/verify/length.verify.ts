@@ -135,10 +135,11 @@ describe('box-mixture: law of the number of parts', () => {
     const total = countPartitions(family);
     const exact = new Map<number, number>();
     for (let k = 1; k <= 100; k++) exact.set(k, ratio(countPartitions({ kind: 'partition', n: 8000, minPart: 5, length: k }), total));
-    // The planner picks table-lengths here (estimated faster in time); box-mixture is forced,
-    // and the planner's own choice gets the same exact law.
-    run(family, 'box-mixture', lengthOf, exact, 'mixture-minpart', 'table-lengths');
-    run(family, 'table-lengths', lengthOf, exact, 'tables-minpart');
+    // The planner picks conjugate-mixture here (its O(K) setup against the table's 8e5 cells);
+    // box-mixture and table-lengths are forced, and all three get the same exact law.
+    run(family, 'box-mixture', lengthOf, exact, 'mixture-minpart', 'conjugate-mixture');
+    run(family, 'table-lengths', lengthOf, exact, 'tables-minpart', 'conjugate-mixture');
+    run(family, 'conjugate-mixture', lengthOf, exact, 'conjugate-minpart', 'conjugate-mixture');
   });
 
   /** Share of the bounded boxes that keep the previous box's tilt. */

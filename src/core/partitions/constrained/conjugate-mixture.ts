@@ -53,6 +53,9 @@ export class ConjugateMixture implements PartitionSampler {
   private readonly pair = new PairSolutions(1, 2);
   private readonly denseEnd: number;
   private readonly z: Float64Array;
+  /** x^i and 1 / (i t) for the dense sizes. */
+  private readonly q: Float64Array;
+  private readonly inverse: Float64Array;
 
   constructor(
     readonly n: number,
@@ -132,6 +135,12 @@ export class ConjugateMixture implements PartitionSampler {
     this.expectedWork = this.expectedProposals * this.proposalCost + this.expectedLength / 8 + this.expectedDistinct;
     this.setupWork = 12 * top; // per number of parts: the tilt's Newton sums and the weights
     this.z = new Float64Array(top + 1);
+    this.q = new Float64Array(Math.min(top, this.denseEnd) + 1);
+    this.inverse = new Float64Array(this.q.length);
+    for (let i = 1; i < this.q.length; i++) {
+      this.q[i] = Math.exp(t * i);
+      this.inverse[i] = 1 / (i * t);
+    }
   }
 
   sample(source: RandomSource): Partition {
@@ -159,8 +168,13 @@ export class ConjugateMixture implements PartitionSampler {
     z.fill(0, 0, k + 1);
     // Z_i = floor(ln U / (i t)) has P(Z_i >= j) = x^(ij); sizes with x^i < 1/4 by thinning.
     const denseTop = Math.min(k, this.denseEnd);
+    // Z_i = 0 exactly when U > x^i: the logarithm only for the others (x^i tabulated).
+    const q = this.q;
+    const inverse = this.inverse;
     for (let i = 3; i <= denseTop; i++) {
-      const v = Math.floor(Math.log(nextOpenDouble(source)) / (i * t));
+      const u = nextOpenDouble(source);
+      if (u > q[i]) continue;
+      const v = Math.floor(Math.log(u) * inverse[i]);
       z[i] = v;
       total += i * v;
     }

@@ -11,6 +11,12 @@ import { partsHint, SAMPLE_WORK_CEILING, samplerCandidate, type LengthPlanInput 
  * at most 2948 parts).
  */
 const MIXTURE_SETUP_LIMIT = 2e6;
+/**
+ * ... and while another method of the family fits (conjugate-mixture): a quarter of it, so that
+ * planning both stays within ~100 ms once compiled (bench shapes, minPart=7 with maxLength 0.25-0.75 sqrt(n):
+ * conjugate-mixture was the faster of the two at every n = 1e4-1e9).
+ */
+export const MIXTURE_SETUP_LIMIT_WITH_RIVAL = MIXTURE_SETUP_LIMIT / 4;
 
 /** The boxes of "at most K parts in [lo, hi]" (distinct or not), one per feasible number of parts k. */
 export function mixtureEntries(n: number, lo: number, hi: number, distinct: boolean, K: number): MixtureEntry[] {
@@ -39,7 +45,7 @@ export function mixtureSampler(n: number, lo: number, hi: number, distinct: bool
  * building: construction stops at MIXTURE_SETUP_LIMIT and the refusal names the number of parts
  * reached. Work per sample grows like K^1.5 (box-subset per k).
  */
-export function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: number): PlanCandidate | null {
+export function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number, K: number, setupLimit = MIXTURE_SETUP_LIMIT): PlanCandidate | null {
   const { n, distinct } = input.spec;
   const entries = mixtureEntries(n, lo, hi, distinct, K);
   if (entries.length === 0) return null;
@@ -55,10 +61,10 @@ export function mixtureCandidate(input: LengthPlanInput, lo: number, hi: number,
     },
     hint: partsHint(parts),
   });
-  if (least > MIXTURE_SETUP_LIMIT) return over(least, (K * MIXTURE_SETUP_LIMIT) / least);
+  if (least > setupLimit) return over(least, (K * setupLimit) / least);
   let mixture: BoxMixture;
   try {
-    mixture = mixtureSampler(n, lo, hi, distinct, K, { setupLimit: MIXTURE_SETUP_LIMIT });
+    mixture = mixtureSampler(n, lo, hi, distinct, K, { setupLimit });
   } catch (error) {
     if (error instanceof MixtureSetupExceeded) return over(error.setupWork, error.parts - 1);
     throw error;

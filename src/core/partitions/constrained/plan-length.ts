@@ -5,7 +5,7 @@ import { distinctBound, exactBox, shiftMap, staircaseMap } from './box-maps.js';
 import type { LengthPlanInput } from './length-candidate.js';
 import { FILTER_MIN_ACCEPTANCE, FILTER_SLACK_ACCEPTANCE, filterCandidate } from './length-filter-candidate.js';
 import { listLengthCandidates } from './list-length-candidates.js';
-import { mixtureCandidate } from './mixture-candidate.js';
+import { MIXTURE_SETUP_LIMIT_WITH_RIVAL, mixtureCandidate } from './mixture-candidate.js';
 import { conjugateMixtureCandidate, openAtMostCandidates, openExactCandidates } from './open-length-candidates.js';
 import type { PlanCandidate } from './plan.js';
 import { sizeCount, type ConstrainedSpec } from './spec.js';
@@ -71,10 +71,10 @@ export function lengthCandidates(input: LengthPlanInput): PlanCandidate[] {
         // At most K parts <-> parts <= K, by conjugation (Andrews 1976, §1.3).
         if (hi >= n) out.push(...openAtMostCandidates(input, n, K));
       } else {
-        const mixture = mixtureCandidate(input, lo, hi, K);
-        if (mixture !== null) out.push(mixture);
         // At most K parts >= lo (lo >= 2): the conjugate has lo equal largest parts (one tilt over k).
         const conjugated = distinct ? null : conjugateMixtureCandidate(input, lo, hi, K);
+        const mixture = mixtureCandidate(input, lo, hi, K, conjugated?.fits === true ? MIXTURE_SETUP_LIMIT_WITH_RIVAL : undefined);
+        if (mixture !== null) out.push(mixture);
         if (conjugated !== null) out.push(conjugated);
       }
     }
