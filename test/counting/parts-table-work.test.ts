@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { partsTableWork } from '../../src/core/counting/parts-table-work.js';
 
-/** The loop the closed form replaces (log-bounded-part-count.ts, partsWork). */
+/** The loop the closed form replaces (bounded-count-tables.ts, partsWork, before). */
 function loopWork(a: number, b: number, end: number): number {
   let work = 0;
   for (let j = 1; j * a <= end; j++) work += Math.min(j * b, end) - j * a + 1;

@@ -1,3 +1,4 @@
+import { partsTableWork } from './parts-table-work.js';
 /**
  * Count tables for partitions into parts in [a, b] up to a size (log-bounded-part-count.ts fills
  * its table with the cheaper of the two): factor by factor, or by number of parts.
@@ -55,8 +56,7 @@ export function countsByParts(a: number, b: number, end: number): Float64Array {
   return c;
 }
 
+/** The additions of countsByParts, in closed form (parts-table-work.ts). */
 export function partsWork(a: number, b: number, end: number): number {
-  let work = 0;
-  for (let j = 1; j * a <= end; j++) work += Math.min(j * b, end) - j * a + 1;
-  return 2 * work;
+  return partsTableWork(a, b, end);
 }

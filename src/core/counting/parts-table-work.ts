@@ -1,5 +1,5 @@
 /**
- * The additions of countsByParts (log-bounded-part-count.ts) for parts in [a, b] up to size end,
+ * The additions of countsByParts (bounded-count-tables.ts) for parts in [a, b] up to size end,
  * 2 Σ_{j=1}^{J} (min(jb, end) − ja + 1), J = ⌊end/a⌋, in closed form: with j0 = min(J, ⌊end/b⌋),
  * the rows j <= j0 contribute j(b − a) + 1 and the rows j0 < j <= J contribute end + 1 − ja, so
  *   Σ = (b − a) j0(j0 + 1)/2 + j0 + (J − j0)(end + 1) − a (J(J + 1) − j0(j0 + 1))/2.
