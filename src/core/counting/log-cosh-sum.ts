@@ -168,8 +168,18 @@ function powerSums(a: number, b: number, terms: number): Float64Array {
 /** |B_{2n}| for n = 1..6 (DLMF Table 24.2.1). */
 const BERNOULLI = [1 / 6, 1 / 30, 1 / 42, 1 / 30, 5 / 66, 691 / 2730];
 
-/** β(s) = Σ_{j odd} j^{−s} for even s >= 2 (see the class comment). */
+/** β(s) = Σ_{j odd} j^{−s} for even s >= 2 (see the class comment), remembered (~100 powers each; every series asks for the same ~350). */
 export function oddZeta(s: number): number {
+  let value = oddZetas.get(s);
+  if (value === undefined) {
+    value = computeOddZeta(s);
+    oddZetas.set(s, value);
+  }
+  return value;
+}
+const oddZetas = new Map<number, number>();
+
+function computeOddZeta(s: number): number {
   const n = s / 2;
   if (n <= BERNOULLI.length) {
     let factorial = 1;

@@ -124,8 +124,7 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
       } else if (cp >= bp) {
         const counts = tables.bounded.countsFor(bp, cp) as LogDistinctBoundedCounts;
         // The sub-problem's typical size: (size − mean odd part sum at the level's tilt)/2.
-        let oddMean = 0;
-        for (let k = b % 2 === 1 ? b : b + 1; k <= cap && k * tLevel < 40; k += 2) oddMean += k / (Math.exp(k * tLevel) + 1);
+        const oddMean = oddMeanSize(b % 2 === 1 ? b : b + 1, cap, tLevel);
         const typical = Math.max(1, Math.round((size - oddMean) / 2));
         const regime = counts.regime(typical);
         if (regime === 'middle') {
@@ -191,3 +190,28 @@ const COUNT_NODES = 30;
 const STEPS_PER_ADDITION = 0.05;
 /** A tail-series term at a node (complex exp, log, atan2) against one head factor. */
 const TAIL_TERM_STEPS = 3;
+
+/**
+ * Σ k/(e^{kt} + 1) over odd k from `first` (odd) to min(cap, 40/t) (to cap for t <= 0): the first ODD_MEAN_DIRECT
+ * terms one by one, the rest by the midpoint rule over blocks of odd sizes (~ODD_MEAN_BLOCKS of
+ * them, each spanning t·width <= ~0.04: relative error ~1e-4, for an estimate). The plain sum
+ * took ~1e6 exponentials at n = 1e9 (~20 ms of planning).
+ */
+export function oddMeanSize(first: number, cap: number, t: number): number {
+  // t <= 0 (past the middle of a finite range): every size up to cap.
+  const last = t > 0 ? Math.min(cap, Math.floor(40 / t)) : cap;
+  let sum = 0;
+  let k = first;
+  for (let i = 0; i < ODD_MEAN_DIRECT && k <= last; i++, k += 2) sum += k / (Math.exp(k * t) + 1);
+  if (k > last) return sum;
+  const terms = Math.floor((last - k) / 2) + 1;
+  const stride = Math.max(1, Math.ceil(terms / ODD_MEAN_BLOCKS));
+  for (let done = 0; done < terms; done += stride) {
+    const count = Math.min(stride, terms - done);
+    const mid = k + 2 * done + (count - 1);
+    sum += (count * mid) / (Math.exp(mid * t) + 1);
+  }
+  return sum;
+}
+const ODD_MEAN_DIRECT = 2000;
+const ODD_MEAN_BLOCKS = 1000;
