@@ -132,7 +132,7 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
           setup += counts.seriesWork();
         } else if (regime === 'tail') {
           const tailTerms = cp === Infinity ? 0 : Math.min(400, 40 / Math.max(1e-9, (cp + 1) * Math.abs(tables.bounded.saddle(bp, typical, cp))));
-          count = COUNT_NODES * (bp + TAIL_TERM_STEPS * tailTerms);
+          count = COUNT_NODES * (headSteps(bp) + TAIL_TERM_STEPS * tailTerms);
         }
         // The exact table to exactUpTo, from the previous (smaller) range with the same bp.
         const from = seeded.get(bp);
@@ -154,8 +154,15 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
           }
         }
       }
-      work += PROPOSALS * (visits + count) + Math.log2(size) * count;
+      // The maximiser: MAXIMISER_COUNTS counts per sample below the top level (whose size, and
+      // so whose search, is the same every sample: its counts are remembered after the first).
+      work += PROPOSALS * (visits + count) + (size === n ? 0 : MAXIMISER_COUNTS * count);
     }
+    // Few parts (n < a², a > 200; every level has the same n_l/b_l²): the counts sit just above
+    // their tables, where each takes many more nodes, and proposals are more (class comment).
+    // Measured time over this estimate without the factor: ~40-57x at n = a²/4, 5-12x at a²/2,
+    // ~1x at a² (a = 700, 2000, 4918); the factor (a²/n)^2.7 matches those.
+    if (a > 200 && n < a * a) work *= (a * a / Math.max(1, n)) ** FEW_PARTS_EXPONENT;
     this.expectedWork = work;
     this.setupWork = setup * STEPS_PER_ADDITION;
     this.setupCells = cells;
@@ -185,8 +192,20 @@ function boundedVisits(t: number, s: number, cap: number): number {
   const tail = cap <= K ? 0 : (Math.log1p(Math.exp(-K * t)) - (cap === Infinity ? 0 : Math.log1p(Math.exp(-cap * t)))) / (2 * t);
   return direct + 1.5 * tail + 2;
 }
-/** Steps per count above the table: ~30 trapezoid nodes plus Newton, each over b' factors. */
+/** Steps per count above the table: ~30 trapezoid nodes plus Newton, each over the parts below b' (headSteps). */
 const COUNT_NODES = 30;
+/**
+ * Steps per node for the parts below b': one per part, or for b' > 32 their log-cosh power
+ * series (log-distinct-bounded-count.ts), ~10-20 terms at the saddle points met here. Before, b'
+ * per node was counted for every b': at a >= 700 the estimate was 10-50x the measured time
+ * (n = 7e5-1.3e8, a = 700-4918), so box-mixture was built, and chosen, where it was slower.
+ */
+function headSteps(bp: number): number {
+  return bp > 32 ? Math.min(bp, 20) : bp;
+}
+const FEW_PARTS_EXPONENT = 2.7;
+/** Counts one maximiser search evaluates (a guess refined by secant steps, concave-maximiser.ts). */
+const MAXIMISER_COUNTS = 8;
 const STEPS_PER_ADDITION = 0.05;
 /** A tail-series term at a node (complex exp, log, atan2) against one head factor. */
 const TAIL_TERM_STEPS = 3;

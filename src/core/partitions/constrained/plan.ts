@@ -252,7 +252,11 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && DistinctBoundedSelfSimilarSampler.serves(n, Math.max(1, lo));
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
     if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
-    if (distinct && (!plainDistinct || includeAll)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
+    // From n = 1e7 on, distinct-boltzmann is estimated >= 8x the bounded self-similar method's cost
+    // wherever that one is servable (a = 3-4918, with and without maxPart), and building it takes
+    // ~80 ms (its block table): it is then left out.
+    const selfSimilarServes = sampler !== null && sampler.servable && n >= 1e7;
+    if (distinct && (!plainDistinct || includeAll) && (includeAll || !selfSimilarServes)) boltzmann(() => new DistinctBoltzmann(sizes, n, undefined, shape.tilt));
     else if (!distinct) boltzmann(() => new MultisetBoltzmann(sizes, n, shape.tilt));
     if (!distinct && open && lo >= 2 && lo <= MinPartSelfSimilarSampler.MAX_A) {
       // Parts >= a and nothing else: the self-similar method with a family per level
