@@ -154,14 +154,12 @@ export class DistinctBoundedSelfSimilarSampler implements PartitionSampler {
           }
         }
       }
-      // The maximiser: MAXIMISER_COUNTS counts per sample below the top level (whose size, and
-      // so whose search, is the same every sample: its counts are remembered after the first).
-      work += PROPOSALS * (visits + count) + (size === n ? 0 : MAXIMISER_COUNTS * count);
+      work += PROPOSALS * (visits + count) + Math.log2(size) * count;
     }
     // Few parts (n < a², a > 200; every level has the same n_l/b_l²): the counts sit just above
     // their tables, where each takes many more nodes, and proposals are more (class comment).
-    // Measured time over this estimate without the factor: ~40-57x at n = a²/4, 5-12x at a²/2,
-    // ~1x at a² (a = 700, 2000, 4918); the factor (a²/n)^2.7 matches those.
+    // Measured time over this estimate without the factor: ~3-18x at n = a²/4, ~1.5-3x at a²/2,
+    // ~1x at a² (a = 700, 2000, 4918, after a warm-up, fresh seeds); the factor (a²/n)^1.7.
     if (a > 200 && n < a * a) work *= (a * a / Math.max(1, n)) ** FEW_PARTS_EXPONENT;
     this.expectedWork = work;
     this.setupWork = setup * STEPS_PER_ADDITION;
@@ -203,9 +201,7 @@ const COUNT_NODES = 30;
 function headSteps(bp: number): number {
   return bp > 32 ? Math.min(bp, 20) : bp;
 }
-const FEW_PARTS_EXPONENT = 2.7;
-/** Counts one maximiser search evaluates (a guess refined by secant steps, concave-maximiser.ts). */
-const MAXIMISER_COUNTS = 8;
+const FEW_PARTS_EXPONENT = 1.7;
 const STEPS_PER_ADDITION = 0.05;
 /** A tail-series term at a node (complex exp, log, atan2) against one head factor. */
 const TAIL_TERM_STEPS = 3;
