@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: speed tables, every ratio measured side by side in one run. Each section
- * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving, costs, plan-fit) runs one.
+ * lives in scripts/bench/. `npm run bench -- unrestricted` (or constrained, shapes, compositions, set-partitions, http, library, ranks, serving, costs, plan-fit, setup) runs one.
  */
 import { benchCompositions } from './bench/compositions.js';
 import { benchConstrained } from './bench/constrained.js';
@@ -11,6 +11,7 @@ import { benchLibrary } from './bench/library.js';
 import { benchPlanFit } from './bench/plan-fit.js';
 import { benchRanks } from './bench/ranks.js';
 import { benchServing } from './bench/serving.js';
+import { benchSetup } from './bench/setup.js';
 import { benchShapes } from './bench/shapes.js';
 import { benchUnrestricted } from './bench/unrestricted.js';
 
@@ -26,6 +27,7 @@ const sections: Record<string, () => Promise<void>> = {
   serving: benchServing,
   costs: benchCosts,
   'plan-fit': () => benchPlanFit(),
+  setup: benchSetup,
 };
 
 const chosen = process.argv.slice(2);
