@@ -50,17 +50,16 @@ export class LogMinPartCounts {
   ) {
     if (!Number.isInteger(b) || b < 2) throw new RangeError(`b must be an integer >= 2, got ${b}`);
     if (!Number.isInteger(exactUpTo) || exactUpTo < 0) throw new RangeError(`exactUpTo must be a non-negative integer, got ${exactUpTo}`);
-    const c = new Float64Array(exactUpTo + 1);
-    c[0] = 1;
-    for (let k = b; k <= exactUpTo; k++) for (let m = k; m <= exactUpTo; m++) c[m] += c[m - k];
+    const c = minPartByParts(b, exactUpTo);
     this.exact = c;
     this.logExact = c.map(Math.log);
   }
 
   /** Additions done by the constructor (setup work). */
   static setupWork(b: number, exactUpTo: number = defaultExactUpTo(b)): number {
-    const r = Math.max(0, exactUpTo - b + 1);
-    return (r * (r + 1)) / 2;
+    let work = 0;
+    for (let j = 1; j * b <= exactUpTo; j++) work += 2 * (exactUpTo - j * b + 1);
+    return work;
   }
 
   /**
@@ -125,6 +124,28 @@ const PI2_6 = (Math.PI * Math.PI) / 6;
  * b = 2..7, 3000 for b = 31, 4000 for 61, 5000 for 100 and 121, 9000 for 241, ~18000 for 481;
  * this formula keeps a margin above each (test/partitions/log-min-part-count.test.ts checks it).
  */
+/**
+ * c_b(0..upTo), partitions into parts >= b, by number of parts: j parts >= b of m are, less b − 1
+ * from each, the partitions of m − jb into at most j parts (parts >= 1 after one is taken from
+ * each), counted by p_j(M) = p_{j−1}(M) + p_j(M − j) (parts <= j, by conjugation). Positive
+ * additions only, about 2·(upTo/b)·upTo of them instead of ~upTo²/2 factor by factor (b = 162:
+ * 0.7e6 against 2.7e7, ~40 ms of a first sample at n = 2e6, minPart = 323); the doubles differ
+ * from the factor-by-factor sums only by rounding (~1e-16 relative per addition).
+ */
+export function minPartByParts(b: number, upTo: number): Float64Array {
+  const c = new Float64Array(upTo + 1);
+  c[0] = 1;
+  const p = new Float64Array(upTo + 1);
+  p[0] = 1;
+  for (let j = 1; j * b <= upTo; j++) {
+    const base = j * b;
+    // Later j read p only up to upTo − (their larger base).
+    for (let M = j; M <= upTo - base; M++) p[M] += p[M - j];
+    for (let m = base; m <= upTo; m++) c[m] += p[m - base];
+  }
+  return c;
+}
+
 export function defaultExactUpTo(b: number): number {
   return Math.ceil(2000 + 30 * b + (b * b) / 40);
 }
