@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LogMinPartCounts, defaultExactUpTo } from '../../src/core/counting/log-min-part-count.js';
+import { LogMinPartCounts, defaultExactUpTo, minPartByParts } from '../../src/core/counting/log-min-part-count.js';
 import { PartitionNumbers } from '../../src/core/counting/partition-numbers.js';
 
 /**
@@ -24,6 +24,19 @@ function exactLogRatio(x: bigint, y: bigint): number {
 }
 
 describe('log c_b(m): partitions into parts >= b', () => {
+  it('fills its table by number of parts: exact below 2^53, within rounding above (against BigInt counts)', () => {
+    for (const [b, upTo] of [[2, 1500], [5, 3000], [162, 4000]]) {
+      const exact = exactCounts(b, upTo);
+      const c = minPartByParts(b, upTo);
+      for (let m = 0; m <= upTo; m++) {
+        // Partial sums are integers: exact while below 2^53; above, each addition rounds once
+        // (<= ~2·upTo of them on a path, so relative error < upTo·2^-51 ~ 2e-12 at worst).
+        if (exact[m] < 2n ** 53n) expect(c[m], `b=${b} m=${m}`).toBe(Number(exact[m]));
+        else expect(Math.abs(c[m] / Number(exact[m]) - 1), `b=${b} m=${m}`).toBeLessThan(2e-12);
+      }
+    }
+  });
+
   it('matches OEIS A002865 at small m', () => {
     const c = new LogMinPartCounts(2);
     expect([0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10].map((m) => c.value(m))).toEqual([1, 0, 1, 1, 2, 2, 4, 4, 7, 8, 12]);
