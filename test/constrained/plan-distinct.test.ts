@@ -40,4 +40,25 @@ describe('planning plain distinct parts', () => {
     expect(planCandidates(family(1e6, { minPart: 2 })).some((c) => c.method === 'distinct-self-similar/1')).toBe(false);
     expect(planCandidates(family(1e6, { maxLength: 100 }), true).some((c) => c.method === 'distinct-self-similar/1')).toBe(false);
   });
+
+  it('refuses distinct minPart above 5000 at n = 1e9 with what would fit, naming no method', () => {
+    let message = '';
+    try {
+      constrainedPartitionSampler(family(1e9, { minPart: 8000 }));
+    } catch (error) {
+      message = (error as Error).message;
+    }
+    expect(message).toContain('minPart up to 5000 fits');
+    expect(message).not.toMatch(/self-similar|boltzmann|mixture|\/1/);
+  });
+
+  it('leaves distinct-boltzmann out from n = 1e7 where the bounded self-similar method serves (estimated >= 8x dearer)', () => {
+    for (const [n, minPart] of [[1e7, 30], [1e8, 300], [1e9, 3000]]) {
+      const all = planCandidates(family(n, { minPart }), true);
+      const selfSimilar = all.find((c) => c.method.startsWith('distinct-bounded-self-similar'))!;
+      const boltzmann = all.find((c) => c.method.startsWith('distinct-boltzmann'))!;
+      expect(planCostNs(boltzmann), `n=${n}`).toBeGreaterThan(8 * planCostNs(selfSimilar));
+      expect(planCandidates(family(n, { minPart })).some((c) => c.method.startsWith('distinct-boltzmann'))).toBe(false);
+    }
+  });
 });

@@ -252,6 +252,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     const boundedDistinct = distinct && sizes.kind === 'interval' && !plainDistinct && DistinctBoundedSelfSimilarSampler.serves(n, Math.max(1, lo));
     const sampler = boundedDistinct ? new DistinctBoundedSelfSimilarSampler(n, Math.max(1, lo), undefined, undefined, open ? Infinity : sizes.hi) : null;
     if (sampler !== null && sampler.servable) prepared(sampler, sampler.setupCells <= TABLE_CELL_LIMIT);
+    // Beyond its smallest-part limit it is not built: if nothing else fits, the refusal says what would.
+    const maxA = DistinctBoundedSelfSimilarSampler.MAX_A;
+    if (!includeAll && distinct && open && lo > maxA) {
+      // serves(n, a): a <= 200, or a <= MAX_A with n >= a²/4.
+      const hint = `with distinct parts at this n, minPart up to ${Math.max(200, Math.min(maxA, Math.floor(2 * Math.sqrt(n))))} fits`;
+      out.push({ method: 'distinct-bounded-self-similar/1', setupWork: 0, sampleWork: Infinity, fits: false, hint, build: () => { throw new RangeError(hint); } });
+    }
     // From n = 1e7 on, distinct-boltzmann is estimated >= 8x the bounded self-similar method's cost
     // wherever that one is servable (a = 3-4918, with and without maxPart), and building it takes
     // ~80 ms (its block table): it is then left out.
