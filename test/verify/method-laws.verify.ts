@@ -1,0 +1,343 @@
+import { describe, expect, it } from 'vitest';
+import { countPartitions } from '../../src/core/counting/partition-counts.js';
+import type { PartitionFamily } from '../../src/core/family.js';
+import { lengthOf, partsOf, sizeOf, type Partition } from '../../src/core/partition.js';
+import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
+import { sampleSource } from '../../src/core/seeding.js';
+import { chiSquareTest } from '../support/chi-square.js';
+import { satisfies } from '../support/enumerate-constrained.js';
+
+/**
+ * Methods forced through the planner's `method` option at mid sizes, where counting still works
+ * (and mostly a table would still fit) but the planner already takes a non-table method: the law
+ * of a statistic of the samples (smallest part, largest part, number of parts, multiplicity of
+ * one size) against its exact law. The laws are computed here in doubles by additions of
+ * positives only, from recurrences independent of the library's code:
+ *   p(m, c), partitions of m into exactly c parts: p(m, c) = p(m − 1, c − 1) + p(m − c, c)
+ *   (OEIS A008284; exactly c parts >= a: p(m − c(a − 1), c); exactly c distinct parts >= a:
+ *   p(m − c(a − 1) − c(c − 1)/2, c), the staircase removed);
+ *   bounded parts by the knapsack over the sizes lo..hi, tracking the number of parts (0/1 for
+ *   distinct parts), read after each size for the law of the largest part;
+ *   allowed lists by the coin-change recurrence.
+ * Each law's total is checked against the library's BigInt count (countPartitions, itself checked
+ * against OEIS in test/constrained/counts.test.ts) to 1e-9.
+ *
+ * Pairs added (method, shape; before this file they had no mid-size law, see the table at the top
+ * of test/constrained/method-coverage.test.ts): bounded-boltzmann+conjugate k K Dk Dak,
+ * bounded-self-similar+conjugate k Dk Dak, box-subset k K Dk Dak (open boxes), box-rotation bk,
+ * self-similar+box-filter k, bounded-boltzmann+conjugate+box-filter bk bK, allowed-boltzmann L,
+ * minpart-self-similar a (through the planner), bounded-boltzmann a, box-mixture a ab abK (no length constraint
+ * or n = 3000), conjugate-mixture abK, distinct-boltzmann Db Dab Da, box-mixture Db Dab Da.
+ *
+ * Pearson chi-square, cells pooled until each expects >= 20 samples (common practice), fixed
+ * seeds; each statistic's test rejects an exact sampler with probability alpha = 1e-4 (project
+ * convention), so the file's family-wise false-alarm probability is at most (number of
+ * statistic tests, ~60) x 1e-4.
+ */
+const ALPHA = 1e-4;
+
+type Law = Map<number, number>;
+type Statistic = [name: string, value: (p: Partition) => number, law: Law];
+
+const partition = (spec: Omit<PartitionFamily, 'kind'>) => ({ kind: 'partition', ...spec }) as PartitionFamily;
+const bare = (id: string) => id.replace(/\/\d+/g, '');
+
+/** p(m, c) for m <= n, c <= kMax: rows[c][m] (doubles; additions only). */
+function exactlyPartsRows(n: number, kMax: number): Float64Array[] {
+  const rows = [new Float64Array(n + 1)];
+  rows[0][0] = 1;
+  for (let c = 1; c <= kMax; c++) {
+    const row = new Float64Array(n + 1);
+    const prev = rows[c - 1];
+    for (let m = c; m <= n; m++) row[m] = prev[m - 1] + row[m - c];
+    rows.push(row);
+  }
+  return rows;
+}
+
+/**
+ * Knapsack over the sizes lo..hi (0/1 when distinct), tracking the number of parts c <= kMax: the
+ * laws of the largest part and of the number of parts over members with kMin <= c <= kMax, and
+ * their count.
+ */
+function knapsackLaws(n: number, lo: number, hi: number, distinct: boolean, kMin: number, kMax: number): { largest: Law; parts: Law; total: number } {
+  const ways = Array.from({ length: kMax + 1 }, () => new Float64Array(n + 1));
+  ways[0][0] = 1;
+  const upTo: number[] = [];
+  const atN = new Float64Array(kMax + 1);
+  for (let j = lo; j <= hi; j++) {
+    if (distinct) {
+      for (let c = kMax; c >= 1; c--) for (let m = n; m >= j; m--) ways[c][m] += ways[c - 1][m - j];
+    } else {
+      for (let c = 1; c <= kMax; c++) for (let m = j; m <= n; m++) ways[c][m] += ways[c - 1][m - j];
+    }
+    let members = 0;
+    for (let c = kMin; c <= kMax; c++) members += ways[c][n];
+    upTo.push(members);
+  }
+  for (let c = 0; c <= kMax; c++) atN[c] = ways[c][n];
+  const total = upTo[upTo.length - 1];
+  const largest: Law = new Map();
+  upTo.forEach((v, i) => {
+    const mass = v - (i === 0 ? 0 : upTo[i - 1]);
+    if (mass > 0) largest.set(lo + i, mass / total);
+  });
+  const parts: Law = new Map();
+  for (let c = kMin; c <= kMax; c++) if (atN[c] > 0) parts.set(c, atN[c] / total);
+  return { largest, parts, total };
+}
+
+/** A law from a survival function P(X >= v) given at v = from, from + 1, ... (0 past the support). */
+function fromSurvival(from: number, survival: (v: number) => number): Law {
+  const law: Law = new Map();
+  for (let v = from; ; v++) {
+    const here = survival(v);
+    if (here <= 0) break;
+    const mass = here - survival(v + 1);
+    if (mass > 0) law.set(v, mass);
+  }
+  return law;
+}
+
+/** The library's BigInt count agrees with a law's double total. */
+function checkTotal(family: PartitionFamily, total: number): void {
+  const exact = Number(countPartitions(family, 1e8));
+  expect(Math.abs(total / exact - 1)).toBeLessThan(1e-9);
+}
+
+/** Chi-square of observed values against a law, adjacent values pooled until each cell expects >= 20. */
+function lawPValue(observed: Map<number, number>, law: Law, samples: number): { pValue: number; cells: number } {
+  const values = [...law.keys()].sort((a, b) => a - b);
+  const o: number[] = [];
+  const p: number[] = [];
+  let ao = 0;
+  let ap = 0;
+  for (const v of values) {
+    ao += observed.get(v) ?? 0;
+    ap += law.get(v)!;
+    if (ap * samples >= 20) {
+      o.push(ao);
+      p.push(ap);
+      ao = 0;
+      ap = 0;
+    }
+  }
+  if (ap > 0 || ao > 0) {
+    o[o.length - 1] += ao;
+    p[p.length - 1] += ap;
+  }
+  // Values outside the law's support would be non-members, checked separately.
+  const { pValue } = chiSquareTest(o, p);
+  return { pValue, cells: o.length };
+}
+
+/**
+ * Forces `method` on the family (the planner's own choice there is `planned`; `tableFits`: a
+ * counting table still fits at this size) and tests each statistic's law.
+ */
+function check(family: PartitionFamily, methods: readonly string[], planned: string, tableFits: boolean, statistics: readonly Statistic[], samples = 20_000): void {
+  describe(`${JSON.stringify(family).replace('"kind":"partition",', '')} (planned: ${planned})`, () => {
+    it('the planner takes the named method there', () => {
+      expect(bare(constrainedPartitionSampler(family).method)).toBe(planned);
+      expect(planCandidates(family).some((c) => c.method.startsWith('table') && c.fits)).toBe(tableFits);
+    });
+    for (const method of methods) {
+      it(`${method}: ${statistics.map(([name]) => name).join(', ')} (${samples} samples)`, () => {
+        const sampler = constrainedPartitionSampler(family, { method });
+        expect(bare(sampler.method)).toBe(method);
+        const seen = statistics.map(() => new Map<number, number>());
+        for (let i = 0; i < samples; i++) {
+          const p = sampler.sample(sampleSource(`laws-${method}`.replace(/\+/g, '.'), i, JSON.stringify(family)));
+          if (i < 200) expect(sizeOf(p) === family.n && satisfies(partsOf(p), family), `${partsOf(p)}`).toBe(true);
+          statistics.forEach(([, value], s) => {
+            const v = value(p);
+            seen[s].set(v, (seen[s].get(v) ?? 0) + 1);
+          });
+        }
+        statistics.forEach(([name, , law], s) => {
+          const { pValue, cells } = lawPValue(seen[s], law, samples);
+          expect(cells, name).toBeGreaterThan(2);
+          expect(pValue, `${method} ${name}: p = ${pValue.toExponential(2)}`).toBeGreaterThan(ALPHA);
+        });
+      });
+    }
+  });
+}
+
+const smallest = (p: Partition) => p.sizes[p.sizes.length - 1];
+const largest = (p: Partition) => p.sizes[0];
+const multiplicity = (size: number) => (p: Partition) => {
+  const i = p.sizes.indexOf(size);
+  return i < 0 ? 0 : p.multiplicities[i];
+};
+
+describe('exactly k parts, no upper bound: conjugation and open boxes', () => {
+  {
+    // Smallest part of exactly k parts: P(smallest >= s) = p(n − k(s − 1), k) / p(n, k).
+    const n = 5000;
+    const k = 30;
+    const rows = exactlyPartsRows(n, k);
+    const family = partition({ n, length: k });
+    checkTotal(family, rows[k][n]);
+    const law = fromSurvival(1, (s) => (n - k * (s - 1) >= k ? rows[k][n - k * (s - 1)] / rows[k][n] : 0));
+    check(family, ['bounded-boltzmann+conjugate', 'bounded-self-similar+conjugate', 'box-subset'], 'bounded-boltzmann+conjugate', true, [['smallest part', smallest, law]]);
+  }
+  {
+    // At most K parts: P(c parts) = p(n, c) / sum, P(smallest >= s) = sum_c p(n − c(s − 1), c) / sum.
+    const n = 5000;
+    const K = 30;
+    const rows = exactlyPartsRows(n, K);
+    let total = 0;
+    for (let c = 1; c <= K; c++) total += rows[c][n];
+    const family = partition({ n, maxLength: K });
+    checkTotal(family, total);
+    const parts: Law = new Map();
+    for (let c = 1; c <= K; c++) parts.set(c, rows[c][n] / total);
+    const survival = (s: number) => {
+      let sum = 0;
+      for (let c = 1; c <= K && n - c * (s - 1) >= c; c++) sum += rows[c][n - c * (s - 1)];
+      return sum / total;
+    };
+    check(family, ['bounded-boltzmann+conjugate', 'bounded-self-similar+conjugate', 'box-subset'], 'bounded-boltzmann+conjugate', true, [
+      ['number of parts', lengthOf, parts],
+      ['smallest part', smallest, fromSurvival(1, survival)],
+    ]);
+  }
+  {
+    // Number of 1s of exactly k parts: P(m_1 >= j) = p(n − j, k − j) / p(n, k) (remove j ones).
+    const n = 3000;
+    const k = 200;
+    const rows = exactlyPartsRows(n, k);
+    const family = partition({ n, length: k });
+    checkTotal(family, rows[k][n]);
+    const law = fromSurvival(0, (j) => (j <= k ? rows[k - j][n - j] / rows[k][n] : 0));
+    check(family, ['bounded-self-similar+conjugate', 'self-similar+box-filter', 'bounded-boltzmann+conjugate', 'box-subset'], 'bounded-self-similar+conjugate', true, [
+      ['multiplicity of 1', multiplicity(1), law],
+    ]);
+  }
+  for (const a of [1, 3]) {
+    // k distinct parts >= s: p(n − k(k − 1)/2 − k(s − 1), k) (staircase and s − 1 removed).
+    const n = 8000;
+    const k = 25;
+    const rows = exactlyPartsRows(n, k);
+    const count = (s: number) => {
+      const m = n - (k * (k - 1)) / 2 - k * (s - 1);
+      return m >= k ? rows[k][m] : 0;
+    };
+    const family = partition({ n, distinct: true, length: k, ...(a > 1 ? { minPart: a } : {}) });
+    checkTotal(family, count(a));
+    const law = fromSurvival(a, (s) => count(s) / count(a));
+    check(family, ['bounded-boltzmann+conjugate', 'box-subset', 'bounded-self-similar+conjugate'], 'bounded-boltzmann+conjugate', true, [['smallest part', smallest, law]], 10_000);
+  }
+});
+
+describe('finite boxes: box-subset, box-rotation and the box filters', () => {
+  {
+    const family = partition({ n: 3000, length: 30, maxPart: 200 });
+    const laws = knapsackLaws(3000, 1, 200, false, 30, 30);
+    checkTotal(family, laws.total);
+    check(family, ['box-subset', 'box-rotation'], 'box-subset', false, [['largest part', largest, laws.largest]]);
+  }
+  {
+    const family = partition({ n: 2000, length: 15, maxPart: 1500 });
+    const laws = knapsackLaws(2000, 1, 1500, false, 15, 15);
+    checkTotal(family, laws.total);
+    check(family, ['bounded-boltzmann+conjugate+box-filter', 'box-subset'], 'bounded-boltzmann+conjugate+box-filter', false, [['largest part', largest, laws.largest]]);
+  }
+  {
+    const family = partition({ n: 2000, maxLength: 60, maxPart: 400 });
+    const laws = knapsackLaws(2000, 1, 400, false, 1, 60);
+    checkTotal(family, laws.total);
+    check(family, ['bounded-boltzmann+conjugate+box-filter', 'box-subset'], 'bounded-boltzmann+conjugate+box-filter', false, [
+      ['largest part', largest, laws.largest],
+      ['number of parts', lengthOf, laws.parts],
+    ]);
+  }
+});
+
+describe('allowed list: allowed-boltzmann', () => {
+  // Coin change over {1, 2, 5, 10, 20, 50}: P(m_50 = j) = c'(n − 50 j) / c(n) with c' without 50;
+  // P(m_1 >= j) = c(n − j) / c(n) (remove j ones).
+  const n = 3000;
+  const sizes = [1, 2, 5, 10, 20, 50];
+  const coins = (list: readonly number[]) => {
+    const c = new Float64Array(n + 1);
+    c[0] = 1;
+    for (const s of list) for (let m = s; m <= n; m++) c[m] += c[m - s];
+    return c;
+  };
+  const all = coins(sizes);
+  const without50 = coins(sizes.slice(0, -1));
+  const family = partition({ n, allowed: sizes });
+  checkTotal(family, all[n]);
+  const fifties: Law = new Map();
+  for (let j = 0; 50 * j <= n; j++) fifties.set(j, without50[n - 50 * j] / all[n]);
+  const ones = fromSurvival(0, (j) => (j <= n ? all[n - j] / all[n] : 0));
+  check(family, ['allowed-boltzmann'], 'allowed-boltzmann', true, [
+    ['multiplicity of 50', multiplicity(50), fifties],
+    ['multiplicity of 1', multiplicity(1), ones],
+  ]);
+});
+
+describe('parts >= a, no upper bound: minpart-self-similar through the planner, and the methods it is preferred to', () => {
+  for (const [n, a, methods, tableFits] of [
+    [5000, 3, ['minpart-self-similar', 'bounded-boltzmann', 'box-mixture'], false],
+    [20_000, 100, ['minpart-self-similar', 'box-mixture'], true],
+  ] as const) {
+    // c parts >= a: p(n − c(a − 1), c).
+    const kMax = Math.floor(n / a);
+    const rows = exactlyPartsRows(n, kMax);
+    const parts: Law = new Map();
+    let total = 0;
+    for (let c = 1; c <= kMax; c++) total += rows[c][n - c * (a - 1)];
+    for (let c = 1; c <= kMax; c++) if (rows[c][n - c * (a - 1)] > 0) parts.set(c, rows[c][n - c * (a - 1)] / total);
+    const family = partition({ n, minPart: a });
+    checkTotal(family, total);
+    check(family, methods, 'minpart-self-similar', tableFits, [['number of parts', lengthOf, parts]], n > 10_000 ? 10_000 : 20_000);
+  }
+});
+
+describe('at most K parts in [lo, hi]: conjugate-mixture and box-mixture', () => {
+  for (const [K, planned, other] of [
+    [100, 'conjugate-mixture', 'box-mixture'],
+    [40, 'box-mixture', 'conjugate-mixture'],
+  ] as const) {
+    const family = partition({ n: 3000, minPart: 3, maxPart: 200, maxLength: K });
+    const laws = knapsackLaws(3000, 3, 200, false, 1, K);
+    checkTotal(family, laws.total);
+    check(family, [planned, other], planned, false, [
+      ['largest part', largest, laws.largest],
+      ['number of parts', lengthOf, laws.parts],
+    ]);
+  }
+});
+
+describe('distinct parts with bounds: distinct-boltzmann and box-mixture against the planned distinct-bounded-self-similar', () => {
+  for (const a of [1, 5]) {
+    const family = partition({ n: 5000, distinct: true, maxPart: 150, ...(a > 1 ? { minPart: a } : {}) });
+    const laws = knapsackLaws(5000, a, 150, true, 1, 99);
+    checkTotal(family, laws.total);
+    check(family, ['distinct-bounded-self-similar', 'distinct-boltzmann', 'box-mixture'], 'distinct-bounded-self-similar', true, [
+      ['largest part', largest, laws.largest],
+      ['number of parts', lengthOf, laws.parts],
+    ]);
+  }
+  {
+    // c distinct parts >= 30: p(n − 29 c − c(c − 1)/2, c).
+    const n = 20_000;
+    const a = 30;
+    const kMax = 200;
+    const rows = exactlyPartsRows(n, kMax);
+    const at = (c: number) => {
+      const m = n - (a - 1) * c - (c * (c - 1)) / 2;
+      return m >= c ? rows[c][m] : 0;
+    };
+    let total = 0;
+    for (let c = 1; c <= kMax; c++) total += at(c);
+    const parts: Law = new Map();
+    for (let c = 1; c <= kMax; c++) if (at(c) > 0) parts.set(c, at(c) / total);
+    const family = partition({ n, distinct: true, minPart: a });
+    checkTotal(family, total);
+    check(family, ['distinct-bounded-self-similar', 'distinct-boltzmann', 'box-mixture'], 'distinct-bounded-self-similar', true, [['number of parts', lengthOf, parts]], 10_000);
+  }
+});
