@@ -171,6 +171,22 @@ const multiplicity = (size: number) => (p: Partition) => {
   return i < 0 ? 0 : p.multiplicities[i];
 };
 
+describe('the recurrences of the exact laws', () => {
+  it('p(10, c) is row 10 of OEIS A008284, and the knapsack gives the same counts', () => {
+    // OEIS A008284 row 10: 1, 5, 8, 9, 7, 5, 3, 2, 1, 1 (as in test/constrained/counts.test.ts).
+    const row = [1, 5, 8, 9, 7, 5, 3, 2, 1, 1];
+    const rows = exactlyPartsRows(10, 10);
+    expect(row.map((_, i) => rows[i + 1][10])).toEqual(row);
+    const laws = knapsackLaws(10, 1, 10, false, 1, 10);
+    expect(laws.total).toBe(42); // p(10), OEIS A000041
+    expect(row.map((c, i) => laws.parts.get(i + 1)! * 42)).toEqual(row.map((c) => expect.closeTo(c, 9)));
+    // Distinct parts of 10 by number of parts: 1, 4, 4, 1 (OEIS A008289 row 10), q(10) = 10 (A000009).
+    const distinct = knapsackLaws(10, 1, 10, true, 1, 4);
+    expect(distinct.total).toBe(10);
+    expect([1, 2, 3, 4].map((c) => distinct.parts.get(c)! * 10)).toEqual([1, 4, 4, 1].map((c) => expect.closeTo(c, 9)));
+  });
+});
+
 describe('exactly k parts, no upper bound: conjugation and open boxes', () => {
   {
     // Smallest part of exactly k parts: P(smallest >= s) = p(n − k(s − 1), k) / p(n, k).
