@@ -26,8 +26,10 @@ import { satisfies } from '../support/enumerate-constrained.js';
  * of test/constrained/method-coverage.test.ts): bounded-boltzmann+conjugate k K Dk Dak,
  * bounded-self-similar+conjugate k Dk Dak, box-subset k K Dk Dak (open boxes), box-rotation bk,
  * self-similar+box-filter k, bounded-boltzmann+conjugate+box-filter bk bK, allowed-boltzmann L,
- * minpart-self-similar a (through the planner), bounded-boltzmann a, box-mixture a ab abK (no length constraint
- * or n = 3000), conjugate-mixture abK, distinct-boltzmann Db Dab Da, box-mixture Db Dab Da.
+ * minpart-self-similar a (through the planner), bounded-boltzmann a, box-mixture a abK DaK Db Dab Da,
+ * conjugate-mixture abK, distinct-boltzmann Db Dab Da, table-recursive+box-filter k,
+ * bounded-boltzmann+box-filter bk, allowed-length-boltzmann bKL, allowed-subset DbkL,
+ * minpart-self-similar+length-filter aK, distinct-bounded-self-similar+length-filter DaK.
  *
  * Pearson chi-square, cells pooled until each expects >= 20 samples (common practice), fixed
  * seeds; each statistic's test rejects an exact sampler with probability alpha = 1e-4 (project
@@ -55,17 +57,19 @@ function exactlyPartsRows(n: number, kMax: number): Float64Array[] {
   return rows;
 }
 
+/** The sizes lo..hi. */
+const range = (lo: number, hi: number) => Array.from({ length: hi - lo + 1 }, (_, i) => lo + i);
+
 /**
- * Knapsack over the sizes lo..hi (0/1 when distinct), tracking the number of parts c <= kMax: the
- * laws of the largest part and of the number of parts over members with kMin <= c <= kMax, and
- * their count.
+ * Knapsack over the sizes (ascending; 0/1 when distinct), tracking the number of parts c <= kMax:
+ * the laws of the largest part and of the number of parts over members with kMin <= c <= kMax,
+ * their count, and the final table ways[c][m] (members of m with c parts).
  */
-function knapsackLaws(n: number, lo: number, hi: number, distinct: boolean, kMin: number, kMax: number): { largest: Law; parts: Law; total: number } {
+function knapsackLaws(n: number, sizes: readonly number[], distinct: boolean, kMin: number, kMax: number): { largest: Law; parts: Law; total: number; ways: Float64Array[] } {
   const ways = Array.from({ length: kMax + 1 }, () => new Float64Array(n + 1));
   ways[0][0] = 1;
   const upTo: number[] = [];
-  const atN = new Float64Array(kMax + 1);
-  for (let j = lo; j <= hi; j++) {
+  for (const j of sizes) {
     if (distinct) {
       for (let c = kMax; c >= 1; c--) for (let m = n; m >= j; m--) ways[c][m] += ways[c - 1][m - j];
     } else {
@@ -75,16 +79,15 @@ function knapsackLaws(n: number, lo: number, hi: number, distinct: boolean, kMin
     for (let c = kMin; c <= kMax; c++) members += ways[c][n];
     upTo.push(members);
   }
-  for (let c = 0; c <= kMax; c++) atN[c] = ways[c][n];
   const total = upTo[upTo.length - 1];
   const largest: Law = new Map();
   upTo.forEach((v, i) => {
     const mass = v - (i === 0 ? 0 : upTo[i - 1]);
-    if (mass > 0) largest.set(lo + i, mass / total);
+    if (mass > 0) largest.set(sizes[i], mass / total);
   });
   const parts: Law = new Map();
-  for (let c = kMin; c <= kMax; c++) if (atN[c] > 0) parts.set(c, atN[c] / total);
-  return { largest, parts, total };
+  for (let c = kMin; c <= kMax; c++) if (ways[c][n] > 0) parts.set(c, ways[c][n] / total);
+  return { largest, parts, total, ways };
 }
 
 /** A law from a survival function P(X >= v) given at v = from, from + 1, ... (0 past the support). */
@@ -177,11 +180,11 @@ describe('the recurrences of the exact laws', () => {
     const row = [1, 5, 8, 9, 7, 5, 3, 2, 1, 1];
     const rows = exactlyPartsRows(10, 10);
     expect(row.map((_, i) => rows[i + 1][10])).toEqual(row);
-    const laws = knapsackLaws(10, 1, 10, false, 1, 10);
+    const laws = knapsackLaws(10, range(1, 10), false, 1, 10);
     expect(laws.total).toBe(42); // p(10), OEIS A000041
     expect(row.map((c, i) => laws.parts.get(i + 1)! * 42)).toEqual(row.map((c) => expect.closeTo(c, 9)));
     // Distinct parts of 10 by number of parts: 1, 4, 4, 1 (OEIS A008289 row 10), q(10) = 10 (A000009).
-    const distinct = knapsackLaws(10, 1, 10, true, 1, 4);
+    const distinct = knapsackLaws(10, range(1, 10), true, 1, 4);
     expect(distinct.total).toBe(10);
     expect([1, 2, 3, 4].map((c) => distinct.parts.get(c)! * 10)).toEqual([1, 4, 4, 1].map((c) => expect.closeTo(c, 9)));
   });
@@ -231,6 +234,16 @@ describe('exactly k parts, no upper bound: conjugation and open boxes', () => {
       ['multiplicity of 1', multiplicity(1), law],
     ]);
   }
+  {
+    // The same law at n = 1000 (the shifted box fits the unrestricted table method, n <= 1000).
+    const n = 1000;
+    const k = 120;
+    const rows = exactlyPartsRows(n, k);
+    const family = partition({ n, length: k });
+    checkTotal(family, rows[k][n]);
+    const law = fromSurvival(0, (j) => (j <= k ? rows[k - j][n - j] / rows[k][n] : 0));
+    check(family, ['table-recursive+box-filter', 'bounded-boltzmann+conjugate'], 'table-lengths', true, [['multiplicity of 1', multiplicity(1), law]]);
+  }
   for (const a of [1, 3]) {
     // k distinct parts >= s: p(n − k(k − 1)/2 − k(s − 1), k) (staircase and s − 1 removed).
     const n = 8000;
@@ -250,24 +263,99 @@ describe('exactly k parts, no upper bound: conjugation and open boxes', () => {
 describe('finite boxes: box-subset, box-rotation and the box filters', () => {
   {
     const family = partition({ n: 3000, length: 30, maxPart: 200 });
-    const laws = knapsackLaws(3000, 1, 200, false, 30, 30);
+    const laws = knapsackLaws(3000, range(1, 200), false, 30, 30);
     checkTotal(family, laws.total);
     check(family, ['box-subset', 'box-rotation'], 'box-subset', false, [['largest part', largest, laws.largest]]);
   }
   {
     const family = partition({ n: 2000, length: 15, maxPart: 1500 });
-    const laws = knapsackLaws(2000, 1, 1500, false, 15, 15);
+    const laws = knapsackLaws(2000, range(1, 1500), false, 15, 15);
     checkTotal(family, laws.total);
     check(family, ['bounded-boltzmann+conjugate+box-filter', 'box-subset'], 'bounded-boltzmann+conjugate+box-filter', false, [['largest part', largest, laws.largest]]);
   }
   {
     const family = partition({ n: 2000, maxLength: 60, maxPart: 400 });
-    const laws = knapsackLaws(2000, 1, 400, false, 1, 60);
+    const laws = knapsackLaws(2000, range(1, 400), false, 1, 60);
     checkTotal(family, laws.total);
     check(family, ['bounded-boltzmann+conjugate+box-filter', 'box-subset'], 'bounded-boltzmann+conjugate+box-filter', false, [
       ['largest part', largest, laws.largest],
       ['number of parts', lengthOf, laws.parts],
     ]);
+  }
+});
+
+describe('exactly k parts <= b with the part bound binding: bounded-boltzmann+box-filter', () => {
+  // P(m_1 >= j) = ways[k − j][n − j] / ways[k][n] (remove j ones), ways from the knapsack over 1..30.
+  const n = 3000;
+  const k = 600;
+  const family = partition({ n, maxPart: 30, length: k });
+  const laws = knapsackLaws(n, range(1, 30), false, k, k);
+  checkTotal(family, laws.total);
+  const ones = fromSurvival(0, (j) => (j <= k ? laws.ways[k - j][n - j] / laws.total : 0));
+  check(family, ['bounded-boltzmann+box-filter', 'box-subset'], 'bounded-boltzmann+box-filter', false, [
+    ['largest part', largest, laws.largest],
+    ['multiplicity of 1', multiplicity(1), ones],
+  ]);
+});
+
+describe('allowed lists cut by maxPart, with a length constraint', () => {
+  {
+    const family = partition({ n: 3000, allowed: [1, 2, 5, 10, 20, 50], maxPart: 20, maxLength: 200 });
+    const laws = knapsackLaws(3000, [1, 2, 5, 10, 20], false, 1, 200);
+    checkTotal(family, laws.total);
+    // The largest part is 20 in nearly every member; the number of 1s instead: P(m_1 >= j) =
+    // sum over c <= 200 − j of ways[c][n − j] / total (remove j ones).
+    const ones = fromSurvival(0, (j) => {
+      let sum = 0;
+      for (let c = 0; c <= 200 - j; c++) sum += laws.ways[c][3000 - j];
+      return sum / laws.total;
+    });
+    check(family, ['allowed-length-boltzmann'], 'allowed-length-boltzmann', true, [
+      ['number of parts', lengthOf, laws.parts],
+      ['multiplicity of 1', multiplicity(1), ones],
+    ]);
+  }
+  {
+    const odd = Array.from({ length: 60 }, (_, i) => 2 * i + 1);
+    const family = partition({ n: 1500, distinct: true, allowed: odd, maxPart: 101, length: 20 });
+    const laws = knapsackLaws(1500, odd.filter((v) => v <= 101), true, 20, 20);
+    checkTotal(family, laws.total);
+    check(family, ['allowed-subset'], 'allowed-subset', true, [['largest part', largest, laws.largest]]);
+  }
+});
+
+describe('length filters over self-similar methods', () => {
+  for (const [K, tableFits] of [
+    [1000, false],
+    [400, true],
+  ] as const) {
+    // c parts >= 3: p(n − 2c, c), c <= K.
+    const n = 5000;
+    const rows = exactlyPartsRows(n, K);
+    let total = 0;
+    for (let c = 1; c <= K; c++) total += rows[c][n - 2 * c];
+    const parts: Law = new Map();
+    for (let c = 1; c <= K; c++) if (rows[c][n - 2 * c] > 0) parts.set(c, rows[c][n - 2 * c] / total);
+    const family = partition({ n, minPart: 3, maxLength: K });
+    checkTotal(family, total);
+    check(family, ['minpart-self-similar+length-filter'], 'minpart-self-similar+length-filter', tableFits, [['number of parts', lengthOf, parts]]);
+  }
+  {
+    // c distinct parts >= 3: p(n − 2c − c(c − 1)/2, c), c <= 70.
+    const n = 3000;
+    const K = 70;
+    const rows = exactlyPartsRows(n, K);
+    const at = (c: number) => {
+      const m = n - 2 * c - (c * (c - 1)) / 2;
+      return m >= c ? rows[c][m] : 0;
+    };
+    let total = 0;
+    for (let c = 1; c <= K; c++) total += at(c);
+    const parts: Law = new Map();
+    for (let c = 1; c <= K; c++) if (at(c) > 0) parts.set(c, at(c) / total);
+    const family = partition({ n, distinct: true, minPart: 3, maxLength: K });
+    checkTotal(family, total);
+    check(family, ['box-mixture', 'distinct-bounded-self-similar+length-filter'], 'box-mixture', true, [['number of parts', lengthOf, parts]]);
   }
 });
 
@@ -319,7 +407,7 @@ describe('at most K parts in [lo, hi]: conjugate-mixture and box-mixture', () =>
     [40, 'box-mixture', 'conjugate-mixture'],
   ] as const) {
     const family = partition({ n: 3000, minPart: 3, maxPart: 200, maxLength: K });
-    const laws = knapsackLaws(3000, 3, 200, false, 1, K);
+    const laws = knapsackLaws(3000, range(3, 200), false, 1, K);
     checkTotal(family, laws.total);
     check(family, [planned, other], planned, false, [
       ['largest part', largest, laws.largest],
@@ -331,7 +419,7 @@ describe('at most K parts in [lo, hi]: conjugate-mixture and box-mixture', () =>
 describe('distinct parts with bounds: distinct-boltzmann and box-mixture against the planned distinct-bounded-self-similar', () => {
   for (const a of [1, 5]) {
     const family = partition({ n: 5000, distinct: true, maxPart: 150, ...(a > 1 ? { minPart: a } : {}) });
-    const laws = knapsackLaws(5000, a, 150, true, 1, 99);
+    const laws = knapsackLaws(5000, range(a, 150), true, 1, 99);
     checkTotal(family, laws.total);
     check(family, ['distinct-bounded-self-similar', 'distinct-boltzmann', 'box-mixture'], 'distinct-bounded-self-similar', true, [
       ['largest part', largest, laws.largest],
