@@ -57,16 +57,18 @@ import { COVERED_ELSEWHERE, GAPPY, ONE_TO_14, shapeOf, type Case } from '../supp
  * minpart-self-similar a (v min-part-laws, sampler built directly); narrow-range-mixture ab
  * (t narrow-range-mixture); unrestricted table-recursive and self-similar (t exact-laws,
  * v unrestricted-laws).
- * added by test/verify/method-laws.verify.ts (forced, sizes where the planner takes the first
- * method named): bounded-boltzmann+conjugate k K Dk Dak, bounded-self-similar+conjugate k K Dk Dak,
- * box-subset k K Dk Dak bk bK, box-rotation bk, self-similar+box-filter k,
- * bounded-boltzmann+conjugate+box-filter bk bK, allowed-boltzmann L, minpart-self-similar a (planner),
- * bounded-boltzmann a, box-mixture a Da Db Dab abK, conjugate-mixture abK, distinct-boltzmann Da Db
- * Dab, distinct-bounded-self-similar Da Db Dab.
- * Still without a mid-size law: the table methods (they are the exact reference), the
- * +length-filter wrappers other than distinct-self-similar's, table-recursive+box-filter,
- * bounded-boltzmann+box-filter, allowed-length-boltzmann with minPart / maxPart, allowed-subset
- * with bounds (their small-n chi-squares are here).
+ * added by test/verify/method-laws.verify.ts (forced, at sizes where the planner takes the first
+ * method named for that family): bounded-boltzmann+conjugate k K Dk Dak, bounded-self-similar+conjugate
+ * k K Dk Dak, box-subset k K Dk Dak bk bK, box-rotation bk, self-similar+box-filter k,
+ * table-recursive+box-filter k, bounded-boltzmann+box-filter bk, bounded-boltzmann+conjugate+box-filter
+ * bk bK, allowed-boltzmann L, allowed-length-boltzmann bKL, allowed-subset DbkL, minpart-self-similar a
+ * (planner), minpart-self-similar+length-filter aK, bounded-boltzmann a, box-mixture a abK DaK Da Db Dab,
+ * conjugate-mixture abK, distinct-boltzmann Da Db Dab, distinct-bounded-self-similar Da Db Dab and
+ * +length-filter DaK.
+ * Still without a mid-size law (their small-n chi-squares are here or in the files above): the
+ * table methods (the exact reference at those sizes), table-sizes+length-filter, box-rotation Dbk
+ * Dabk, box-mixture D DbK ab, allowed-length-boltzmann aKL abKL abkL bkL, allowed-subset DakL DabkL,
+ * allowed-boltzmann aL bL abL, distinct-boltzmann DaL DbL DabL.
  */
 
 /**
