@@ -4,15 +4,15 @@ import type { PartitionFamily } from '../../src/core/family.js';
 import { lengthOf, partsOf, sizeOf, type Partition } from '../../src/core/partition.js';
 import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
 import { sampleSource } from '../../src/core/seeding.js';
-import { chiSquareTest } from '../support/chi-square.js';
 import { satisfies } from '../support/enumerate-constrained.js';
+import { exactlyPartsRows, fromSurvival, knapsackLaws, lawPValue, range, type Law } from '../support/recurrence-laws.js';
 
 /**
  * Methods forced through the planner's `method` option at mid sizes, where counting still works
  * (and mostly a table would still fit) but the planner already takes a non-table method: the law
  * of a statistic of the samples (smallest part, largest part, number of parts, multiplicity of
  * one size) against its exact law. The laws are computed here in doubles by additions of
- * positives only, from recurrences independent of the library's code:
+ * positives only, from recurrences independent of the library's code (test/support/recurrence-laws.ts):
  *   p(m, c), partitions of m into exactly c parts: p(m, c) = p(m − 1, c − 1) + p(m − c, c)
  *   (OEIS A008284; exactly c parts >= a: p(m − c(a − 1), c); exactly c distinct parts >= a:
  *   p(m − c(a − 1) − c(c − 1)/2, c), the staircase removed);
@@ -34,104 +34,19 @@ import { satisfies } from '../support/enumerate-constrained.js';
  * Pearson chi-square, cells pooled until each expects >= 20 samples (common practice), fixed
  * seeds; each statistic's test rejects an exact sampler with probability alpha = 1e-4 (project
  * convention), so the file's family-wise false-alarm probability is at most (number of
- * statistic tests, ~60) x 1e-4.
+ * statistic tests, ~80) x 1e-4 (< 1%).
  */
 const ALPHA = 1e-4;
 
-type Law = Map<number, number>;
 type Statistic = [name: string, value: (p: Partition) => number, law: Law];
 
 const partition = (spec: Omit<PartitionFamily, 'kind'>) => ({ kind: 'partition', ...spec }) as PartitionFamily;
 const bare = (id: string) => id.replace(/\/\d+/g, '');
 
-/** p(m, c) for m <= n, c <= kMax: rows[c][m] (doubles; additions only). */
-function exactlyPartsRows(n: number, kMax: number): Float64Array[] {
-  const rows = [new Float64Array(n + 1)];
-  rows[0][0] = 1;
-  for (let c = 1; c <= kMax; c++) {
-    const row = new Float64Array(n + 1);
-    const prev = rows[c - 1];
-    for (let m = c; m <= n; m++) row[m] = prev[m - 1] + row[m - c];
-    rows.push(row);
-  }
-  return rows;
-}
-
-/** The sizes lo..hi. */
-const range = (lo: number, hi: number) => Array.from({ length: hi - lo + 1 }, (_, i) => lo + i);
-
-/**
- * Knapsack over the sizes (ascending; 0/1 when distinct), tracking the number of parts c <= kMax:
- * the laws of the largest part and of the number of parts over members with kMin <= c <= kMax,
- * their count, and the final table ways[c][m] (members of m with c parts).
- */
-function knapsackLaws(n: number, sizes: readonly number[], distinct: boolean, kMin: number, kMax: number): { largest: Law; parts: Law; total: number; ways: Float64Array[] } {
-  const ways = Array.from({ length: kMax + 1 }, () => new Float64Array(n + 1));
-  ways[0][0] = 1;
-  const upTo: number[] = [];
-  for (const j of sizes) {
-    if (distinct) {
-      for (let c = kMax; c >= 1; c--) for (let m = n; m >= j; m--) ways[c][m] += ways[c - 1][m - j];
-    } else {
-      for (let c = 1; c <= kMax; c++) for (let m = j; m <= n; m++) ways[c][m] += ways[c - 1][m - j];
-    }
-    let members = 0;
-    for (let c = kMin; c <= kMax; c++) members += ways[c][n];
-    upTo.push(members);
-  }
-  const total = upTo[upTo.length - 1];
-  const largest: Law = new Map();
-  upTo.forEach((v, i) => {
-    const mass = v - (i === 0 ? 0 : upTo[i - 1]);
-    if (mass > 0) largest.set(sizes[i], mass / total);
-  });
-  const parts: Law = new Map();
-  for (let c = kMin; c <= kMax; c++) if (ways[c][n] > 0) parts.set(c, ways[c][n] / total);
-  return { largest, parts, total, ways };
-}
-
-/** A law from a survival function P(X >= v) given at v = from, from + 1, ... (0 past the support). */
-function fromSurvival(from: number, survival: (v: number) => number): Law {
-  const law: Law = new Map();
-  for (let v = from; ; v++) {
-    const here = survival(v);
-    if (here <= 0) break;
-    const mass = here - survival(v + 1);
-    if (mass > 0) law.set(v, mass);
-  }
-  return law;
-}
-
 /** The library's BigInt count agrees with a law's double total. */
 function checkTotal(family: PartitionFamily, total: number): void {
   const exact = Number(countPartitions(family, 1e8));
   expect(Math.abs(total / exact - 1)).toBeLessThan(1e-9);
-}
-
-/** Chi-square of observed values against a law, adjacent values pooled until each cell expects >= 20. */
-function lawPValue(observed: Map<number, number>, law: Law, samples: number): { pValue: number; cells: number } {
-  const values = [...law.keys()].sort((a, b) => a - b);
-  const o: number[] = [];
-  const p: number[] = [];
-  let ao = 0;
-  let ap = 0;
-  for (const v of values) {
-    ao += observed.get(v) ?? 0;
-    ap += law.get(v)!;
-    if (ap * samples >= 20) {
-      o.push(ao);
-      p.push(ap);
-      ao = 0;
-      ap = 0;
-    }
-  }
-  if (ap > 0 || ao > 0) {
-    o[o.length - 1] += ao;
-    p[p.length - 1] += ap;
-  }
-  // Values outside the law's support would be non-members, checked separately.
-  const { pValue } = chiSquareTest(o, p);
-  return { pValue, cells: o.length };
 }
 
 /**
