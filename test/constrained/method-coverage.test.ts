@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import type { PartitionFamily } from '../../src/core/family.js';
-import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
-import { chiSquareUniform } from '../support/chi-square-uniform.js';
-import { COVERED_ELSEWHERE, GAPPY, ONE_TO_14, shapeOf, type Case } from '../support/method-coverage-table.js';
+import { planCandidates } from '../../src/core/partitions/constrained/plan.js';
+import { METHOD_CASES, TABLE_CASES } from '../support/method-coverage-cases.js';
+import { checkForced } from '../support/method-coverage-check.js';
+import { COVERED_ELSEWHERE, GAPPY, ONE_TO_14, shapeOf } from '../support/method-coverage-table.js';
 
 /**
  * Coverage of the exactness tests of the partition samplers, by (method, constraint shape).
@@ -38,7 +39,7 @@ import { COVERED_ELSEWHERE, GAPPY, ONE_TO_14, shapeOf, type Case } from '../supp
  * | distinct-self-similar                  | D f (partitions/distinct-self-similar)                                 |                      |
  * | minpart-self-similar                   | a f (partitions/min-part-self-similar)                                 |                      |
  * | narrow-range-mixture                   | ab f (narrow-range-mixture)                                            |                      |
- * | table-sizes                            | D Db a b L p (uniformity-tables)                                       | 11 shapes (CASES)    |
+ * | table-sizes                            | D Db a b L p (uniformity-tables)                                       | 11 shapes            |
  * | table-lengths                          | k ak Dak p (uniformity-tables)                                         | 8 shapes             |
  * | table-sizes-lengths                    | K DK abK KL DkL p (uniformity-tables)                                  | 27 shapes (with DKL) |
  * | table-sizes+length-filter              | DK f (uniformity-length)                                               | 16 shapes            |
@@ -82,154 +83,22 @@ import { COVERED_ELSEWHERE, GAPPY, ONE_TO_14, shapeOf, type Case } from '../supp
  * file had; the last test checks that every pair the planner offers over a grid of small families
  * is covered, so a new method or shape fails it until it has a case.
  *
+ * The cases are in test/support/method-coverage-cases.ts: METHOD_CASES run here (38),
+ * TABLE_CASES (counting tables and the filters over them, 71) in method-coverage-tables.test.ts.
+ *
  * False alarms: each chi-square rejects an exact sampler with probability alpha = 1e-4 (project
- * convention); with the CASES.length tests here the family-wise false-alarm probability is at
- * most CASES.length x 1e-4 (~1%).
+ * convention); with the 109 cases of the two files the family-wise false-alarm probability is at
+ * most 109 x 1e-4 (~1%).
  */
-const ALPHA = 1e-4;
-
-/** [method (versions dropped), shape, family]: the pairs no other test file forced at small n. */
-const CASES: readonly Case[] = [
-  // Multiset Boltzmann over a list cut by minPart / maxPart.
-  ['allowed-boltzmann', 'aL', { n: 38, minPart: 5, allowed: ONE_TO_14 }],
-  ['allowed-boltzmann', 'bL', { n: 18, maxPart: 14, allowed: GAPPY }],
-  ['allowed-boltzmann', 'abL', { n: 32, minPart: 2, maxPart: 13, allowed: GAPPY }],
-  ['allowed-length-boltzmann', 'aKL', { n: 22, minPart: 2, maxLength: 5, allowed: ONE_TO_14 }],
-  ['allowed-length-boltzmann', 'abKL', { n: 33, minPart: 2, maxPart: 15, maxLength: 7, allowed: GAPPY }],
-  ['allowed-length-boltzmann', 'abkL', { n: 32, minPart: 2, maxPart: 9, length: 8, allowed: ONE_TO_14 }],
-  ['allowed-length-boltzmann', 'bKL', { n: 16, maxPart: 7, maxLength: 8, allowed: ONE_TO_14 }],
-  ['allowed-length-boltzmann', 'bkL', { n: 32, maxPart: 13, length: 10, allowed: GAPPY }],
-  ['allowed-subset', 'DabkL', { n: 44, distinct: true, minPart: 2, maxPart: 13, length: 6, allowed: ONE_TO_14 }],
-  ['allowed-subset', 'DakL', { n: 44, distinct: true, minPart: 2, length: 6, allowed: ONE_TO_14 }],
-  ['allowed-subset', 'DbkL', { n: 40, distinct: true, maxPart: 13, length: 6, allowed: ONE_TO_14 }],
-  // A box with one binding side: the one-sided sampler, keeping what fits the other side.
-  ['bounded-boltzmann+box-filter', 'abk', { n: 42, minPart: 2, maxPart: 10, length: 14 }],
-  ['bounded-boltzmann+box-filter', 'bk', { n: 37, maxPart: 6, length: 20 }],
-  ['bounded-boltzmann+conjugate+box-filter', 'Dabk', { n: 41, distinct: true, minPart: 2, maxPart: 20, length: 6 }],
-  ['bounded-boltzmann+conjugate+box-filter', 'Dbk', { n: 36, distinct: true, maxPart: 20, length: 6 }],
-  ['bounded-boltzmann+conjugate+box-filter', 'abk', { n: 37, minPart: 4, maxPart: 20, length: 5 }],
-  ['bounded-boltzmann+conjugate+box-filter', 'bk', { n: 22, maxPart: 17, length: 5 }],
-  // Conjugation (exactly k parts: parts <= k plus one part k; distinct: the staircase first).
-  ['bounded-boltzmann+conjugate', 'Dak', { n: 35, distinct: true, minPart: 2, length: 4 }],
-  ['bounded-boltzmann+conjugate', 'k', { n: 25, length: 4 }],
-  ['bounded-boltzmann', 'none', { n: 14 }],
-  ['bounded-self-similar+conjugate', 'Dak', { n: 35, distinct: true, minPart: 2, length: 4 }],
-  ['bounded-self-similar+conjugate', 'Dk', { n: 31, distinct: true, length: 4 }],
-  // The union of boxes over the number of parts, without a length constraint (at most n / lo parts fit).
-  ['box-mixture', 'D', { n: 24, distinct: true }],
-  ['box-mixture', 'DaK', { n: 37, distinct: true, minPart: 4, maxLength: 4 }],
-  ['box-mixture', 'Dab', { n: 30, distinct: true, minPart: 2, maxPart: 17 }],
-  ['box-mixture', 'Db', { n: 36, distinct: true, maxPart: 12 }],
-  ['box-mixture', 'ab', { n: 28, minPart: 2, maxPart: 6 }],
-  ['box-rotation', 'Dabk', { n: 35, distinct: true, minPart: 2, maxPart: 25, length: 4 }],
-  ['box-subset', 'Dabk', { n: 35, distinct: true, minPart: 2, maxPart: 30, length: 4 }],
-  ['box-subset', 'Dk', { n: 31, distinct: true, length: 4 }],
-  ['box-subset', 'K', { n: 21, maxLength: 4 }],
-  ['box-subset', 'ak', { n: 29, minPart: 2, length: 4 }],
-  // Distinct-part Boltzmann through the planner (other files build most of these directly).
-  ['distinct-boltzmann', 'D', { n: 24, distinct: true }],
-  ['distinct-boltzmann', 'Dab', { n: 30, distinct: true, minPart: 2, maxPart: 17 }],
-  ['distinct-boltzmann', 'Db', { n: 36, distinct: true, maxPart: 12 }],
-  ['distinct-boltzmann', 'DaL', { n: 36, distinct: true, minPart: 2, allowed: ONE_TO_14 }],
-  ['distinct-boltzmann', 'DbL', { n: 36, distinct: true, maxPart: 15, allowed: GAPPY }],
-  ['distinct-boltzmann', 'DabL', { n: 36, distinct: true, minPart: 2, maxPart: 16, allowed: GAPPY }],
-  // Counting tables forced where the planner picks another table (or a Boltzmann method).
-  ['table-lengths', 'D', { n: 24, distinct: true }],
-  ['table-lengths', 'DK', { n: 26, distinct: true, maxLength: 4 }],
-  ['table-lengths', 'Da', { n: 36, distinct: true, minPart: 4 }],
-  ['table-lengths', 'DaK', { n: 37, distinct: true, minPart: 4, maxLength: 4 }],
-  ['table-lengths', 'Dk', { n: 31, distinct: true, length: 4 }],
-  ['table-lengths', 'K', { n: 21, maxLength: 4 }],
-  ['table-lengths', 'a', { n: 29, minPart: 4 }],
-  ['table-lengths', 'aK', { n: 38, minPart: 2, maxLength: 3 }],
-  // The unrestricted table method, shifted into the box, keeping what fits.
-  ['table-recursive+box-filter', 'Dabk', { n: 37, distinct: true, minPart: 2, maxPart: 25, length: 5 }],
-  ['table-recursive+box-filter', 'Dak', { n: 37, distinct: true, minPart: 2, length: 5 }],
-  ['table-recursive+box-filter', 'Dbk', { n: 32, distinct: true, maxPart: 25, length: 5 }],
-  ['table-recursive+box-filter', 'Dk', { n: 32, distinct: true, length: 5 }],
-  ['table-recursive+box-filter', 'K', { n: 17, maxLength: 5 }],
-  ['table-recursive+box-filter', 'abk', { n: 32, minPart: 2, maxPart: 9, length: 8 }],
-  ['table-recursive+box-filter', 'ak', { n: 27, minPart: 2, length: 5 }],
-  ['table-recursive+box-filter', 'bK', { n: 16, maxPart: 7, maxLength: 8 }],
-  ['table-recursive+box-filter', 'bk', { n: 23, maxPart: 10, length: 6 }],
-  // The family without its length constraint, keeping the samples of the right length.
-  ['table-sizes+length-filter', 'Dabk', { n: 43, distinct: true, minPart: 4, maxPart: 25, length: 4 }],
-  ['table-sizes+length-filter', 'abk', { n: 31, minPart: 5, maxPart: 14, length: 4 }],
-  ['table-sizes+length-filter', 'DabkL', { n: 38, distinct: true, minPart: 2, maxPart: 13, length: 5, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'K', { n: 14, maxLength: 8 }],
-  ['table-sizes+length-filter', 'aK', { n: 32, minPart: 4, maxLength: 4 }],
-  ['table-sizes+length-filter', 'abK', { n: 25, minPart: 2, maxPart: 9, maxLength: 6 }],
-  ['table-sizes+length-filter', 'DbK', { n: 26, distinct: true, maxPart: 25, maxLength: 4 }],
-  ['table-sizes+length-filter', 'DaK', { n: 37, distinct: true, minPart: 4, maxLength: 4 }],
-  ['table-sizes+length-filter', 'DabK', { n: 37, distinct: true, minPart: 3, maxPart: 20, maxLength: 4 }],
-  ['table-sizes+length-filter', 'DaKL', { n: 35, distinct: true, minPart: 2, maxLength: 6, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'DabKL', { n: 35, distinct: true, minPart: 2, maxPart: 13, maxLength: 6, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'bK', { n: 16, maxPart: 7, maxLength: 8 }],
-  ['table-sizes+length-filter', 'DbKL', { n: 40, distinct: true, maxPart: 13, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'DKL', { n: 40, distinct: true, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'aKL', { n: 22, minPart: 2, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes+length-filter', 'abKL', { n: 33, minPart: 2, maxPart: 15, maxLength: 7, allowed: GAPPY }],
-  ['table-sizes', 'DL', { n: 26, distinct: true, allowed: ONE_TO_14 }],
-  ['table-sizes', 'Da', { n: 36, distinct: true, minPart: 4 }],
-  ['table-sizes', 'DaL', { n: 36, distinct: true, minPart: 2, allowed: ONE_TO_14 }],
-  ['table-sizes', 'Dab', { n: 30, distinct: true, minPart: 2, maxPart: 17 }],
-  ['table-sizes', 'DabL', { n: 36, distinct: true, minPart: 2, maxPart: 16, allowed: GAPPY }],
-  ['table-sizes', 'ab', { n: 28, minPart: 2, maxPart: 6 }],
-  ['table-sizes', 'aL', { n: 38, minPart: 5, allowed: ONE_TO_14 }],
-  ['table-sizes', 'abL', { n: 32, minPart: 2, maxPart: 13, allowed: GAPPY }],
-  ['table-sizes', 'bL', { n: 18, maxPart: 14, allowed: GAPPY }],
-  ['table-sizes', 'DbL', { n: 36, distinct: true, maxPart: 15, allowed: GAPPY }],
-  ['table-sizes', 'none', { n: 14 }],
-  ['table-sizes-lengths', 'k', { n: 25, length: 4 }],
-  ['table-sizes-lengths', 'Dk', { n: 31, distinct: true, length: 4 }],
-  ['table-sizes-lengths', 'ak', { n: 29, minPart: 2, length: 4 }],
-  ['table-sizes-lengths', 'Dak', { n: 35, distinct: true, minPart: 2, length: 4 }],
-  ['table-sizes-lengths', 'bk', { n: 26, maxPart: 17, length: 4 }],
-  ['table-sizes-lengths', 'Dbk', { n: 31, distinct: true, maxPart: 25, length: 4 }],
-  ['table-sizes-lengths', 'abk', { n: 29, minPart: 2, maxPart: 25, length: 4 }],
-  ['table-sizes-lengths', 'Dabk', { n: 35, distinct: true, minPart: 2, maxPart: 30, length: 4 }],
-  ['table-sizes-lengths', 'DaK', { n: 37, distinct: true, minPart: 4, maxLength: 4 }],
-  ['table-sizes-lengths', 'DabK', { n: 37, distinct: true, minPart: 3, maxPart: 20, maxLength: 4 }],
-  ['table-sizes-lengths', 'DbK', { n: 26, distinct: true, maxPart: 25, maxLength: 4 }],
-  ['table-sizes-lengths', 'aK', { n: 38, minPart: 2, maxLength: 3 }],
-  ['table-sizes-lengths', 'bK', { n: 16, maxPart: 7, maxLength: 8 }],
-  ['table-sizes-lengths', 'DaKL', { n: 36, distinct: true, minPart: 2, maxLength: 6, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DabKL', { n: 36, distinct: true, minPart: 2, maxPart: 13, maxLength: 6, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DabkL', { n: 44, distinct: true, minPart: 2, maxPart: 13, length: 6, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DakL', { n: 44, distinct: true, minPart: 2, length: 6, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DKL', { n: 40, distinct: true, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DbKL', { n: 40, distinct: true, maxPart: 13, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'DbkL', { n: 40, distinct: true, maxPart: 13, length: 6, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'aKL', { n: 22, minPart: 2, maxLength: 5, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'abKL', { n: 33, minPart: 2, maxPart: 15, maxLength: 7, allowed: GAPPY }],
-  ['table-sizes-lengths', 'abkL', { n: 32, minPart: 2, maxPart: 9, length: 8, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'akL', { n: 40, minPart: 4, length: 5, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'bKL', { n: 16, maxPart: 7, maxLength: 8, allowed: ONE_TO_14 }],
-  ['table-sizes-lengths', 'bkL', { n: 32, maxPart: 13, length: 10, allowed: GAPPY }],
-  ['table-sizes-lengths', 'kL', { n: 32, length: 10, allowed: GAPPY }],
-];
-
-const partition = (spec: Omit<PartitionFamily, 'kind'>) => ({ kind: 'partition', ...spec }) as PartitionFamily;
 const bare = (id: string) => id.replace(/\/\d+/g, '');
 
 describe('each (method, shape) pair the other files did not force is exact (chi-square over the enumerated family)', () => {
-  for (const [method, shape, spec] of CASES) {
-    it(`${method}, ${shape}: ${JSON.stringify(spec)}`, () => {
-      const family = partition(spec);
-      expect(shapeOf(family)).toBe(shape);
-      const sampler = constrainedPartitionSampler(family, { method });
-      expect(bare(sampler.method)).toBe(method);
-      const result = chiSquareUniform(family, sampler, `cov-${method}-${shape}`.replace(/\+/g, '.'));
-      expect(result.members).toBeGreaterThanOrEqual(20);
-      expect(result.strangers).toBe(0);
-      expect(result.pValue).toBeGreaterThan(ALPHA);
-    });
-  }
+  checkForced(METHOD_CASES);
 });
 
 describe('coverage table', () => {
   it('every pair the planner offers on a grid of small families has a forced chi-square (here or in another file)', () => {
-    const covered = new Set([...COVERED_ELSEWHERE.map(([m, s]) => `${m} ${s}`), ...CASES.map(([m, s]) => `${m} ${s}`)]);
+    const covered = new Set([...COVERED_ELSEWHERE.map(([m, s]) => `${m} ${s}`), ...[...METHOD_CASES, ...TABLE_CASES].map(([m, s]) => `${m} ${s}`)]);
     const offered = new Set<string>();
     const lists = [GAPPY, ONE_TO_14, [1, 2, 5, 10]];
     for (const n of [18, 26, 34]) {
