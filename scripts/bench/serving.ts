@@ -9,6 +9,8 @@
  *    both). Above 1 means the stream waited on something other than its own work.
  * 2. A fresh server (its own process, as `npm start` runs it, warm-up included): the first
  *    request for an n against the repeated ones, at n = 1e3, 1e6, 1e9 (fresh servers per n).
+ *    Beside them, the first /healthz after the idle second against repeated ones: the part of
+ *    a first request's time that no per-family work explains.
  * 3. Warm server, n = 1e9, as=multiplicities: the HTTP answer time (over loopback) against the
  *    core sampler alone on the same family; beside it, the floor of any Node server for that
  *    answer: a bare node:http handler that draws the sample with the same sampler, encodes it
@@ -112,6 +114,10 @@ const FRESH_SERVERS = 3;
 
 export async function coldOverWarm(): Promise<void> {
   await warmClient();
+  // The same first-after-idle ratio for /healthz, which does no per-family work: what waking an
+  // idle server costs any request on this machine (caches refilled after other processes ran).
+  const healthFirsts: number[] = [];
+  const healthRepeated: number[] = [];
   for (const n of [1e3, 1e6, 1e9]) {
     const firsts: number[] = [];
     const repeated: number[] = [];
@@ -122,15 +128,18 @@ export async function coldOverWarm(): Promise<void> {
         // Started and idle (the compilations its warm-up queued are done), as a server is when
         // its first client arrives; the connection is opened by a request to another path.
         await new Promise((done) => setTimeout(done, 1000));
-        await timeGet(`${server.origin}/healthz`);
+        healthFirsts.push((await timeGet(`${server.origin}/healthz`)).ms);
         firsts.push((await timeGet(url('first'))).ms);
         for (let r = 0; r < 5; r++) repeated.push((await timeGet(url(`again-${r}`))).ms);
+        for (let r = 0; r < 5; r++) healthRepeated.push((await timeGet(`${server.origin}/healthz`)).ms);
       } finally {
         await server.stop();
       }
     }
     row(`fresh server, n = ${n.toExponential(0)}: first / repeated request (medians, ${FRESH_SERVERS} servers)`, median(firsts), median(repeated), 'ms', 2);
   }
+  const [first, again] = [median(healthFirsts), median(healthRepeated)];
+  console.log(`| the same servers, GET /healthz after the idle second: first / repeated (medians, ${healthFirsts.length} servers) | ${first.toFixed(2)} ms | ${again.toFixed(2)} ms | ${(first / again).toFixed(2)} | (reference) | |`);
 }
 
 /**
