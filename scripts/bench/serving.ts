@@ -6,9 +6,12 @@
  *
  * 1. A streamed NDJSON body (about 1.7 MB, many 64 KiB chunks) from a real server in this
  *    process, read by a client in this process: wall time over the CPU time of the process (server and reader
- *    both). Above 1 means the stream waited on something other than its own work.
+ *    both). Above 1 means the stream waited on something other than its own work. Beside it,
+ *    the same ratio of a busy loop after each round: what waiting for a core adds here.
  * 2. A fresh server (its own process, as `npm start` runs it, warm-up included): the first
  *    request for an n against the repeated ones, at n = 1e3, 1e6, 1e9 (fresh servers per n).
+ *    Beside them, the first /healthz after the idle second against repeated ones: the part of
+ *    a first request's time that no per-family work explains.
  * 3. Warm server, n = 1e9, as=multiplicities: the HTTP answer time (over loopback) against the
  *    core sampler alone on the same family; beside it, the floor of any Node server for that
  *    answer: a bare node:http handler that draws the sample with the same sampler, encodes it
@@ -79,6 +82,7 @@ async function streamedWallOverCpu(origin: string): Promise<void> {
   const walls: number[] = [];
   const cpus: number[] = [];
   const ratios: number[] = [];
+  const loopRatios: number[] = [];
   let bytes = 0;
   for (let r = 0; r < 15; r++) {
     const cpu0 = process.cpuUsage();
@@ -88,6 +92,7 @@ async function streamedWallOverCpu(origin: string): Promise<void> {
     cpus.push((cpu.user + cpu.system) / 1000);
     ratios.push(got.ms / cpus[cpus.length - 1]);
     bytes = got.bytes;
+    loopRatios.push(busyLoopWallOverCpu(cpus[cpus.length - 1]));
   }
   // The ratio of each round, then their median: on a shared machine a round where this process
   // waited for a core counts as one round, not as a shift of the wall-time median only.
@@ -95,6 +100,28 @@ async function streamedWallOverCpu(origin: string): Promise<void> {
   console.log(
     `| streamed NDJSON (${(bytes / 1e6).toFixed(2)} MB, ${Math.ceil(bytes / 65536)} chunks): wall / CPU, median of per-round ratios | ${median(walls).toFixed(2)} ms | ${median(cpus).toFixed(2)} ms | ${ratio.toFixed(2)} | <= 1.1 | ${ratio <= 1.1 ? 'yes' : 'no'} |`,
   );
+  console.log(`| the same rounds, a busy loop of the stream's CPU time (no I/O): wall / CPU, median of per-round ratios | | | ${median(loopRatios).toFixed(2)} | (reference) | |`);
+}
+
+/**
+ * Wall over CPU time of arithmetic alone for about `cpuMs` of CPU: above 1 by however long this
+ * process waited for a core (the machine is shared), the part of the stream's ratio that is no
+ * wait of the stream's own.
+ */
+let loopSink = 0;
+
+function busyLoopWallOverCpu(cpuMs: number): number {
+  const cpu0 = process.cpuUsage();
+  const t0 = performance.now();
+  let x = 0;
+  for (;;) {
+    for (let i = 0; i < 100_000; i++) x = (x * 1103515245 + 12345) | 0;
+    const cpu = process.cpuUsage(cpu0);
+    if ((cpu.user + cpu.system) / 1000 >= cpuMs) {
+      loopSink = x; // kept, so that the loop is not dropped as dead code
+      return (performance.now() - t0) / ((cpu.user + cpu.system) / 1000);
+    }
+  }
 }
 
 /** A client warmed on a throwaway node:http server, so that its own first request is not timed. */
@@ -112,6 +139,10 @@ const FRESH_SERVERS = 3;
 
 export async function coldOverWarm(): Promise<void> {
   await warmClient();
+  // The same first-after-idle ratio for /healthz, which does no per-family work: what waking an
+  // idle server costs any request on this machine (caches refilled after other processes ran).
+  const healthFirsts: number[] = [];
+  const healthRepeated: number[] = [];
   for (const n of [1e3, 1e6, 1e9]) {
     const firsts: number[] = [];
     const repeated: number[] = [];
@@ -122,15 +153,18 @@ export async function coldOverWarm(): Promise<void> {
         // Started and idle (the compilations its warm-up queued are done), as a server is when
         // its first client arrives; the connection is opened by a request to another path.
         await new Promise((done) => setTimeout(done, 1000));
-        await timeGet(`${server.origin}/healthz`);
+        healthFirsts.push((await timeGet(`${server.origin}/healthz`)).ms);
         firsts.push((await timeGet(url('first'))).ms);
         for (let r = 0; r < 5; r++) repeated.push((await timeGet(url(`again-${r}`))).ms);
+        for (let r = 0; r < 5; r++) healthRepeated.push((await timeGet(`${server.origin}/healthz`)).ms);
       } finally {
         await server.stop();
       }
     }
     row(`fresh server, n = ${n.toExponential(0)}: first / repeated request (medians, ${FRESH_SERVERS} servers)`, median(firsts), median(repeated), 'ms', 2);
   }
+  const [first, again] = [median(healthFirsts), median(healthRepeated)];
+  console.log(`| the same servers, GET /healthz after the idle second: first / repeated (medians, ${healthFirsts.length} servers) | ${first.toFixed(2)} ms | ${again.toFixed(2)} ms | ${(first / again).toFixed(2)} | (reference) | |`);
 }
 
 /**

@@ -145,24 +145,28 @@ export class TableRecursiveSampler implements PartitionSampler {
   }
 
   /**
-   * Exact means, computed on first use (O(n log n)): E[X_k] = Σ_{j>=1} p(n − jk)/p(n) and
-   * P(X_k >= 1) = p(n − k)/p(n) (remove j parts k / one part k; Andrews 1976, ch. 1).
+   * Exact means, computed on first use: E[X_k] = Σ_{j>=1} p(n − jk)/p(n) and
+   * P(X_k >= 1) = p(n − k)/p(n) (remove j parts k / one part k; Andrews 1976, ch. 1). Summed
+   * over k, grouped by m = jk: E[length]·p(n) = Σ_{m=1..n} d(m)·p(n − m), with d(m) the number
+   * of divisors of m, and E[distinct]·p(n) = Σ_{m=0..n−1} p(m). One pass of n terms instead of
+   * the double loop's ~n ln n (n = 1000: about 2 against 60 µs, once per new n; bench: serving,
+   * "fresh server" rows).
    */
   private exactMeans(): { length: number; distinct: number } {
     if (this.estimates === null) {
       const n = this.n;
-      // p(0..n), read once from the triangle's diagonal: the loops below run ~n ln n times.
       const t = this.table.triangle();
-      const values = new Float64Array(n + 1);
-      for (let m = 0; m <= n; m++) values[m] = t[rowStart(m) + m];
-      const p = (m: number): number => values[m];
+      const divisors = divisorCounts(n);
       let length = 0;
       let distinct = 0;
-      for (let size = 1; size <= n; size++) {
-        distinct += p(n - size);
-        for (let rest = n - size; rest >= 0; rest -= size) length += p(rest);
+      for (let m = 1; m <= n; m++) {
+        const rest = n - m;
+        const p = t[rowStart(rest) + rest]; // p(n − m), the triangle's diagonal
+        length += divisors[m] * p;
+        distinct += p;
       }
-      this.estimates = n === 0 ? { length: 0, distinct: 0 } : { length: length / p(n), distinct: distinct / p(n) };
+      const all = t[rowStart(n) + n];
+      this.estimates = n === 0 ? { length: 0, distinct: 0 } : { length: length / all, distinct: distinct / all };
     }
     return this.estimates;
   }
@@ -173,4 +177,17 @@ export class TableRecursiveSampler implements PartitionSampler {
     sampleRestricted(this.table, source, this.n, this.n, sizes, multiplicities);
     return { sizes, multiplicities };
   }
+}
+
+/** d(m), the number of divisors of m, for m <= RestrictedPartitionTable.MAX_N (index 0 unused); made once. */
+let DIVISOR_COUNTS: Int32Array | undefined;
+
+function divisorCounts(upTo: number): Int32Array {
+  if (DIVISOR_COUNTS === undefined || DIVISOR_COUNTS.length <= upTo) {
+    const size = Math.max(upTo, RestrictedPartitionTable.MAX_N) + 1;
+    const counts = new Int32Array(size);
+    for (let k = 1; k < size; k++) for (let m = k; m < size; m += k) counts[m]++;
+    DIVISOR_COUNTS = counts;
+  }
+  return DIVISOR_COUNTS;
 }
