@@ -64,11 +64,15 @@ export class AllowedSubsetMixture implements PartitionSampler {
     let high = 0;
     let kFrom = Infinity;
     let kTo = 0;
+    // k parts sum to k s_1 modulo g, the gcd of the differences: only those k can have members.
+    let g = 0;
+    for (const v of values) g = gcd(g, v - values[0]);
+    const fitsResidue = (k: number) => g <= 1 || (n - k * values[0]) % g === 0;
     for (let k = 1; k <= Math.min(kMax, r); k++) {
       low += values[k - 1];
       high += values[r - k];
       if (low > n) break;
-      if (high >= n && k >= kMin) {
+      if (high >= n && k >= kMin && fitsResidue(k)) {
         kFrom = Math.min(kFrom, k);
         kTo = k;
       }
@@ -82,10 +86,10 @@ export class AllowedSubsetMixture implements PartitionSampler {
     // it has at most kTo parts on average, and two between; each judged by its estimated acceptance.
     const tilts = [solveSubsetTilt(values, n, kTo)];
     const free = freeTilt(values, n);
-    if (free !== null && Math.abs(free - tilts[0]) > 1e-12) tilts.push(free, tilts[0] + (free - tilts[0]) / 4, (tilts[0] + free) / 2);
+    if (free !== null && Math.abs(free - tilts[0]) > 1e-12 && freeCount(values, free) < kTo) tilts.push(free, (tilts[0] + free) / 2);
     let best: Setup | null = null;
     for (const t of tilts) {
-      const setup = build(values, n, total, kFrom, kTo, t);
+      const setup = build(values, n, total, kFrom, kTo, t, fitsResidue);
       if (best === null || setup.acceptance > best.acceptance) best = setup;
     }
     const b = best!;
@@ -177,7 +181,7 @@ interface Setup {
  * estimated acceptance sum_k N_k x^n / sum_k (e_(k-1) / R_k), N_k x^n ~ e_k P(design sum = n) by the
  * local limit of the k-design (Gaussian, the Bernoulli model's conditional moments at a grid of k).
  */
-function build(values: readonly number[], n: number, total: number, kFrom: number, kTo: number, t: number): Setup {
+function build(values: readonly number[], n: number, total: number, kFrom: number, kTo: number, t: number, fitsResidue: (k: number) => boolean): Setup {
   const r = values.length;
   const complement = t > 0;
   const sizes = values;
@@ -188,11 +192,20 @@ function build(values: readonly number[], n: number, total: number, kFrom: numbe
   // table[i * width + j] = e_j(i) / x^(sum of the j smallest sizes from i), j < width = to + 1.
   const width = to + 1;
   const table = new Float64Array((r + 1) * width);
+  // step[m] = x^(s_m - s_(m-1)): x^(s_(i+j) - s_i) as a running product along j (one multiply a
+  // cell instead of an exponential; products that underflow are below 1e-308 and stay 0).
+  const step = new Float64Array(r);
+  for (let m = 1; m < r; m++) step[m] = Math.exp(-s * (sizes[m] - sizes[m - 1]));
   for (let i = r; i >= 0; i--) {
     table[i * width] = 1;
     const top = Math.min(width - 1, r - i);
+    let factor = 1;
     for (let j = 1; j <= top; j++) {
-      const skip = j <= r - i - 1 ? table[(i + 1) * width + j] * Math.exp(-s * (sizes[i + j] - sizes[i])) : 0;
+      let skip = 0;
+      if (j <= r - i - 1) {
+        factor *= step[i + j];
+        skip = table[(i + 1) * width + j] * factor;
+      }
       table[i * width + j] = skip + table[(i + 1) * width + j - 1];
     }
   }
@@ -207,7 +220,8 @@ function build(values: readonly number[], n: number, total: number, kFrom: numbe
     prefix += sizes[k - 1];
     rho = k === 1 ? 1 : rho * Math.exp(-s * (sizes[k - 1] - sizes[k - 2])) + 1;
     if (k < from) continue;
-    const lw = Math.log(table[k - 1]) - s * prefix - Math.log(rho);
+    // Numbers of parts whose sums miss n's residue have no members: weight 0.
+    const lw = fitsResidue(complement ? r - k : k) ? Math.log(table[k - 1]) - s * prefix - Math.log(rho) : -Infinity;
     logWeight[k - from] = lw;
     if (lw > maxLog) maxLog = lw;
   }
@@ -227,6 +241,7 @@ function build(values: readonly number[], n: number, total: number, kFrom: numbe
   // over those with weight above e^-30 of the largest (each standing for its stretch).
   const heavy: number[] = [];
   for (let q = 0; q < count; q++) if (logWeight[q] - maxLog > -30) heavy.push(q);
+  // (-Infinity weights are left out above and have cumulative steps of 0: never drawn.)
   const stride = Math.max(1, Math.ceil(heavy.length / 16));
   const prefixes = new Float64Array(to + 2);
   for (let k = 1; k <= Math.min(to + 1, r); k++) prefixes[k] = prefixes[k - 1] + sizes[k - 1];
@@ -302,4 +317,11 @@ function countMoments(sizes: readonly number[], s: number, k: number, start: num
     u -= Math.max(-4, Math.min(4, g / vL));
   }
   return { u, mean: mN, variance: vL > 0 ? vN - (c * c) / vL : vN };
+}
+
+/** Mean count of the size tilt alone at ln x = t. */
+function freeCount(values: readonly number[], t: number): number {
+  let m = 0;
+  for (const v of values) m += 1 / (1 + Math.exp(-t * v));
+  return m;
 }
