@@ -111,10 +111,18 @@ export class AllowedSubsetMixture implements PartitionSampler {
   }
 
   sample(source: RandomSource): Partition {
+    return this.search(source, Infinity)!;
+  }
+
+  /**
+   * The sampler's proposals, at most `proposals` of them: the member accepted, or null. A member
+   * found proves the family is not empty (length-feasibility.ts uses it as a witness search).
+   */
+  search(source: RandomSource, proposals: number): Partition | null {
     const { target, sizes, s, width, table, chosen, ks, cumulative } = this;
     const r = sizes.length;
     const last = cumulative.length - 1;
-    for (;;) {
+    for (let trial = 0; trial < proposals; trial++) {
       // k by its cumulative weight (binary search).
       const u = source.nextDouble() * cumulative[last];
       let lo = 0;
@@ -160,6 +168,7 @@ export class AllowedSubsetMixture implements PartitionSampler {
       }
       return { sizes: parts, multiplicities: parts.map(() => 1) };
     }
+    return null;
   }
 }
 

@@ -1,3 +1,6 @@
+import type { RandomSource } from '../../random.js';
+import { AllowedSubsetMixture } from './allowed-subset-mixture.js';
+
 /**
  * Whether a partition of n with parts from an allowed list S (ascending) has between kMin and
  * kMax parts, decided without counting tables where a closed form or a small search does it.
@@ -158,7 +161,7 @@ function distinctFeasible(values: readonly number[], n: number, kMin: number, kM
   const words = Math.ceil((n + 1) / 32);
   if (r * (kMax + 1) * words > workLimit) {
     for (let k = Math.max(kMin, 1); k <= kMax; k++) if (greedyWitness(values, n, k)) return true;
-    return undefined;
+    return samplerWitness(values, n, Math.max(kMin, 1), kMax, workLimit);
   }
   const rows: Uint32Array[] = [];
   for (let k = 0; k <= kMax; k++) rows.push(new Uint32Array(words));
@@ -216,4 +219,57 @@ function greedyWitness(values: readonly number[], n: number, k: number): boolean
     chosen[t] = lo;
   }
   return sum === n;
+}
+
+/** Work bound (table cells plus proposals x sizes) of the witness search below. */
+const WITNESS_WORK = 4e6;
+
+/**
+ * A member found by the sampler's own proposals (allowed-subset-mixture.ts, fixed seed, at most
+ * WITNESS_WORK steps): true when one is accepted (it is checked to be a member), else undefined —
+ * a search that finds nothing decides nothing. Lists with large gaps between sizes, where the
+ * greedy witness misses, are decided this way when their family is not sparse.
+ */
+function samplerWitness(values: readonly number[], n: number, kMin: number, kMax: number, workLimit: number): boolean | undefined {
+  const r = values.length;
+  const cells = r * (kMax + 1);
+  if (kMax >= r || cells > Math.min(workLimit, WITNESS_WORK) / 2) return undefined;
+  let sampler: AllowedSubsetMixture;
+  try {
+    sampler = new AllowedSubsetMixture(values, n, kMin, kMax);
+  } catch (error) {
+    // No number of parts in [kMin, kMax] fits the sums' bounds and residues: empty.
+    if (error instanceof RangeError && error.message.includes('needs a family with members')) return false;
+    throw error;
+  }
+  const proposals = Math.floor((Math.min(workLimit, WITNESS_WORK) - sampler.setupWork) / (r + 1));
+  if (proposals < 1) return undefined;
+  const found = sampler.search(witnessSource(), proposals);
+  if (found === null) return undefined;
+  const allowed = new Set(values);
+  let sum = 0;
+  for (const part of found.sizes) sum += part;
+  const ok = sum === n && found.sizes.length >= kMin && found.sizes.length <= kMax && new Set(found.sizes).size === found.sizes.length && found.sizes.every((p) => allowed.has(p));
+  return ok ? true : undefined;
+}
+
+/** A fixed xorshift128+ stream for the witness search (its outcome is a function of the family only). */
+function witnessSource(): RandomSource {
+  let a = 0x9e3779b9;
+  let b = 0x243f6a88;
+  let c = 0xb7e15162;
+  let d = 0x85a308d3;
+  const next = () => {
+    // xorshift128 (Marsaglia 2003), 32-bit words.
+    const t = a ^ (a << 11);
+    a = b;
+    b = c;
+    c = d;
+    d = (d ^ (d >>> 19) ^ (t ^ (t >>> 8))) >>> 0;
+    return d;
+  };
+  return {
+    nextUint32: next,
+    nextDouble: () => ((next() >>> 5) * 67108864 + (next() >>> 6)) / 2 ** 53,
+  };
 }
