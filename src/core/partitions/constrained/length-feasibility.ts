@@ -12,7 +12,7 @@ import { AllowedSubsetMixture } from './allowed-subset-mixture.js';
  * N this is a shortest path over the residues modulo d = max D (the round-robin method for
  * Frobenius problems, Böcker & Lipták 2007): an element e < d costs d - e and adds e, and d itself
  * is free, so a sum of V with C elements costs d C - V; N is reachable with at most c elements
- * iff some sum V <= N with V = N (mod d) has d C - V <= c d - N. Dijkstra gives, per residue, the
+ * iff some sum V <= N with V = N (mod d) has d C - V <= c d - N. The round-robin pass gives, per residue, the
  * cheapest cost and the smallest V attaining it; when that V exceeds N, a table of the fewest
  * elements for each value up to N decides instead.
  *
@@ -55,7 +55,7 @@ function fewestAtMost(D: readonly number[], N: number, c: number, workLimit: num
   if (N > c * d) return false;
   // Small N: the fewest elements for every value up to N.
   if (!pathsOnly && D.length * N <= workLimit && N <= 5e6) return fewestTable(D, N) <= c;
-  if (d * D.length * 20 > workLimit) return undefined;
+  if (d * D.length * 2 > workLimit) return undefined;
   const { cost, value } = residuePaths(D, d);
   const rho = N % d;
   if (cost[rho] === Infinity) return false;
@@ -80,56 +80,36 @@ function fewestTable(D: readonly number[], N: number): number {
   return fewest[N];
 }
 
-/** Dijkstra over residues mod d: least d C - V per residue and the smallest V attaining it. */
+/**
+ * Least d C - V per residue mod d and the smallest V attaining it: the round-robin pass of
+ * feasibility.ts (Böcker & Lipták 2007) with the lexicographic weight (d - e, e) per element e < d;
+ * each element's pass goes once around each cycle p -> p + e mod d from its least entry, which is
+ * exact for positive weights (a shortest path never wraps a whole cycle). O(|D| d) steps, replacing
+ * a binary-heap Dijkstra (O(|D| d log d), with allocations per push).
+ */
 function residuePaths(D: readonly number[], d: number): { cost: Float64Array; value: Float64Array } {
   const cost = new Float64Array(d).fill(Infinity);
   const value = new Float64Array(d).fill(Infinity);
   cost[0] = 0;
   value[0] = 0;
-  // Binary heap of [cost, value, residue].
-  const heap: Array<[number, number, number]> = [[0, 0, 0]];
-  const less = (x: [number, number, number], y: [number, number, number]) => x[0] < y[0] || (x[0] === y[0] && x[1] < y[1]);
-  const push = (item: [number, number, number]) => {
-    heap.push(item);
-    let i = heap.length - 1;
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (!less(heap[i], heap[p])) break;
-      [heap[i], heap[p]] = [heap[p], heap[i]];
-      i = p;
-    }
-  };
-  const pop = (): [number, number, number] => {
-    const top = heap[0];
-    const last = heap.pop()!;
-    if (heap.length > 0) {
-      heap[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1;
-        const rr = l + 1;
-        let m = i;
-        if (l < heap.length && less(heap[l], heap[m])) m = l;
-        if (rr < heap.length && less(heap[rr], heap[m])) m = rr;
-        if (m === i) break;
-        [heap[i], heap[m]] = [heap[m], heap[i]];
-        i = m;
-      }
-    }
-    return top;
-  };
-  while (heap.length > 0) {
-    const [c, v, rho] = pop();
-    if (c > cost[rho] || (c === cost[rho] && v > value[rho])) continue;
-    for (const e of D) {
-      if (e === d) continue;
-      const next = (rho + e) % d;
-      const nc = c + (d - e);
-      const nv = v + e;
-      if (nc < cost[next] || (nc === cost[next] && nv < value[next])) {
-        cost[next] = nc;
-        value[next] = nv;
-        push([nc, nv, next]);
+  const less = (c1: number, v1: number, p: number) => c1 < cost[p] || (c1 === cost[p] && v1 < value[p]);
+  for (const e of D) {
+    if (e === d) continue;
+    const cycles = gcdOf(d, e);
+    const cycleLength = d / cycles;
+    for (let p = 0; p < cycles; p++) {
+      let start = p;
+      for (let q = p, i = 0; i < cycleLength; i++, q = (q + e) % d) if (less(cost[q], value[q], start)) start = q;
+      if (cost[start] === Infinity) continue;
+      for (let q = start, i = 0; i < cycleLength; i++) {
+        const next = (q + e) % d;
+        const nc = cost[q] + (d - e);
+        const nv = value[q] + e;
+        if (less(nc, nv, next)) {
+          cost[next] = nc;
+          value[next] = nv;
+        }
+        q = next;
       }
     }
   }
