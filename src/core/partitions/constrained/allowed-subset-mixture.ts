@@ -133,16 +133,28 @@ export class AllowedSubsetMixture implements PartitionSampler {
         else lo = mid + 1;
       }
       const k = ks[lo];
-      // A (k-1)-subset from the design, ascending.
+      // A (k-1)-subset from the design, ascending. Each next element by inversion with one
+      // uniform V: position i is taken the first time V >= S (1 - p_i), S the probability of
+      // having skipped the positions since the last element (p_i = take / here); a fresh V and
+      // S = 1 once S < 2^-20 (given no element yet, the rest is independent of the past), so the
+      // walk costs one random number per element instead of one per position.
       let j = k - 1;
       let count = 0;
       let sum = 0;
+      let v = j > 0 ? source.nextDouble() : 0;
+      let survive = 1;
       for (let i = 0; i < r && j > 0; i++) {
-        if (source.nextDouble() * table[i * width + j] < table[(i + 1) * width + j - 1]) {
+        const stay = survive * (1 - table[(i + 1) * width + j - 1] / table[i * width + j]);
+        if (v >= stay) {
           chosen[count++] = sizes[i];
           sum += sizes[i];
           j--;
-        }
+          if (j > 0) v = source.nextDouble();
+          survive = 1;
+        } else if (stay < 9.5367431640625e-7) {
+          v = source.nextDouble();
+          survive = 1;
+        } else survive = stay;
       }
       const w = target - sum;
       if (!this.allowed.has(w)) continue;
