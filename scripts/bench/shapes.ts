@@ -116,6 +116,11 @@ export const DISTINCT_ALLOWED_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 1_000_000, distinct: true, allowed: scattered(1000, 10_000) },
   { kind: 'partition', n: 10_000_000, distinct: true, allowed: scattered(1000, 1_000_000) },
   { kind: 'partition', n: 100_000_000, distinct: true, allowed: scattered(1000, 1_000_000) },
+  // With a binding maxLength (allowed-subset-mixture).
+  { kind: 'partition', n: 100_000, distinct: true, allowed: Array.from({ length: 500 }, (_, i) => 2 * i + 1), maxLength: 120 },
+  { kind: 'partition', n: 1_000_000, distinct: true, allowed: Array.from({ length: 1000 }, (_, i) => 1000 + 7 * i), maxLength: 150 },
+  { kind: 'partition', n: 300_000, distinct: true, allowed: Array.from({ length: 1000 }, (_, i) => i + 1), maxLength: 400 },
+  { kind: 'partition', n: 1_000_000, distinct: true, allowed: scattered(1000, 10_000), maxLength: 150 },
 ];
 
 const SIZES = [1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
@@ -282,7 +287,7 @@ function benchDistinctAllowed(widths: number[]): void {
   console.log(row(['list', 'n', 'method', 'setup ms', 'ms/sample', 'proposal ms', 'ratio'], widths));
   for (const family of DISTINCT_ALLOWED_ROWS) {
     const list = family.allowed!;
-    const name = `${list.length} sizes in [${list[0]}, ${list[list.length - 1]}]`;
+    const name = `${list.length} sizes in [${list[0]}, ${list[list.length - 1]}]${family.maxLength === undefined ? '' : `, <= ${family.maxLength} parts`}`;
     const cell = measure(family);
     const label = family.n.toExponential(0).replace('+', '');
     if (typeof cell === 'string') console.log(row([name, label, cell, '', '', '', ''], widths));
@@ -297,7 +302,7 @@ function benchDistinctAllowed(widths: number[]): void {
 export async function benchShapes(): Promise<void> {
   const sizes = process.env.SHAPES_SIZES ? process.env.SHAPES_SIZES.split(',').map(Number) : SIZES;
   if (process.argv.includes('distinct-allowed')) {
-    benchDistinctAllowed([36, 6, 34, 9, 10, 11, 7]);
+    benchDistinctAllowed([48, 6, 34, 9, 10, 11, 7]);
     return;
   }
   console.log('\n## Constrained family shapes: ms per exact sample (planner choice) and ratio to one free proposal, same run');

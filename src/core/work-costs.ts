@@ -75,6 +75,7 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'narrow-range-mixture/1': 50,
   'allowed-length-boltzmann/1': 70,
   'allowed-subset/1': 30,
+  'allowed-subset-mixture/1': 30,
   // Compositions (src/core/compositions).
   'single/1': 10,
   'gap-bits/1': 30,
@@ -135,6 +136,7 @@ export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
   'table-lengths/1': 12,
   'table-sizes-lengths/1': 15,
   'allowed-subset/1': 40,
+  'allowed-subset-mixture/1': 40,
   'distinct-boltzmann/1': 25,
   'minpart-self-similar/1': 1.4,
   'bounded-self-similar/1': 1.4,

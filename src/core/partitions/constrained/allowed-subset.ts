@@ -149,7 +149,7 @@ function sumRange(values: readonly number[], from: number, count: number): numbe
  * ln x of the two-tilt Bernoulli model over S with mean size n and mean count k (damped Newton
  * on the convex cumulant function, as allowed-length-boltzmann.ts); only speed depends on it.
  */
-function solveSubsetTilt(values: readonly number[], n: number, k: number): number {
+export function solveSubsetTilt(values: readonly number[], n: number, k: number): number {
   let t = 0;
   let u = Math.log(k / Math.max(values.length - k, 0.5));
   const objective = (tt: number, uu: number) => {

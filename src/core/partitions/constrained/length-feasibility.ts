@@ -1,3 +1,6 @@
+import type { RandomSource } from '../../random.js';
+import { AllowedSubsetMixture } from './allowed-subset-mixture.js';
+
 /**
  * Whether a partition of n with parts from an allowed list S (ascending) has between kMin and
  * kMax parts, decided without counting tables where a closed form or a small search does it.
@@ -9,7 +12,7 @@
  * N this is a shortest path over the residues modulo d = max D (the round-robin method for
  * Frobenius problems, Böcker & Lipták 2007): an element e < d costs d - e and adds e, and d itself
  * is free, so a sum of V with C elements costs d C - V; N is reachable with at most c elements
- * iff some sum V <= N with V = N (mod d) has d C - V <= c d - N. Dijkstra gives, per residue, the
+ * iff some sum V <= N with V = N (mod d) has d C - V <= c d - N. The round-robin pass gives, per residue, the
  * cheapest cost and the smallest V attaining it; when that V exceeds N, a table of the fewest
  * elements for each value up to N decides instead.
  *
@@ -52,7 +55,7 @@ function fewestAtMost(D: readonly number[], N: number, c: number, workLimit: num
   if (N > c * d) return false;
   // Small N: the fewest elements for every value up to N.
   if (!pathsOnly && D.length * N <= workLimit && N <= 5e6) return fewestTable(D, N) <= c;
-  if (d * D.length * 20 > workLimit) return undefined;
+  if (d * D.length * 2 > workLimit) return undefined;
   const { cost, value } = residuePaths(D, d);
   const rho = N % d;
   if (cost[rho] === Infinity) return false;
@@ -77,56 +80,36 @@ function fewestTable(D: readonly number[], N: number): number {
   return fewest[N];
 }
 
-/** Dijkstra over residues mod d: least d C - V per residue and the smallest V attaining it. */
+/**
+ * Least d C - V per residue mod d and the smallest V attaining it: the round-robin pass of
+ * feasibility.ts (Böcker & Lipták 2007) with the lexicographic weight (d - e, e) per element e < d;
+ * each element's pass goes once around each cycle p -> p + e mod d from its least entry, which is
+ * exact for positive weights (a shortest path never wraps a whole cycle). O(|D| d) steps, replacing
+ * a binary-heap Dijkstra (O(|D| d log d), with allocations per push).
+ */
 function residuePaths(D: readonly number[], d: number): { cost: Float64Array; value: Float64Array } {
   const cost = new Float64Array(d).fill(Infinity);
   const value = new Float64Array(d).fill(Infinity);
   cost[0] = 0;
   value[0] = 0;
-  // Binary heap of [cost, value, residue].
-  const heap: Array<[number, number, number]> = [[0, 0, 0]];
-  const less = (x: [number, number, number], y: [number, number, number]) => x[0] < y[0] || (x[0] === y[0] && x[1] < y[1]);
-  const push = (item: [number, number, number]) => {
-    heap.push(item);
-    let i = heap.length - 1;
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (!less(heap[i], heap[p])) break;
-      [heap[i], heap[p]] = [heap[p], heap[i]];
-      i = p;
-    }
-  };
-  const pop = (): [number, number, number] => {
-    const top = heap[0];
-    const last = heap.pop()!;
-    if (heap.length > 0) {
-      heap[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1;
-        const rr = l + 1;
-        let m = i;
-        if (l < heap.length && less(heap[l], heap[m])) m = l;
-        if (rr < heap.length && less(heap[rr], heap[m])) m = rr;
-        if (m === i) break;
-        [heap[i], heap[m]] = [heap[m], heap[i]];
-        i = m;
-      }
-    }
-    return top;
-  };
-  while (heap.length > 0) {
-    const [c, v, rho] = pop();
-    if (c > cost[rho] || (c === cost[rho] && v > value[rho])) continue;
-    for (const e of D) {
-      if (e === d) continue;
-      const next = (rho + e) % d;
-      const nc = c + (d - e);
-      const nv = v + e;
-      if (nc < cost[next] || (nc === cost[next] && nv < value[next])) {
-        cost[next] = nc;
-        value[next] = nv;
-        push([nc, nv, next]);
+  const less = (c1: number, v1: number, p: number) => c1 < cost[p] || (c1 === cost[p] && v1 < value[p]);
+  for (const e of D) {
+    if (e === d) continue;
+    const cycles = gcdOf(d, e);
+    const cycleLength = d / cycles;
+    for (let p = 0; p < cycles; p++) {
+      let start = p;
+      for (let q = p, i = 0; i < cycleLength; i++, q = (q + e) % d) if (less(cost[q], value[q], start)) start = q;
+      if (cost[start] === Infinity) continue;
+      for (let q = start, i = 0; i < cycleLength; i++) {
+        const next = (q + e) % d;
+        const nc = cost[q] + (d - e);
+        const nv = value[q] + e;
+        if (less(nc, nv, next)) {
+          cost[next] = nc;
+          value[next] = nv;
+        }
+        q = next;
       }
     }
   }
@@ -158,7 +141,7 @@ function distinctFeasible(values: readonly number[], n: number, kMin: number, kM
   const words = Math.ceil((n + 1) / 32);
   if (r * (kMax + 1) * words > workLimit) {
     for (let k = Math.max(kMin, 1); k <= kMax; k++) if (greedyWitness(values, n, k)) return true;
-    return undefined;
+    return samplerWitness(values, n, Math.max(kMin, 1), kMax, workLimit);
   }
   const rows: Uint32Array[] = [];
   for (let k = 0; k <= kMax; k++) rows.push(new Uint32Array(words));
@@ -216,4 +199,57 @@ function greedyWitness(values: readonly number[], n: number, k: number): boolean
     chosen[t] = lo;
   }
   return sum === n;
+}
+
+/** Work bound (table cells plus proposals x sizes) of the witness search below. */
+const WITNESS_WORK = 4e6;
+
+/**
+ * A member found by the sampler's own proposals (allowed-subset-mixture.ts, fixed seed, at most
+ * WITNESS_WORK steps): true when one is accepted (it is checked to be a member), else undefined —
+ * a search that finds nothing decides nothing. Lists with large gaps between sizes, where the
+ * greedy witness misses, are decided this way when their family is not sparse.
+ */
+function samplerWitness(values: readonly number[], n: number, kMin: number, kMax: number, workLimit: number): boolean | undefined {
+  const r = values.length;
+  const cells = r * (kMax + 1);
+  if (kMax >= r || cells > Math.min(workLimit, WITNESS_WORK) / 2) return undefined;
+  let sampler: AllowedSubsetMixture;
+  try {
+    sampler = new AllowedSubsetMixture(values, n, kMin, kMax);
+  } catch (error) {
+    // No number of parts in [kMin, kMax] fits the sums' bounds and residues: empty.
+    if (error instanceof RangeError && error.message.includes('needs a family with members')) return false;
+    throw error;
+  }
+  const proposals = Math.floor((Math.min(workLimit, WITNESS_WORK) - sampler.setupWork) / (r + 1));
+  if (proposals < 1) return undefined;
+  const found = sampler.search(witnessSource(), proposals);
+  if (found === null) return undefined;
+  const allowed = new Set(values);
+  let sum = 0;
+  for (const part of found.sizes) sum += part;
+  const ok = sum === n && found.sizes.length >= kMin && found.sizes.length <= kMax && new Set(found.sizes).size === found.sizes.length && found.sizes.every((p) => allowed.has(p));
+  return ok ? true : undefined;
+}
+
+/** A fixed xorshift128+ stream for the witness search (its outcome is a function of the family only). */
+function witnessSource(): RandomSource {
+  let a = 0x9e3779b9;
+  let b = 0x243f6a88;
+  let c = 0xb7e15162;
+  let d = 0x85a308d3;
+  const next = () => {
+    // xorshift128 (Marsaglia 2003), 32-bit words.
+    const t = a ^ (a << 11);
+    a = b;
+    b = c;
+    c = d;
+    d = (d ^ (d >>> 19) ^ (t ^ (t >>> 8))) >>> 0;
+    return d;
+  };
+  return {
+    nextUint32: next,
+    nextDouble: () => ((next() >>> 5) * 67108864 + (next() >>> 6)) / 2 ** 53,
+  };
 }

@@ -1,13 +1,15 @@
 import type { PartitionSampler } from '../../sampler.js';
 import { AllowedLengthBoltzmann } from './allowed-length-boltzmann.js';
 import { AllowedSubset } from './allowed-subset.js';
+import { AllowedSubsetMixture } from './allowed-subset-mixture.js';
 import { partsHint, SAMPLE_WORK_CEILING, samplerCandidate, type LengthPlanInput } from './length-candidate.js';
 import type { PlanCandidate } from './plan.js';
 
 /**
  * Allowed lists of sizes with a length constraint (`values` ascending): a single size (its one
  * member), k distinct sizes of the list (the subset design, allowed-subset.ts; the one member when
- * the k smallest or k largest sum to n), any multiplicities (allowed-length-boltzmann.ts).
+ * the k smallest or k largest sum to n), at most K distinct sizes (one design for every k,
+ * allowed-subset-mixture.ts), any multiplicities (allowed-length-boltzmann.ts).
  */
 export function listLengthCandidates(input: LengthPlanInput, values: readonly number[]): PlanCandidate[] {
   const { spec } = input;
@@ -26,6 +28,12 @@ export function listLengthCandidates(input: LengthPlanInput, values: readonly nu
     // The k smallest or k largest sizes summing to n: the only member (the tilt would diverge).
     if (edge !== undefined) out.push(samplerCandidate(input, singleMember(edge.slice().reverse())));
     else if (input.fits(cells, 0)) out.push(samplerCandidate(input, new AllowedSubset(v, n, k), cells));
+  } else if (distinct && spec.maxLength !== undefined && spec.maxLength < values.length) {
+    // At most K distinct sizes of the list: one subset design for every k <= K (r x K numbers).
+    if (input.fits(values.length * (spec.maxLength + 1), 0)) {
+      const sampler = new AllowedSubsetMixture(values, n, 1, spec.maxLength);
+      out.push(samplerCandidate(input, sampler, sampler.setupWork));
+    }
   } else if (!distinct) {
     // Proposals grow about linearly with the number of parts (2-D local limit).
     const sampler = new AllowedLengthBoltzmann(values, n, parts, spec.length === undefined);

@@ -29,8 +29,9 @@ export { mixtureEntries, mixtureSampler } from './mixture-candidate.js';
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
  * - "conjugate-mixture/1" (conjugate-mixture.ts): at most K parts >= lo >= 2 (any maxPart), as the
  *   conjugate (k^lo) ∪ ν with ν's parts <= k, the number of parts k drawn under the same tilt;
- * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities) and "allowed-subset/1"
- *   (allowed lists, distinct parts, exactly k): the subset design over the list;
+ * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities), "allowed-subset/1"
+ *   (allowed lists, distinct parts, exactly k) and "allowed-subset-mixture/1" (distinct, at most
+ *   K): the subset design over the list;
  * - "bounded-boltzmann/1+conjugate" and "bounded-self-similar/1+conjugate": no upper bound on
  *   the parts, by conjugation (parts <= k; the self-similar one is estimated faster for k near √n/4 from n ~ 1e7);
  * - "<method>+length-filter": the family without its length constraint, keeping the samples that

@@ -215,9 +215,14 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     );
   }
   if (hasLength) {
+    // Distinct parts from a list whose reachability was left undecided (length-feasibility.ts): say which n the table holds.
+    const undecidedHint =
+      distinct && sizes.kind === 'list' && feasible === undefined
+        ? `deciding whether ${spec.length !== undefined ? 'exactly' : 'at most'} ${kMax} of these ${r} sizes sum to n takes too long here; with these sizes and this number of parts n up to about ${about(TABLE_CELL_LIMIT / ((r + 1) * (kMax + 1)) - 1)} fits`
+        : undefined;
     table('table-sizes-lengths/1', (r + 1) * (kMax + 1) * (n + 1), kMax + r + shape.expectedLength, () =>
       sizeLengthTableSampler(sizeList(sizes), n, distinct, kMin, kMax, shape),
-    );
+    undecidedHint);
   }
 
   const bestTable = Math.min(...out.filter((c) => c.fits).map(planCostNs), Infinity);
