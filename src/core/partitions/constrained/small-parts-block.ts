@@ -41,7 +41,10 @@ export class SmallPartsBlock {
     if (!(Number.isInteger(j) && j >= 3 && t < 0)) throw new RangeError('small-parts block needs j >= 3 and t < 0');
     this.limit = SmallPartsBlock.limitFor(j, t);
     const a = new Float64Array(this.limit + 1);
-    for (let m = 0; m <= this.limit; m++) a[m] = Math.exp(t * m);
+    // x^m: an exponential every 64 values, products between (relative error <= 64 roundings;
+    // the exponentials alone took as long as the j passes).
+    const x = Math.exp(t);
+    for (let m = 0; m <= this.limit; m++) a[m] = (m & 63) === 0 ? Math.exp(t * m) : a[m - 1] * x;
     for (let i = 2; i <= j; i++) {
       const xi = Math.exp(t * i);
       for (let m = i; m <= this.limit; m++) a[m] += xi * a[m - i];
