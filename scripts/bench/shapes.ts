@@ -93,6 +93,14 @@ export const ISSUE_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 1_000_000, distinct: true, minPart: 50, maxPart: 5000 },
   { kind: 'partition', n: 26_977_122, minPart: 4226, maxPart: 105_077, maxLength: 2835 },
   { kind: 'partition', n: 840_000_000, minPart: 55_093, maxPart: 58_395 },
+  // Length-constrained families with many parts (scans; conjugate-mixture/2's block of small sizes).
+  { kind: 'partition', n: 904_000_000, minPart: 187, maxLength: 23_013 },
+  { kind: 'partition', n: 942_808_405, minPart: 1218, maxLength: 52_671 },
+  { kind: 'partition', n: 91_216_410, minPart: 31, maxLength: 6330 },
+  // Boxes with both sides large (box-subset's ~k^1.5 work; the first is refused).
+  { kind: 'partition', n: 963_007_124, minPart: 16_800, maxPart: 111_605, length: 29_954 },
+  { kind: 'partition', n: 1_000_000_000, distinct: true, minPart: 4939, maxPart: 110_341, length: 17_255 },
+  { kind: 'partition', n: 350_000_000, minPart: 206, maxPart: 80_725, maxLength: 5431 },
 ];
 
 /** A fixed list of `count` distinct sizes in [1, max] (Park–Miller minimal standard, seed 99). */

@@ -69,8 +69,9 @@ export const NS_PER_STEP: Readonly<Record<string, number>> = {
   'box-rotation/1': 50,
   // Per estimated step (one geometric draw per size <= k, a logarithm each): 65-85 ns of CPU
   // per sample / expectedWork at n = 1e6 (parts >= 10, at most 500) and 1e8 (parts >= 2 and >= 50,
-  // at most 5000; proposals 53-74 against 65 estimated), loaded 2-core machine.
-  'conjugate-mixture/1': 75,
+  // at most 5000; proposals 53-74 against 65 estimated), loaded 2-core machine. /2 with its block
+  // of smallest sizes: 35-68 ns (n = 1e8-9.4e8, K = 5000-52671; its table counted at 1/20 unit per addition).
+  'conjugate-mixture/2': 75,
   // In box-rotation draws (box-subset's steps converted, narrow-range-mixture.ts).
   'narrow-range-mixture/1': 50,
   'allowed-length-boltzmann/1': 70,
@@ -145,7 +146,7 @@ export const NS_PER_SETUP_UNIT: Readonly<Record<string, number>> = {
   'narrow-range-mixture/1': 60,
   'distinct-self-similar/1': 48,
   // The tilt's Newton sums and the weights over k: 55-220 ns per unit (n = 8e8-9e8, K = 1.9e4-5.3e4).
-  'conjugate-mixture/1': 100,
+  'conjugate-mixture/2': 100,
 };
 
 /** Nanoseconds per unit of setupWork of a method (wrapped ids by their base; else its step). */

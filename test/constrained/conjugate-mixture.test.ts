@@ -2,6 +2,7 @@ import chisquareCdf from '@stdlib/stats-base-dists-chisquare-cdf';
 import { describe, expect, it } from 'vitest';
 import type { PartitionFamily } from '../../src/core/family.js';
 import { ConjugateMixture } from '../../src/core/partitions/constrained/conjugate-mixture.js';
+import { SmallPartsBlock } from '../../src/core/partitions/constrained/small-parts-block.js';
 import { constrainedPartitionSampler, planCandidates } from '../../src/core/partitions/constrained/plan.js';
 import { sampleSource } from '../../src/core/seeding.js';
 import { chiSquareUniform } from '../support/chi-square-uniform.js';
@@ -23,13 +24,15 @@ describe('conjugate-mixture is exact (chi-square over the enumerated family)', (
     ['at most K parts in [lo, hi] (step 4 rejects)', { n: 38, minPart: 2, maxPart: 11, maxLength: 6 }],
     ['K = n / lo reached', { n: 40, minPart: 6, maxLength: 5 }],
     ['one or two parts (k <= 2: no geometric sizes)', { n: 24, minPart: 5, maxLength: 2 }],
-    ["at most K parts >= lo, more parts", { n: 40, minPart: 2, maxLength: 8 }],
+    ["at most K parts >= lo, more parts (sizes 1..4 determined together)", { n: 40, minPart: 2, maxLength: 8 }],
+    ['sizes 1..5 determined together, k below and above the block', { n: 44, minPart: 2, maxLength: 10 }],
+    ['sizes 1..3 determined together, step 4 rejects', { n: 44, minPart: 2, maxPart: 9, maxLength: 7 }],
   ];
   for (const [name, spec] of cases) {
     it(`${name}: ${JSON.stringify(spec)}`, () => {
       const family = { kind: 'partition', ...spec } as PartitionFamily;
       const sampler = constrainedPartitionSampler(family, { method: 'conjugate-mixture' });
-      expect(sampler.method).toBe('conjugate-mixture/1');
+      expect(sampler.method).toBe('conjugate-mixture/2');
       const result = chiSquareUniform(family, sampler, `cmix-${name.replace(/[^A-Za-z0-9]+/g, '-')}`.slice(0, 64));
       expect(result.members).toBeGreaterThan(5);
       expect(result.strangers).toBe(0);
@@ -100,10 +103,34 @@ describe('conjugate-mixture: exact laws of the largest part and the number of pa
   });
 });
 
+describe('conjugate-mixture: the block of smallest sizes', () => {
+  it('weights p_j(m) x^m match partition counts into parts <= j, in the table and beyond it', () => {
+    const j = 5;
+    const t = -0.05;
+    const block = new SmallPartsBlock(j, t);
+    const top = block.limit + 300;
+    // p[m]: partitions of m into parts <= j (one size at a time; Andrews 1976, §1.2).
+    const p = new Float64Array(top + 1);
+    p[0] = 1;
+    for (let i = 1; i <= j; i++) for (let m = i; m <= top; m++) p[m] += p[m - i];
+    for (const m of [0, 1, 7, 40, block.limit, block.limit + 1, block.limit + 299]) {
+      const exact = p[m] * Math.exp(t * m);
+      expect(Math.abs(block.weight(m) - exact)).toBeLessThanOrEqual(1e-12 * exact);
+      for (const u of [0.001, 0.3, 0.999]) expect(block.accepts(u, m)).toBe(u * block.bound < block.weight(m));
+    }
+  });
+
+  it('chooses a block only when the mixture has at least twice its sizes', () => {
+    expect(new ConjugateMixture(34, 3, 34, 5).j).toBe(0);
+    expect(new ConjugateMixture(40, 2, 40, 8).j).toBe(4);
+    expect(new ConjugateMixture(400, 3, 400, 30).j).toBe(15);
+  });
+});
+
 describe('conjugate-mixture: planning', () => {
   it('serves at most 23013 parts >= 187 at n = 904177401 (refused before: box-mixture alone)', () => {
     const family = { kind: 'partition', n: 904177401, minPart: 187, maxLength: 23013 } as PartitionFamily;
-    const candidate = planCandidates(family).find((c) => c.method === 'conjugate-mixture/1');
+    const candidate = planCandidates(family).find((c) => c.method === 'conjugate-mixture/2');
     expect(candidate?.fits).toBe(true);
   });
 

@@ -66,8 +66,15 @@ const large: Array<{ family: PartitionFamily; method: string; heads: Array<[numb
   },
   {
     family: { kind: 'partition', n: 1_000_000, minPart: 10, maxLength: 500 },
-    method: 'conjugate-mixture/1',
+    // conjugate-mixture/2 keeps /1's draws where no block of smallest sizes is chosen (here).
+    method: 'conjugate-mixture/2',
     heads: [[500, [13816, 11145, 9993, 9655, 8899]], [500, [14984, 11675, 11311, 10974, 10930]], [499, [12291, 11685, 11561, 10353, 10131]]],
+  },
+  {
+    // Recorded for conjugate-mixture/2 with the sizes 1..5 determined together.
+    family: { kind: 'partition', n: 100_000_000, minPart: 50, maxLength: 5000 },
+    method: 'conjugate-mixture/2',
+    heads: [[5000, [225999, 189533, 168126, 164945, 163849]], [5000, [182442, 169516, 159724, 145873, 137114]], [4998, [178095, 160968, 141156, 128698, 127851]]],
   },
 ];
 

@@ -82,7 +82,7 @@ export function conjugateMixtureCandidate(input: LengthPlanInput, lo: number, hi
   if (top < 1 || lo < 2) return null;
   const setupWork = CONJUGATE_MIXTURE_SETUP_PER_PART * top;
   if (!input.fits(setupWork, 0)) {
-    return { method: 'conjugate-mixture/1', setupWork, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('conjugate mixture over its setup limit'); }, hint: partsHint(input.fits(0, 0) ? top / 2 : 1) };
+    return { method: 'conjugate-mixture/2', setupWork, sampleWork: Infinity, fits: false, build: () => { throw new RangeError('conjugate mixture over its setup limit'); }, hint: partsHint(input.fits(0, 0) ? top / 2 : 1) };
   }
   const sampler = new ConjugateMixture(n, lo, hi, K);
   // Work grows like K^1.5 (proposals ~ sqrt(K), each ~ K draws); with a binding maxPart it is

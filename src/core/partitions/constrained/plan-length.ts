@@ -27,7 +27,7 @@ export { mixtureEntries, mixtureSampler } from './mixture-candidate.js';
  *   box-rotation is cheaper than box-subset's least work);
  * - "box-mixture/1" (box-mixture.ts): at most K parts with minPart > 1 or distinct parts, as the
  *   union over k of boxes, one tilt kept across consecutive k (setup O(K), measured by building);
- * - "conjugate-mixture/1" (conjugate-mixture.ts): at most K parts >= lo >= 2 (any maxPart), as the
+ * - "conjugate-mixture/2" (conjugate-mixture.ts): at most K parts >= lo >= 2 (any maxPart), as the
  *   conjugate (k^lo) ∪ ν with ν's parts <= k, the number of parts k drawn under the same tilt;
  * - "allowed-length-boltzmann/1" (allowed lists, any multiplicities), "allowed-subset/1"
  *   (allowed lists, distinct parts, exactly k) and "allowed-subset-mixture/1" (distinct, at most

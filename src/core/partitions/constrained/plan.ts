@@ -72,7 +72,7 @@ import { nsPerSetupUnit, nsPerStep } from '../../work-costs.js';
  *   `maxLength` are planned by plan-length.ts: any combination up to n = 1e9 while the short side
  *   of their box (number of parts or range of part sizes) is up to ~2e4 (work ~ side^1.5); at most
  *   K parts >= minPart >= 2 (maxPart rarely binding) up to K ~ 5e4 at 1e9 through the conjugate
- *   (conjugate-mixture, ~0.1 s per sample at K = 2.3e4, n = 9e8, which was refused before).
+ *   (conjugate-mixture, ~50-80 ms per sample at K = 2.3e4, n = 9e8, which was refused before).
  * - n <= 1e9, allowed lists <= 1000 sizes (validation, spec.ts).
  * A family no method fits throws LimitExceededError naming the limit. Empty families throw
  * EmptyFamilyError; contradictory bounds (minPart > maxPart, length > n) throw RangeError.
