@@ -1,7 +1,7 @@
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
-import { BoxMixture, MixtureSetupExceeded, type MixtureEntry } from './constrained/box-mixture.js';
+import { BoxMixture, MixtureSetupExceeded, mixtureWeights, type MixtureEntry } from './constrained/box-mixture.js';
 import { BoxRotation } from './constrained/box-rotation.js';
 import { BoxSubset, type Box } from './constrained/box-subset.js';
 import { logQPochhammer } from './constrained/subset-design.js';
@@ -103,25 +103,13 @@ export class NarrowRangeMixture implements PartitionSampler {
     });
     this.rotated = rotated;
     this.parts = entries.map((e) => e.parts);
-    const top = Math.max(...logWeights);
-    this.cumulative = new Float64Array(entries.length);
-    let total = 0;
-    let success = 0;
-    let parts = 0;
-    let cost = 0;
-    for (let i = 0; i < entries.length; i++) {
-      const weight = Math.exp(logWeights[i] - top);
-      total += weight;
-      this.cumulative[i] = total;
-      success += weight * rates[i];
-      parts += weight * rates[i] * this.parts[i];
-      cost += weight * costs[i];
-    }
-    const proposals = total / success;
-    this.expectedLength = parts / success;
+    const mixed = mixtureWeights(logWeights, rates, this.parts, costs);
+    this.cumulative = mixed.cumulative;
+    const proposals = mixed.expectedProposals;
+    this.expectedLength = mixed.expectedParts;
     // Parts near a + (b − a)/2 on average, of b − a + 1 possible sizes.
     this.expectedDistinct = Math.min(this.expectedLength, b - a + 1);
-    this.expectedWork = proposals * (cost / total + Math.log2(entries.length + 1)) + this.expectedDistinct;
+    this.expectedWork = proposals * (mixed.meanProposalCost + Math.log2(entries.length + 1)) + this.expectedDistinct;
     this.setupWork = setup;
   }
 
