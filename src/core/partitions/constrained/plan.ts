@@ -270,10 +270,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
       const sampler = new BoundedSelfSimilarSampler(n, Math.max(1, sizes.lo), Math.min(sizes.hi, n));
       prepared(sampler, sampler.fitsLimits());
     }
-    if (!distinct && sizes.kind === 'interval' && NarrowRangeMixture.applies(n, sizes.lo, sizes.hi)) {
+    // Distinct parts only where nothing above fits (the families served before keep their method).
+    const distinctNarrow = distinct && (includeAll || !out.some((c) => c.fits));
+    if ((!distinct || distinctNarrow) && sizes.kind === 'interval' && NarrowRangeMixture.applies(n, sizes.lo, sizes.hi, distinct)) {
       // Parts in a narrow range of large sizes (few numbers of parts): the union over k of boxes,
-      // box-rotation near half full and box-subset elsewhere (narrow-range-mixture.ts).
-      const sampler = NarrowRangeMixture.within(n, sizes.lo, sizes.hi, TABLE_CELL_LIMIT);
+      // box-rotation near half full and box-subset elsewhere (narrow-range-mixture.ts); for
+      // distinct parts through the staircase.
+      const sampler = NarrowRangeMixture.within(n, sizes.lo, sizes.hi, TABLE_CELL_LIMIT, distinct);
       if (sampler !== null) prepared(sampler, true);
     }
   }
