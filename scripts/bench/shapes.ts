@@ -55,6 +55,8 @@ export const SHAPES: Array<[string, Shape]> = [
   ['minPart=7,maxPart=sqrt(n)', (n) => ({ minPart: 7, maxPart: root(n) })],
   // A narrow range of large parts (few numbers of parts fit; narrow-range-mixture).
   ['narrow,minPart=1.9sqrt(n),maxPart=2.014sqrt(n)', (n) => ({ minPart: Math.round(1.9 * root(n)), maxPart: Math.round(2.014 * root(n)) })],
+  // Distinct parts in a narrow range of large sizes (narrow-range-mixture through the staircase; as issue 13's 3.5e8 row).
+  ['distinct,narrow,minPart=2.69sqrt(n),maxPart=3.74sqrt(n)', (n) => ({ distinct: true, minPart: Math.round(2.69 * root(n)), maxPart: Math.round(3.74 * root(n)) })],
   ['minPart=7,length=sqrt(n)/4', (n) => ({ minPart: 7, length: Math.ceil(root(n) / 4) })],
   ['minPart=7,maxLength=sqrt(n)/4', (n) => ({ minPart: 7, maxLength: Math.ceil(root(n) / 4) })],
   // A maxLength that binds hard (the free mean number of parts >= 7 is ~2e5 at 1e9): conjugate-mixture.
@@ -101,6 +103,7 @@ export const ISSUE_ROWS: PartitionFamily[] = [
   { kind: 'partition', n: 963_007_124, minPart: 16_800, maxPart: 111_605, length: 29_954 },
   { kind: 'partition', n: 1_000_000_000, distinct: true, minPart: 4939, maxPart: 110_341, length: 17_255 },
   { kind: 'partition', n: 350_000_000, minPart: 206, maxPart: 80_725, maxLength: 5431 },
+  { kind: 'partition', n: 350_000_000, distinct: true, minPart: 50_318, maxPart: 69_965 },
 ];
 
 /** A fixed list of `count` distinct sizes in [1, max] (Park–Miller minimal standard, seed 99). */

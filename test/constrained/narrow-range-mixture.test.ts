@@ -7,6 +7,7 @@ import { chiSquareTest } from '../support/chi-square.js';
 import { chiSquareUniform } from '../support/chi-square-uniform.js';
 import { pooled } from '../support/distinct-part-count-law.js';
 import { assertValidPartition } from '../support/partition-checks.js';
+import { countsByParts, distinctCountsByParts } from '../support/narrow-range-counts.js';
 
 /**
  * narrow-range-mixture (parts in a narrow range [a, b] of large sizes: the union over the number
@@ -49,33 +50,46 @@ describe('narrow-range-mixture is exact over enumerated families', () => {
   }
 });
 
-/**
- * Partitions of n into exactly k parts in [a, b], k = 0..n/a, as doubles (additions of positives):
- * the parts minus a are a partition of n − k a into at most k parts <= b − a, counted by the
- * knapsack recurrence over exactly j parts in [1, b − a].
- */
-function countsByParts(n: number, a: number, b: number): number[] {
-  const K = Math.floor(n / a);
-  const w = b - a;
-  const E = Math.min(n, K * w);
-  const c = Array.from({ length: K + 1 }, () => new Float64Array(E + 1));
-  c[0][0] = 1;
-  for (let s = 1; s <= w; s++) {
-    for (let j = 1; j <= K; j++) {
-      const row = c[j];
-      const prev = c[j - 1];
-      for (let m = s; m <= E; m++) row[m] += prev[m - s];
+describe('narrow-range-mixture is exact over enumerated families of distinct parts (staircase)', () => {
+  // 101-193 members each, 3-4 numbers of parts.
+  const cases: Array<[number, number, number]> = [
+    [40, 3, 15],
+    [45, 4, 16],
+    [48, 2, 14],
+  ];
+  for (const [n, a, b] of cases) {
+    it(`planner-forced, distinct parts in [${a}, ${b}] at n = ${n}`, () => {
+      const family = partition({ n, distinct: true, minPart: a, maxPart: b });
+      const sampler = constrainedPartitionSampler(family, { method: 'narrow-range-mixture' });
+      expect(sampler.method).toBe('narrow-range-mixture/1');
+      const result = chiSquareUniform(family, sampler, `narrow-distinct-${n}-${a}-${b}`);
+      expect(result.members).toBeGreaterThan(100);
+      expect(result.strangers).toBe(0);
+      expect(result.pValue).toBeGreaterThan(ALPHA);
+    });
+    it(`box-rotation at every k it applies to, distinct parts in [${a}, ${b}] at n = ${n}`, () => {
+      const family = partition({ n, distinct: true, minPart: a, maxPart: b });
+      const sampler = new NarrowRangeMixture(n, a, b, { distinct: true, rotation: 'always' });
+      expect(sampler.rotated.filter(Boolean).length).toBeGreaterThan(1);
+      const result = chiSquareUniform(family, sampler, `narrow-distinct-rot-${n}-${a}-${b}`);
+      expect(result.strangers).toBe(0);
+      expect(result.pValue).toBeGreaterThan(ALPHA);
+    });
+  }
+
+  it('the numbers of parts of distinct parts in [a, b] are those with k a + C(k, 2) <= n <= k b − C(k, 2)', () => {
+    for (const [n, a, b] of [
+      [40, 3, 15],
+      [20_000, 400, 700],
+      [350_000_000, 50_318, 69_965],
+    ]) {
+      const [first, last] = NarrowRangeMixture.partsRange(n, a, b, true);
+      const fits = (k: number) => k >= 1 && k <= b - a + 1 && k * a + (k * (k - 1)) / 2 <= n && n <= k * b - (k * (k - 1)) / 2;
+      expect(fits(first) && fits(last)).toBe(true);
+      expect(fits(first - 1) || fits(last + 1)).toBe(false);
     }
-  }
-  const out: number[] = [];
-  for (let k = 0; k <= K; k++) {
-    const e = n - k * a;
-    let total = 0;
-    if (e >= 0 && e <= E) for (let j = 0; j <= k; j++) total += c[j][e];
-    out.push(total);
-  }
-  return out;
-}
+  });
+});
 
 describe('narrow-range-mixture: the number of parts has its exact law', () => {
   it('parts in [601, 637] at n = 1e5 (the planner takes it; box-rotation serves the centre)', () => {
@@ -105,6 +119,46 @@ describe('narrow-range-mixture: the number of parts has its exact law', () => {
     const bins = pooled(observed, law, samples);
     expect(bins.probabilities.length).toBeGreaterThan(3);
     expect(chiSquareTest(bins.observed, bins.probabilities).pValue).toBeGreaterThan(ALPHA);
+  });
+});
+
+describe('narrow-range-mixture: the number of distinct parts has its exact law', () => {
+  it('distinct parts in [400, 700] at n = 2e4 (forced; 18 numbers of parts, box-rotation at the centre)', () => {
+    const n = 20_000;
+    const a = 400;
+    const b = 700;
+    const family = partition({ n, distinct: true, minPart: a, maxPart: b });
+    const sampler = constrainedPartitionSampler(family, { method: 'narrow-range-mixture' });
+    expect((sampler as NarrowRangeMixture).rotated.some(Boolean)).toBe(true);
+    const counts = distinctCountsByParts(n, a, b);
+    const total = counts.reduce((x, y) => x + y, 0);
+    const law = counts.map((c) => c / total);
+    const samples = 3000;
+    const observed = new Array<number>(law.length).fill(0);
+    for (let i = 0; i < samples; i++) {
+      const p = sampler.sample(sampleSource('narrow-distinct-parts-law', i, 'n2e4'));
+      if (i < 20) assertValidPartition(p, n);
+      for (let j = 0; j < p.sizes.length; j++) {
+        expect(p.multiplicities[j]).toBe(1);
+        expect(p.sizes[j]).toBeGreaterThanOrEqual(a);
+        expect(p.sizes[j]).toBeLessThanOrEqual(b);
+      }
+      observed[p.sizes.length]++;
+    }
+    const bins = pooled(observed, law, samples);
+    expect(bins.probabilities.length).toBeGreaterThan(3);
+    expect(chiSquareTest(bins.observed, bins.probabilities).pValue).toBeGreaterThan(ALPHA);
+  });
+
+  it('serves the distinct narrow range {n: 3.5e8, parts in [50318, 69965]} (refused before)', () => {
+    const family = partition({ n: 350_000_000, distinct: true, minPart: 50_318, maxPart: 69_965 });
+    const sampler = constrainedPartitionSampler(family);
+    expect(sampler.method).toBe('narrow-range-mixture/1');
+    const p = sampler.sample(sampleSource('narrow-distinct-huge', 0, 'x'));
+    assertValidPartition(p, 350_000_000);
+    expect(p.multiplicities.every((m) => m === 1)).toBe(true);
+    expect(p.sizes[0]).toBeLessThanOrEqual(69_965);
+    expect(p.sizes[p.sizes.length - 1]).toBeGreaterThanOrEqual(50_318);
   });
 });
 

@@ -26,3 +26,27 @@ describe('planner: narrow ranges of large parts go to the union of boxes', () =>
     }
   });
 });
+
+// Distinct parts in a narrow range: the union of k x (b - a - k + 1) boxes (staircase) is offered
+// only where nothing else fits, so the families box-mixture served keep it (and their seeds).
+describe('planner: distinct parts in a narrow range of large sizes', () => {
+  it('keeps box-mixture where it fits (n = 1e7, parts in [8508, 11830])', () => {
+    const sampler = constrainedPartitionSampler({ kind: 'partition', n: 10_000_000, distinct: true, minPart: 8508, maxPart: 11_830 });
+    expect(sampler.method).toBe('box-mixture/1');
+  });
+  it('serves n = 1e9, parts in [85066, 118270] (nothing else fits) by narrow-range-mixture', () => {
+    const n = 1_000_000_000;
+    const sampler = constrainedPartitionSampler({ kind: 'partition', n, distinct: true, minPart: 85_066, maxPart: 118_270 });
+    expect(sampler.method).toBe('narrow-range-mixture/1');
+    const p = sampler.sample(sampleSource('narrow-distinct', 0, 'test'));
+    let total = 0;
+    p.sizes.forEach((s, j) => {
+      expect(p.multiplicities[j]).toBe(1);
+      expect(s).toBeGreaterThanOrEqual(85_066);
+      expect(s).toBeLessThanOrEqual(118_270);
+      if (j > 0) expect(s).toBeLessThan(p.sizes[j - 1]);
+      total += s;
+    });
+    expect(total).toBe(n);
+  });
+});

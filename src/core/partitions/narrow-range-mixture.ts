@@ -1,9 +1,10 @@
 import type { Partition } from '../partition.js';
 import type { RandomSource } from '../random.js';
 import type { PartitionSampler } from '../sampler.js';
-import { BoxMixture, MixtureSetupExceeded, type MixtureEntry } from './constrained/box-mixture.js';
+import { BoxMixture, MixtureSetupExceeded, mixtureWeights, type MixtureEntry } from './constrained/box-mixture.js';
 import { BoxRotation } from './constrained/box-rotation.js';
 import { BoxSubset, type Box } from './constrained/box-subset.js';
+import { exactBox, shiftMap, staircaseMap } from './constrained/box-maps.js';
 import { logQPochhammer } from './constrained/subset-design.js';
 import { logGamma } from '../counting/binomial.js';
 
@@ -30,6 +31,11 @@ import { logGamma } from '../counting/binomial.js';
  * cost O(k') draws against box-subset's thinning over k' + k positions: ~5x fewer nanoseconds per
  * sample at n = 8.4e8, parts in [55093, 58395] (`npm run bench -- shapes`, narrow-huge rows).
  *
+ * Distinct parts (option `distinct`): k distinct parts in [a, b] less the staircase (k − 1, ..., 1, 0)
+ * and a are a partition of n − k a − k(k − 1)/2 into at most k parts <= b − a − k + 1 (box-maps.ts's
+ * staircase), so the family is again a union over k of boxes, k from the least with
+ * k b − k(k − 1)/2 >= n to the most with k a + k(k − 1)/2 <= n; the same mixture serves it.
+ *
  * Method id "narrow-range-mixture/1".
  */
 export class NarrowRangeMixture implements PartitionSampler {
@@ -52,13 +58,14 @@ export class NarrowRangeMixture implements PartitionSampler {
     readonly n: number,
     readonly a: number,
     readonly b: number,
-    options: { readonly rotation?: 'auto' | 'never' | 'always'; readonly setupLimit?: number } = {},
+    options: { readonly rotation?: 'auto' | 'never' | 'always'; readonly setupLimit?: number; readonly distinct?: boolean } = {},
   ) {
+    const distinct = options.distinct === true;
     if (!Number.isInteger(a) || !Number.isInteger(b) || !Number.isInteger(n) || a < 1 || b <= a || b >= n) {
       throw new RangeError(`need integers 1 <= a < b < n, got a = ${a}, b = ${b}, n = ${n}`);
     }
-    const entries = heavyEntries(narrowEntries(n, a, b), n, a, b - a);
-    if (entries.length === 0) throw new RangeError(`no partition of ${n} into parts in [${a}, ${b}]`);
+    const entries = heavyEntries(narrowEntries(n, a, b, distinct), n, a, b, distinct);
+    if (entries.length === 0) throw new RangeError(`no partition of ${n} into ${distinct ? 'distinct ' : ''}parts in [${a}, ${b}]`);
     const mixture = new BoxMixture(entries, (_k, rows) => rows, (k) => k, { polish: false, setupLimit: options.setupLimit });
     let setup = mixture.estimates.setupWork;
     const logWeights: number[] = [];
@@ -75,8 +82,8 @@ export class NarrowRangeMixture implements PartitionSampler {
       const subsetWork = design.expectedProposals * subsetCost;
       const rotation = options.rotation === 'never' ? null : rotationEstimate(entry.box);
       const rotationWork = rotation === null ? Infinity : rotation.expectedProposals * rotation.proposalCost + rotation.placeCost;
-      const lo = a;
       const k = entry.parts;
+      const map = distinct ? staircaseMap(a, k) : shiftMap(a, k);
       if (rotation !== null && (rotationWork < subsetWork || (options.rotation === 'always' && rotation.expectedProposals <= 64))) {
         const sampler = new BoxRotation(entry.box);
         const { k: side, M, d } = sampler.estimate;
@@ -87,7 +94,7 @@ export class NarrowRangeMixture implements PartitionSampler {
         rotated.push(true);
         this.proposers.push((source) => {
           const rows = sampler.propose(source);
-          return rows === null ? null : shiftParts(rows, lo, k);
+          return rows === null ? null : map(rows);
         });
       } else {
         const sampler = new BoxSubset(design, buffer);
@@ -97,31 +104,19 @@ export class NarrowRangeMixture implements PartitionSampler {
         rotated.push(false);
         this.proposers.push((source) => {
           const rows = sampler.propose(source);
-          return rows === null ? null : shiftParts(rows, lo, k);
+          return rows === null ? null : map(rows);
         });
       }
     });
     this.rotated = rotated;
     this.parts = entries.map((e) => e.parts);
-    const top = Math.max(...logWeights);
-    this.cumulative = new Float64Array(entries.length);
-    let total = 0;
-    let success = 0;
-    let parts = 0;
-    let cost = 0;
-    for (let i = 0; i < entries.length; i++) {
-      const weight = Math.exp(logWeights[i] - top);
-      total += weight;
-      this.cumulative[i] = total;
-      success += weight * rates[i];
-      parts += weight * rates[i] * this.parts[i];
-      cost += weight * costs[i];
-    }
-    const proposals = total / success;
-    this.expectedLength = parts / success;
+    const mixed = mixtureWeights(logWeights, rates, this.parts, costs);
+    this.cumulative = mixed.cumulative;
+    const proposals = mixed.expectedProposals;
+    this.expectedLength = mixed.expectedParts;
     // Parts near a + (b − a)/2 on average, of b − a + 1 possible sizes.
-    this.expectedDistinct = Math.min(this.expectedLength, b - a + 1);
-    this.expectedWork = proposals * (cost / total + Math.log2(entries.length + 1)) + this.expectedDistinct;
+    this.expectedDistinct = distinct ? this.expectedLength : Math.min(this.expectedLength, b - a + 1);
+    this.expectedWork = proposals * (mixed.meanProposalCost + Math.log2(entries.length + 1)) + this.expectedDistinct;
     this.setupWork = setup;
   }
 
@@ -146,25 +141,40 @@ export class NarrowRangeMixture implements PartitionSampler {
   static readonly MAX_PARTS_RANGE = 20_000;
 
   /** Whether the planner offers it: 2 <= a < b < n and at most MAX_PARTS_RANGE numbers of parts. */
-  static applies(n: number, a: number, b: number): boolean {
+  static applies(n: number, a: number, b: number, distinct = false): boolean {
     if (!(a >= 2 && b > a && b < n)) return false;
-    const [first, last] = NarrowRangeMixture.partsRange(n, a, b);
+    const [first, last] = NarrowRangeMixture.partsRange(n, a, b, distinct);
     return last >= first && last - first + 1 <= NarrowRangeMixture.MAX_PARTS_RANGE;
   }
 
   /** Built with box-mixture's setup stopped at `setupLimit` steps; null when over it. */
-  static within(n: number, a: number, b: number, setupLimit: number): NarrowRangeMixture | null {
+  static within(n: number, a: number, b: number, setupLimit: number, distinct = false): NarrowRangeMixture | null {
     try {
-      return new NarrowRangeMixture(n, a, b, { setupLimit });
+      return new NarrowRangeMixture(n, a, b, { setupLimit, distinct });
     } catch (error) {
       if (error instanceof MixtureSetupExceeded) return null;
       throw error;
     }
   }
 
-  /** The numbers of parts a member can have: ⌈n / b⌉ .. ⌊n / a⌋. */
-  static partsRange(n: number, a: number, b: number): [number, number] {
-    return [Math.ceil(n / b), Math.floor(n / a)];
+  /**
+   * The numbers of parts a member can have: ⌈n / b⌉ .. ⌊n / a⌋; for distinct parts the k with
+   * k a + k(k − 1)/2 <= n <= k b − k(k − 1)/2 (and k <= b − a + 1).
+   */
+  static partsRange(n: number, a: number, b: number, distinct = false): [number, number] {
+    if (!distinct) return [Math.ceil(n / b), Math.floor(n / a)];
+    const most = Math.min(b - a + 1, largestWithin((k) => k * a + (k * (k - 1)) / 2 <= n));
+    // The largest sum of k distinct parts <= b, k b − k(k − 1)/2, increases up to k = b + 1/2.
+    const top = Math.min(most, b);
+    if (top < 1 || top * b - (top * (top - 1)) / 2 < n) return [1, 0];
+    let lo = 1;
+    let hi = top;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (mid * b - (mid * (mid - 1)) / 2 >= n) hi = mid;
+      else lo = mid + 1;
+    }
+    return [lo, most];
   }
 }
 
@@ -181,20 +191,32 @@ function rotationEstimate(box: Box): ReturnType<typeof BoxRotation.estimate> | n
 }
 
 /**
- * The boxes "exactly k parts in [a, b]" for k = ⌈n/b⌉ .. ⌊n/a⌋: k rows (at most the size) of
- * b − a columns (Infinity when the size cannot fill one), size n − k a; as plan-length.ts's exactBox.
+ * The boxes "exactly k parts in [a, b]" (distinct or not) for the k of partsRange: box-maps.ts's
+ * exactBox (k rows of b − a columns, or b − a − k + 1 for distinct parts; Infinity when the size
+ * cannot fill one).
  */
-export function narrowEntries(n: number, a: number, b: number): MixtureEntry[] {
-  const [first, last] = NarrowRangeMixture.partsRange(n, a, b);
+export function narrowEntries(n: number, a: number, b: number, distinct = false): MixtureEntry[] {
+  const [first, last] = NarrowRangeMixture.partsRange(n, a, b, distinct);
   const entries: MixtureEntry[] = [];
   for (let k = Math.max(1, first); k <= last; k++) {
-    const cols = b - a;
-    const size = n - k * a;
-    if (size < 0 || size > k * cols) continue;
-    const box: Box = { rows: Math.min(k, Math.max(size, 1)), cols: cols >= size ? Infinity : cols, size };
-    entries.push({ parts: k, box });
+    const box = exactBox(n, a, b, distinct, k);
+    if (box !== null) entries.push({ parts: k, box });
   }
   return entries;
+}
+
+/** The largest k >= 0 with ok(k), for ok true at 0 and monotone (doubling, then bisection). */
+function largestWithin(ok: (k: number) => boolean): number {
+  let hi = 1;
+  while (ok(hi)) hi *= 2;
+  let lo = hi / 2;
+  if (hi === 1) return 0;
+  while (hi - lo > 1) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (ok(mid)) lo = mid;
+    else hi = mid;
+  }
+  return lo;
 }
 
 /**
@@ -250,9 +272,10 @@ export function logPartsAtMostBound(m: number, w: number): number {
  * the k near the centre, then on each side of the centre a binary search for the first k whose
  * bound (logPartsAtMostBound) is below the cut.
  */
-function heavyEntries(entries: MixtureEntry[], n: number, a: number, w: number): MixtureEntry[] {
+function heavyEntries(entries: MixtureEntry[], n: number, a: number, b: number, distinct: boolean): MixtureEntry[] {
   if (entries.length <= 2) return entries;
-  const b = a + w;
+  if (distinct) return heavyDistinctEntries(entries, n, a, b);
+  const w = b - a;
   const ks = entries.map((e) => e.parts);
   const estimate = (k: number) => {
     const mean = (k * w) / 2;
@@ -284,23 +307,42 @@ function heavyEntries(entries: MixtureEntry[], n: number, a: number, w: number):
   return entries.slice(first, lo + 1);
 }
 
+/**
+ * heavyEntries for distinct parts: box k has k rows of w = b − a − k + 1 columns and size
+ * m = n − k a − k(k − 1)/2; ln c(k) estimated as above over every k, then from each end inwards the
+ * k are dropped while their bound is below the cut: the bound on partitions of min(m, k w − m)
+ * into parts <= min(k, w) (the box's members, or its complements', by conjugation within the box).
+ */
+function heavyDistinctEntries(entries: MixtureEntry[], n: number, a: number, b: number): MixtureEntry[] {
+  const side = (k: number) => b - a - k + 1;
+  const size = (k: number) => n - k * a - (k * (k - 1)) / 2;
+  let top = -Infinity;
+  for (const { parts: k } of entries) {
+    const w = side(k);
+    const variance = (k * w * (k + w + 1)) / 12;
+    const z = (size(k) - (k * w) / 2) / Math.sqrt(variance);
+    const estimate = logGamma(k + w + 1) - logGamma(k + 1) - logGamma(w + 1) - 0.5 * Math.log(2 * Math.PI * variance) - (z * z) / 2;
+    if (variance > 0) top = Math.max(top, estimate);
+  }
+  if (!(top > -Infinity)) return entries;
+  const cut = top - DROP_NATS;
+  const below = (i: number) => {
+    const k = entries[i].parts;
+    const w = side(k);
+    const m = size(k);
+    return logPartsAtMostBound(Math.min(m, k * w - m), Math.min(k, w)) < cut;
+  };
+  let first = 0;
+  while (first < entries.length - 1 && below(first)) first++;
+  let last = entries.length - 1;
+  while (last > first && below(last)) last--;
+  return entries.slice(first, last + 1);
+}
+
 /** ln C(M, j) as a sum of j logarithms of ratios (relative error ~ j · 1e-16 of its terms). */
 function logBinomial(M: number, j: number): number {
   const r = Math.min(j, M - j);
   let sum = 0;
   for (let i = 0; i < r; i++) sum += Math.log((M - i) / (r - i));
   return sum;
-}
-
-/** k parts: the box rows plus a, the rows left empty becoming parts equal to a (largest first). */
-function shiftParts(rows: Partition, a: number, k: number): Partition {
-  let used = 0;
-  for (const m of rows.multiplicities) used += m;
-  const sizes = rows.sizes.map((s) => s + a);
-  const multiplicities = rows.multiplicities.slice();
-  if (used < k) {
-    sizes.push(a);
-    multiplicities.push(k - used);
-  }
-  return { sizes, multiplicities };
 }

@@ -265,27 +265,18 @@ export class BoxMixture implements PartitionSampler {
     const buffer = new Float64Array(widest);
     this.samplers = designs.map((d) => new BoxSubset(d, buffer));
     this.parts = entries.map((e) => e.parts);
-    const top = Math.max(...logWeights);
-    this.cumulative = new Float64Array(entries.length);
-    let total = 0;
-    let success = 0;
-    let parts = 0;
-    let cost = 0;
-    for (let i = 0; i < entries.length; i++) {
-      const weight = Math.exp(logWeights[i] - top);
-      total += weight;
-      this.cumulative[i] = total;
-      // Estimated success rate of this k's proposals and its share of the members.
-      const rate = 1 / designs[i].expectedProposals;
-      success += weight * rate;
-      parts += weight * rate * this.parts[i];
-      cost += weight * designs[i].proposalCost * (designs[i].b === Infinity || designs[i].single ? 1 : BOUNDED_STEP_COST);
-    }
-    const expectedProposals = total / success;
+    const mixed = mixtureWeights(
+      logWeights,
+      designs.map((d) => 1 / d.expectedProposals),
+      this.parts,
+      designs.map((d) => d.proposalCost * (d.b === Infinity || d.single ? 1 : BOUNDED_STEP_COST)),
+    );
+    this.cumulative = mixed.cumulative;
+    const expectedProposals = mixed.expectedProposals;
     this.estimates = {
       expectedProposals,
-      proposalCost: cost / total + Math.log2(entries.length + 1),
-      expectedParts: parts / success,
+      proposalCost: mixed.meanProposalCost + Math.log2(entries.length + 1),
+      expectedParts: mixed.expectedParts,
       setupWork: setup,
     };
     this.expectedLength = this.estimates.expectedParts;
@@ -309,4 +300,39 @@ export class BoxMixture implements PartitionSampler {
       if (rows !== null) return this.map(this.parts[lo], rows);
     }
   }
+}
+
+/** A mixture over k drawn with probability ∝ exp(logWeights) (cumulative, scaled to the largest) and its estimates. */
+export interface MixtureWeights {
+  readonly cumulative: Float64Array;
+  /** Proposals per sample: the weights' total over the expected successes. */
+  readonly expectedProposals: number;
+  /** Mean number of parts of a sample (each k by its weight times its success rate). */
+  readonly expectedParts: number;
+  /** Mean cost of one proposal (each k by its weight). */
+  readonly meanProposalCost: number;
+}
+
+/**
+ * The cumulative weights of a rejection mixture over k (k drawn ∝ 1 / g(k), restarted after each
+ * failed proposal; see BoxMixture) and its estimates from each k's success rate, parts and cost
+ * per proposal. Weights below 2^−1074 of the largest underflow to 0.
+ */
+export function mixtureWeights(logWeights: readonly number[], rates: readonly number[], parts: readonly number[], costs: readonly number[]): MixtureWeights {
+  const top = Math.max(...logWeights);
+  const cumulative = new Float64Array(logWeights.length);
+  let total = 0;
+  let success = 0;
+  let length = 0;
+  let cost = 0;
+  for (let i = 0; i < logWeights.length; i++) {
+    const weight = Math.exp(logWeights[i] - top);
+    total += weight;
+    cumulative[i] = total;
+    // Estimated success rate of this k's proposals and its share of the members.
+    success += weight * rates[i];
+    length += weight * rates[i] * parts[i];
+    cost += weight * costs[i];
+  }
+  return { cumulative, expectedProposals: total / success, expectedParts: length / success, meanProposalCost: cost / total };
 }

@@ -301,6 +301,13 @@ export function planCandidates(family: PartitionFamily, includeAll = false): Pla
     // union over k <= mostParts of boxes, which the length branch samples too (plan-length.ts).
     out.push(...implicitLengthCandidates({ spec, shape, feasible, fits, withoutLength: () => null }));
   }
+  if (!hasLength && feasible === true && distinct && sizes.kind === 'interval' && (includeAll || !out.some((c) => c.fits)) && NarrowRangeMixture.applies(n, sizes.lo, sizes.hi, true)) {
+    // Distinct parts in a narrow range of large sizes where nothing above fits (the families served
+    // before keep their method): the same union of boxes through the staircase (narrow-range-mixture.ts;
+    // as fast as box-mixture within 1.5x where both fit, n = 1e6-1e8, parts in [2.69, 3.74] sqrt(n)).
+    const sampler = NarrowRangeMixture.within(n, sizes.lo, sizes.hi, TABLE_CELL_LIMIT, true);
+    if (sampler !== null) prepared(sampler, true);
+  }
   return out;
 }
 
