@@ -46,6 +46,7 @@ export const COVERED_ELSEWHERE: ReadonlyArray<[string, string]> = [
   ['distinct-self-similar', 'D'],
   ['minpart-self-similar', 'a'],
   ['narrow-range-mixture', 'ab'],
+  ['narrow-range-mixture', 'Dab'],
   ...['D', 'Db', 'a', 'b', 'L'].map((s): [string, string] => ['table-sizes', s]),
   ...['k', 'ak', 'Dak'].map((s): [string, string] => ['table-lengths', s]),
   ...['K', 'DK', 'abK', 'KL', 'DkL'].map((s): [string, string] => ['table-sizes-lengths', s]),
