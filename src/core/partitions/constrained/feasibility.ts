@@ -1,4 +1,4 @@
-import { listLengthFeasible } from './length-feasibility.js';
+import { listLengthFeasible, residuePaths } from './length-feasibility.js';
 import { subsetSumReachable } from './subset-sum-reach.js';
 import { gcd, sizeCount, sizeGcd, type ConstrainedSpec, type SizeSet } from './spec.js';
 
@@ -136,31 +136,7 @@ function lengthByRoundRobin(values: readonly number[], n: number, kMin: number, 
   const d = D[D.length - 1];
   if (N > c * d) return false;
   if (D.length * d > ROUND_ROBIN_LIMIT) return undefined;
-  const cost = new Float64Array(d).fill(Infinity);
-  const value = new Float64Array(d).fill(Infinity);
-  cost[0] = 0;
-  value[0] = 0;
-  const less = (c1: number, v1: number, p: number) => c1 < cost[p] || (c1 === cost[p] && v1 < value[p]);
-  for (const e of D) {
-    if (e === d) continue;
-    const cycles = gcd(d, e);
-    const cycleLength = d / cycles;
-    for (let p = 0; p < cycles; p++) {
-      let start = p;
-      for (let q = p, i = 0; i < cycleLength; i++, q = (q + e) % d) if (less(cost[q], value[q], start)) start = q;
-      if (cost[start] === Infinity) continue;
-      for (let q = start, i = 0; i < cycleLength; i++) {
-        const next = (q + e) % d;
-        const nc = cost[q] + (d - e);
-        const nv = value[q] + e;
-        if (less(nc, nv, next)) {
-          cost[next] = nc;
-          value[next] = nv;
-        }
-        q = next;
-      }
-    }
-  }
+  const { cost, value } = residuePaths(D, d);
   const rho = N % d;
   if (cost[rho] === Infinity || cost[rho] > c * d - N) return false;
   return value[rho] <= N ? true : undefined;

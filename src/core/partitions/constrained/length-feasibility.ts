@@ -81,13 +81,13 @@ function fewestTable(D: readonly number[], N: number): number {
 }
 
 /**
- * Least d C - V per residue mod d and the smallest V attaining it: the round-robin pass of
+ * Least d C - V per residue mod d and the smallest V attaining it (also feasibility.ts's length test): the round-robin pass of
  * feasibility.ts (Böcker & Lipták 2007) with the lexicographic weight (d - e, e) per element e < d;
  * each element's pass goes once around each cycle p -> p + e mod d from its least entry, which is
  * exact for positive weights (a shortest path never wraps a whole cycle). O(|D| d) steps, replacing
  * a binary-heap Dijkstra (O(|D| d log d), with allocations per push).
  */
-function residuePaths(D: readonly number[], d: number): { cost: Float64Array; value: Float64Array } {
+export function residuePaths(D: readonly number[], d: number): { cost: Float64Array; value: Float64Array } {
   const cost = new Float64Array(d).fill(Infinity);
   const value = new Float64Array(d).fill(Infinity);
   cost[0] = 0;
